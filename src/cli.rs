@@ -1,0 +1,224 @@
+//! Command-line definitions only (clap). No computation lives here.
+
+use clap::{Args, Parser, Subcommand, ValueEnum};
+use std::path::PathBuf;
+
+/// brayfin: gas-turbine bid evaluation from the thermodynamic cycle to the
+/// break-even premium. Screening-level estimates; not a substitute for vendor
+/// guarantees, acceptance testing, or licensed engineering and financial advice.
+#[derive(Debug, Parser)]
+#[command(name = "brayfin", version, about, long_about = None)]
+pub struct Cli {
+    /// The command to run.
+    #[command(subcommand)]
+    pub command: Command,
+}
+
+/// Output format for commands that print results.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
+pub enum Format {
+    /// Aligned tables for people.
+    Table,
+    /// One JSON object for scripts.
+    Json,
+    /// Comma-separated values (long format).
+    Csv,
+}
+
+/// Unit system for presentation.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
+pub enum UnitSystem {
+    /// kJ/kWh, K, kPa, kg/s.
+    Si,
+    /// Btu/kWh, degF, psia, lb/s.
+    Us,
+}
+
+/// Paper size of the PDF briefing.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
+pub enum Paper {
+    /// ISO A4, 210 mm × 297 mm.
+    A4,
+    /// US Letter, 8.5 in × 11 in.
+    Letter,
+}
+
+/// Gas property model of the cycle solver.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
+pub enum GasModelArg {
+    /// Constant cp and k (cold-air standard).
+    ColdAir,
+    /// Variable-property dry air (NASA 7-coefficient polynomials).
+    Air,
+    /// Air, then complete-combustion products of the fuel through the turbine.
+    Products,
+}
+
+/// The subcommands.
+#[derive(Debug, Subcommand)]
+pub enum Command {
+    /// Solve one gas-turbine cycle and print its state table and heat rate.
+    Cycle(CycleArgs),
+    /// Compare the candidates of a scenario against its baseline.
+    Compare(CompareArgs),
+    /// Write the PDF briefing of a scenario.
+    Report(ReportArgs),
+    /// Vary one or two scenario inputs over a range and re-solve each point.
+    Sweep(SweepArgs),
+    /// Monte Carlo over the scenario's [uncertainty] section.
+    Risk(RiskArgs),
+    /// Validate a scenario file and print a normalised summary with warnings.
+    Check(CheckArgs),
+    /// Write a starter scenario file from a template.
+    New(NewArgs),
+}
+
+/// Flags of `brayfin cycle`. Temperatures take `K`, `degC`, `degF`, `degR`
+/// (bare number: K); pressures `kPa`, `Pa`, `bar`, `psia` (bare: kPa);
+/// power `kW`, `MW` (bare: kW); fractions `0.86` or `86 %`.
+#[derive(Debug, Args)]
+pub struct CycleArgs {
+    /// Compressor pressure ratio (> 1).
+    #[arg(long)]
+    pub pressure_ratio: String,
+    /// Turbine inlet temperature (bare number: K).
+    #[arg(long)]
+    pub turbine_inlet_temperature: String,
+    /// Ambient (compressor inlet) temperature (bare number: K).
+    #[arg(long, default_value = "288.15 K")]
+    pub ambient_temperature: String,
+    /// Ambient pressure (bare number: kPa).
+    #[arg(long, default_value = "101.325 kPa")]
+    pub ambient_pressure: String,
+    /// Compressor efficiency, isentropic unless --polytropic (0 < e <= 1).
+    #[arg(long, default_value = "1.0")]
+    pub compressor_efficiency: String,
+    /// Turbine efficiency, isentropic unless --polytropic (0 < e <= 1).
+    #[arg(long, default_value = "1.0")]
+    pub turbine_efficiency: String,
+    /// The compressor and turbine efficiencies are polytropic.
+    #[arg(long)]
+    pub polytropic: bool,
+    /// Regenerator effectiveness (0 < e < 1); omit for no regenerator.
+    #[arg(long)]
+    pub regenerator_effectiveness: Option<String>,
+    /// Regenerator pressure loss on each side, fraction of inlet pressure.
+    #[arg(long, default_value = "0")]
+    pub regenerator_pressure_loss: String,
+    /// Combustor pressure loss, fraction of inlet pressure.
+    #[arg(long, default_value = "0")]
+    pub combustor_pressure_loss: String,
+    /// Intercooler exit temperature; omit for no intercooler (split at the
+    /// geometric mean pressure).
+    #[arg(long)]
+    pub intercool_temperature: Option<String>,
+    /// Reheat combustor exit temperature; omit for no reheat (split at the
+    /// geometric mean pressure).
+    #[arg(long)]
+    pub reheat_temperature: Option<String>,
+    /// Gas property model.
+    #[arg(long, value_enum, default_value = "air")]
+    pub gas: GasModelArg,
+    /// Fuel: `methane`, or a mole-fraction composition such as
+    /// `CH4=0.95,C2H6=0.03,N2=0.02`.
+    #[arg(long, default_value = "methane")]
+    pub fuel: String,
+    /// Rated net electrical output (bare number: kW); gives the flows.
+    #[arg(long)]
+    pub net_output: Option<String>,
+    /// Output format (table or json).
+    #[arg(long, value_enum, default_value = "table")]
+    pub format: Format,
+}
+
+/// Flags of `brayfin compare`.
+#[derive(Debug, Args)]
+pub struct CompareArgs {
+    /// Scenario file (TOML).
+    pub scenario: PathBuf,
+    /// Output format; csv prints the year-by-year ledger of every candidate.
+    #[arg(long, value_enum, default_value = "table")]
+    pub format: Format,
+    /// Unit system of the tables.
+    #[arg(long, value_enum, default_value = "si")]
+    pub units: UnitSystem,
+    /// Also rank the uncertain inputs by their swing in net savings.
+    #[arg(long)]
+    pub sensitivity: bool,
+}
+
+/// Flags of `brayfin report`.
+#[derive(Debug, Args)]
+pub struct ReportArgs {
+    /// Scenario file (TOML).
+    pub scenario: PathBuf,
+    /// Output PDF path (default: the scenario path with `.pdf`).
+    #[arg(short = 'o', long = "output")]
+    pub output: Option<PathBuf>,
+    /// Unit system of the tables.
+    #[arg(long, value_enum, default_value = "si")]
+    pub units: UnitSystem,
+    /// Folder of report templates replacing the built-in wording.
+    #[arg(long)]
+    pub templates: Option<PathBuf>,
+    /// Paper size.
+    #[arg(long, value_enum, default_value = "a4")]
+    pub paper: Paper,
+    /// Monte Carlo samples for the risk section (0 leaves it out).
+    #[arg(long, default_value_t = 2000)]
+    pub samples: usize,
+    /// Random seed of the risk section.
+    #[arg(long, default_value_t = 1)]
+    pub seed: u64,
+}
+
+/// Flags of `brayfin sweep`.
+#[derive(Debug, Args)]
+pub struct SweepArgs {
+    /// Scenario file (TOML).
+    pub scenario: PathBuf,
+    /// `KEY=FROM:TO:STEP`, a dotted scenario key such as `fuel.price`;
+    /// give it once or twice (a grid).
+    #[arg(long = "vary", required = true)]
+    pub vary: Vec<String>,
+    /// Only this candidate (default: all).
+    #[arg(long)]
+    pub candidate: Option<String>,
+    /// Output format.
+    #[arg(long, value_enum, default_value = "table")]
+    pub format: Format,
+}
+
+/// Flags of `brayfin risk`.
+#[derive(Debug, Args)]
+pub struct RiskArgs {
+    /// Scenario file (TOML).
+    pub scenario: PathBuf,
+    /// Number of Monte Carlo samples.
+    #[arg(long, default_value_t = 10_000)]
+    pub samples: usize,
+    /// Random seed; the same seed gives identical results on any thread count.
+    #[arg(long, default_value_t = 1)]
+    pub seed: u64,
+    /// Output format.
+    #[arg(long, value_enum, default_value = "table")]
+    pub format: Format,
+}
+
+/// Flags of `brayfin check`.
+#[derive(Debug, Args)]
+pub struct CheckArgs {
+    /// Scenario file (TOML).
+    pub scenario: PathBuf,
+}
+
+/// Flags of `brayfin new`.
+#[derive(Debug, Args)]
+pub struct NewArgs {
+    /// Where to write the starter scenario; an existing file is never
+    /// overwritten.
+    pub path: PathBuf,
+    /// Starter template name (see `templates/`).
+    #[arg(long, default_value = "bid-evaluation")]
+    pub template: String,
+}

@@ -1,0 +1,23 @@
+//! brayfin entry point: parse the command line, run one command, map its
+//! error to a message on stderr and an exit code (1 bad input, 2 internal).
+
+use brayfin::app;
+use brayfin::cli::{Cli, Command};
+use clap::Parser;
+
+fn main() {
+    let cli = Cli::parse();
+    let outcome = match cli.command {
+        Command::Cycle(args) => app::cycle::run(&args),
+        Command::Compare(args) => app::compare::run(&args),
+        Command::Report(args) => app::report::run(&args),
+        Command::Sweep(args) => app::sweep::run(&args),
+        Command::Risk(args) => app::risk::run(&args),
+        Command::Check(args) => app::check::run(&args),
+        Command::New(args) => app::new::run(&args),
+    };
+    if let Err(error) = outcome {
+        eprintln!("error: {error}");
+        std::process::exit(error.exit_code());
+    }
+}

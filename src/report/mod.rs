@@ -1,0 +1,1 @@
+//! Placeholder; the owning change fills this module.

@@ -1,1 +1,11 @@
-//! Placeholder; the owning change fills this module.
+//! The report: a [`model::Model`] of what is shown, and one renderer per
+//! output format. Renderers never compute.
+
+pub mod model;
+
+/// One output format: turns a [`model::Model`] into bytes. Renderers format;
+/// they never compute.
+pub trait Renderer {
+    /// Render the whole model.
+    fn render(&self, model: &model::Model) -> crate::Result<Vec<u8>>;
+}

@@ -1,0 +1,472 @@
+//! The report model: everything a renderer shows, already computed,
+//! rounded where it is money, and labelled. Renderers (terminal tables,
+//! JSON, CSV, PDF) format this and compute nothing.
+//!
+//! Money is `Decimal` rounded to the currency's minor unit (half away from
+//! zero, see `finance`); physics is `f64` in SI units. The unit system the
+//! user asked for is carried in [`Meta::units`]; renderers convert for
+//! display only.
+
+use rust_decimal::Decimal;
+use serde::Serialize;
+
+/// Unit system for display.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "lowercase")]
+pub enum Units {
+    /// kJ/kWh, K, kPa, kg/s.
+    Si,
+    /// Btu/kWh, degF, psia, lb/s.
+    Us,
+}
+
+/// The whole report.
+#[derive(Debug, Clone, Serialize)]
+pub struct Model {
+    /// Title block and traceability.
+    pub meta: Meta,
+    /// The decision in data (the sentence itself comes from a template).
+    pub decision: Decision,
+    /// Every candidate, baseline first.
+    pub candidates: Vec<CandidateView>,
+    /// The inputs that move the answer most (from the sensitivity ranking),
+    /// largest first; the briefing page shows the first three.
+    pub key_assumptions: Vec<KeyAssumption>,
+    /// Every input with its unit and stated source.
+    pub inputs: Vec<InputView>,
+    /// Every default the loader applied.
+    pub applied_defaults: Vec<DefaultView>,
+    /// Warnings an engineer would want to see (from `check`).
+    pub warnings: Vec<String>,
+    /// How the numbers were made.
+    pub method: MethodView,
+    /// Break-even premium of each non-baseline candidate against fuel price.
+    pub fuel_price_curves: FuelPriceCurves,
+    /// Sensitivity ranking (tornado); empty when not asked for.
+    pub sensitivity: Vec<SensitivityBar>,
+    /// Monte Carlo summary; `None` when not run.
+    pub risk: Option<RiskView>,
+}
+
+/// Title block and traceability of the report.
+#[derive(Debug, Clone, Serialize)]
+pub struct Meta {
+    /// Scenario title.
+    pub title: String,
+    /// Organisation the study is for.
+    pub prepared_for: String,
+    /// Author.
+    pub prepared_by: String,
+    /// Study date as written in the scenario (ISO 8601).
+    pub date: String,
+    /// ISO 4217 currency code.
+    pub currency: String,
+    /// Id of the baseline candidate.
+    pub baseline_id: String,
+    /// The scenario file as the user named it.
+    pub scenario_file: String,
+    /// SHA-256 of the scenario file bytes, lower-case hex.
+    pub scenario_sha256: String,
+    /// brayfin version that made the report.
+    pub brayfin_version: String,
+    /// When the report was generated (RFC 3339, UTC).
+    pub generated_at: String,
+    /// Display unit system.
+    pub units: Units,
+    /// Site name, if given.
+    pub site_name: Option<String>,
+}
+
+/// The decision, in data.
+#[derive(Debug, Clone, Serialize)]
+pub struct Decision {
+    /// The candidate with the lowest lifecycle cost.
+    pub preferred_id: String,
+    /// Its label.
+    pub preferred_label: String,
+    /// Whether the preferred candidate is the baseline itself.
+    pub preferred_is_baseline: bool,
+    /// Break-even premium of the preferred candidate (zero for the baseline).
+    pub break_even_premium: Decimal,
+    /// Premium its bid asks over the baseline (zero for the baseline).
+    pub premium_asked: Decimal,
+    /// Net savings of the preferred candidate against the baseline.
+    pub net_savings: Decimal,
+}
+
+/// One candidate: performance, economics, verdict, ledger.
+#[derive(Debug, Clone, Serialize)]
+pub struct CandidateView {
+    /// Short id from the scenario.
+    pub id: String,
+    /// Human label.
+    pub label: String,
+    /// True for the baseline candidate.
+    pub is_baseline: bool,
+    /// Gas model name used for this candidate ("cold-air", "air", "products").
+    pub gas_model: String,
+    /// Headline performance.
+    pub performance: PerformanceView,
+    /// The solved cycle: state table, works, energy balance.
+    pub cycle: CycleView,
+    /// Economics against the baseline.
+    pub economics: EconomicsView,
+    /// Plain-words verdict data.
+    pub verdict: Verdict,
+    /// Present value of the lifecycle cost by stream.
+    pub cost_breakdown: CostBreakdown,
+    /// Cumulative discounted savings against the baseline at the end of each
+    /// ledger year (empty for the baseline).
+    pub cumulative_savings: Vec<CumulativePoint>,
+    /// The year-by-year ledger.
+    pub ledger: Vec<LedgerRowView>,
+}
+
+/// Headline performance at site conditions, new and clean, full load.
+#[derive(Debug, Clone, Serialize)]
+pub struct PerformanceView {
+    /// Rated net electrical output, kW.
+    pub net_output_kw: f64,
+    /// Net heat rate, LHV basis, kJ/kWh.
+    pub heat_rate_kj_per_kwh: f64,
+    /// Net heat rate, LHV basis, Btu/kWh.
+    pub heat_rate_btu_per_kwh: f64,
+    /// Net electrical efficiency, LHV basis, fraction.
+    pub thermal_efficiency: f64,
+    /// Exhaust (stack) temperature, K.
+    pub exhaust_temperature_k: f64,
+    /// Compressor inlet air flow for the rated output, kg/s.
+    pub air_flow_kg_per_s: f64,
+    /// Fuel flow for the rated output, kg/s.
+    pub fuel_flow_kg_per_s: f64,
+    /// CO2 emitted per MWh of net output, kg/MWh.
+    pub co2_kg_per_mwh: f64,
+}
+
+/// One row of the cycle state table.
+#[derive(Debug, Clone, Serialize)]
+pub struct StateRow {
+    /// State id ("1", "2s", "2", …).
+    pub id: String,
+    /// State name.
+    pub name: String,
+    /// Temperature, K.
+    pub temperature_k: f64,
+    /// Pressure, kPa.
+    pub pressure_kpa: f64,
+    /// Specific enthalpy, kJ/kg.
+    pub enthalpy_kj_per_kg: f64,
+    /// Specific entropy, kJ/(kg·K).
+    pub entropy_kj_per_kg_k: f64,
+}
+
+/// The solved cycle of one candidate, per kg of compressor inlet air.
+#[derive(Debug, Clone, Serialize)]
+pub struct CycleView {
+    /// State table in flow order.
+    pub states: Vec<StateRow>,
+    /// Compressor work, kJ/kg.
+    pub compressor_work_kj_per_kg: f64,
+    /// Turbine work, kJ/kg.
+    pub turbine_work_kj_per_kg: f64,
+    /// Net work, kJ/kg.
+    pub net_work_kj_per_kg: f64,
+    /// Heat input, kJ/kg.
+    pub heat_input_kj_per_kg: f64,
+    /// Heat rejected, kJ/kg.
+    pub heat_rejected_kj_per_kg: f64,
+    /// Back-work ratio, fraction.
+    pub back_work_ratio: f64,
+    /// First-law residual, kJ/kg.
+    pub energy_balance_residual_kj_per_kg: f64,
+    /// Fuel–air ratio (products model only).
+    pub fuel_air_ratio: Option<f64>,
+}
+
+/// Discounted payback.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize)]
+#[serde(tag = "kind", content = "years", rename_all = "snake_case")]
+pub enum PaybackView {
+    /// Paid back after this many (fractional) years.
+    Years(f64),
+    /// Never paid back within the service life.
+    NeverWithinLife,
+    /// Not applicable (the baseline, or no added investment).
+    NotApplicable,
+}
+
+/// Present value of one percentage point of each component figure.
+#[derive(Debug, Clone, Serialize)]
+pub struct ValuePerPoint {
+    /// Per point of compressor efficiency.
+    pub compressor_efficiency: Decimal,
+    /// Per point of turbine efficiency.
+    pub turbine_efficiency: Decimal,
+    /// Per point of regenerator effectiveness, if one is fitted.
+    pub regenerator_effectiveness: Option<Decimal>,
+}
+
+/// Economics of one candidate, against the baseline where relevant.
+#[derive(Debug, Clone, Serialize)]
+pub struct EconomicsView {
+    /// Capital cost (undiscounted).
+    pub capital_cost: Decimal,
+    /// Lifecycle cost: sum of the ledger's present values.
+    pub lifecycle_cost: Decimal,
+    /// Levelized cost of electricity per MWh.
+    pub levelized_cost_per_mwh: Decimal,
+    /// Net savings against the baseline (None for the baseline).
+    pub net_savings_vs_baseline: Option<Decimal>,
+    /// Extra capital over the baseline at which net savings are zero.
+    pub break_even_premium: Option<Decimal>,
+    /// Extra capital over the baseline that the bid asks.
+    pub premium_asked: Option<Decimal>,
+    /// Savings-to-investment ratio (None where undefined).
+    pub savings_to_investment_ratio: Option<f64>,
+    /// Adjusted internal rate of return, fraction (None where undefined).
+    pub adjusted_irr: Option<f64>,
+    /// Simple payback.
+    pub simple_payback: PaybackView,
+    /// Discounted payback.
+    pub discounted_payback: PaybackView,
+    /// Fuel price (per GJ, scenario basis) at which this candidate and the
+    /// baseline cost the same over the life.
+    pub break_even_fuel_price: Option<Decimal>,
+    /// Present value of one point of each component figure.
+    pub value_per_point: ValuePerPoint,
+    /// Present value of one kJ/kWh of heat rate over the life.
+    pub value_per_kj_per_kwh: Decimal,
+    /// Present value of one kW of net output over the life.
+    pub value_per_kw: Decimal,
+}
+
+/// The verdict on one candidate.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "snake_case")]
+pub enum VerdictKind {
+    /// This candidate is the baseline.
+    Baseline,
+    /// Its break-even premium covers the premium asked.
+    WorthPremium,
+    /// Its break-even premium falls short of the premium asked.
+    NotWorthPremium,
+}
+
+/// Verdict data; the words come from the renderer or a template.
+#[derive(Debug, Clone, Serialize)]
+pub struct Verdict {
+    /// Kind of verdict.
+    pub kind: VerdictKind,
+    /// Break-even premium minus premium asked (positive: headroom).
+    pub margin: Decimal,
+}
+
+/// Lifecycle cost by stream, present values (residual negative).
+#[derive(Debug, Clone, Serialize)]
+pub struct CostBreakdown {
+    /// Capital.
+    pub capital: Decimal,
+    /// Fuel.
+    pub fuel: Decimal,
+    /// Fixed plus variable O&M.
+    pub operation_and_maintenance: Decimal,
+    /// Major overhauls.
+    pub overhauls: Decimal,
+    /// Carbon.
+    pub carbon: Decimal,
+    /// Residual value (a credit, negative).
+    pub residual: Decimal,
+}
+
+/// One point of cumulative discounted savings.
+#[derive(Debug, Clone, Serialize)]
+pub struct CumulativePoint {
+    /// Years since commercial operation at the end of the row.
+    pub years_from_start: f64,
+    /// Calendar year label of the row.
+    pub year: i32,
+    /// Cumulative discounted savings against the baseline.
+    pub savings: Decimal,
+}
+
+/// One ledger row as shown.
+#[derive(Debug, Clone, Serialize)]
+pub struct LedgerRowView {
+    /// Calendar year label.
+    pub year: i32,
+    /// First day of the period (ISO 8601).
+    pub period_start: String,
+    /// Last day of the period (ISO 8601).
+    pub period_end: String,
+    /// Operating hours.
+    pub operating_hours: f64,
+    /// Net energy, MWh.
+    pub energy_mwh: f64,
+    /// Fuel energy, GJ (LHV).
+    pub fuel_energy_gj: f64,
+    /// Fuel cost.
+    pub fuel_cost: Decimal,
+    /// Carbon cost.
+    pub carbon_cost: Decimal,
+    /// Fixed O&M.
+    pub fixed_om: Decimal,
+    /// Variable O&M.
+    pub variable_om: Decimal,
+    /// Overhaul.
+    pub overhaul: Decimal,
+    /// Capital.
+    pub capital: Decimal,
+    /// Residual value (a credit, negative).
+    pub residual: Decimal,
+    /// Sum of the row's money.
+    pub total: Decimal,
+    /// Discount factor applied to the row.
+    pub discount_factor: f64,
+    /// Total × discount factor.
+    pub present_value: Decimal,
+}
+
+/// An input that moves the answer, for the briefing page.
+#[derive(Debug, Clone, Serialize)]
+pub struct KeyAssumption {
+    /// Dotted scenario key.
+    pub key: String,
+    /// Plain-words name.
+    pub label: String,
+    /// Base value as shown, with unit.
+    pub base_value: String,
+    /// Largest swing in net savings of any candidate over its range.
+    pub swing: Decimal,
+}
+
+/// One input line of the assumptions section.
+#[derive(Debug, Clone, Serialize)]
+pub struct InputView {
+    /// Dotted scenario key.
+    pub key: String,
+    /// Value as given.
+    pub value: String,
+    /// Unit (empty for dimensionless).
+    pub unit: String,
+    /// Source as the scenario states it.
+    pub source: Option<String>,
+}
+
+/// One default the loader applied.
+#[derive(Debug, Clone, Serialize)]
+pub struct DefaultView {
+    /// Dotted scenario key.
+    pub key: String,
+    /// Value applied.
+    pub value: String,
+}
+
+/// How the numbers were made (data; method prose is in the templates).
+#[derive(Debug, Clone, Serialize)]
+pub struct MethodView {
+    /// Gas models used, distinct.
+    pub gas_models: Vec<String>,
+    /// "real" or "nominal".
+    pub rate_basis: String,
+    /// Discount rate, fraction, on `rate_basis`.
+    pub discount_rate: f64,
+    /// General inflation, fraction.
+    pub inflation: f64,
+    /// "end-of-year" or "mid-year".
+    pub timing: String,
+    /// Service life, years.
+    pub service_life_years: u32,
+    /// Fuel price basis ("HHV" or "LHV").
+    pub fuel_price_basis: String,
+    /// HHV/LHV ratio of the fuel.
+    pub hhv_over_lhv: f64,
+    /// Rounding rule for money.
+    pub rounding: String,
+}
+
+/// Break-even premium against fuel price.
+#[derive(Debug, Clone, Serialize)]
+pub struct FuelPriceCurves {
+    /// The scenario's first-year fuel price, per GJ on the stated basis.
+    pub scenario_price_per_gj: Decimal,
+    /// One series per non-baseline candidate.
+    pub series: Vec<FuelPriceSeries>,
+}
+
+/// One candidate's break-even premium curve.
+#[derive(Debug, Clone, Serialize)]
+pub struct FuelPriceSeries {
+    /// Candidate id.
+    pub candidate_id: String,
+    /// (fuel price per GJ, break-even premium) points, price ascending.
+    pub points: Vec<(Decimal, Decimal)>,
+}
+
+/// One bar of the sensitivity (tornado) chart.
+#[derive(Debug, Clone, Serialize)]
+pub struct SensitivityBar {
+    /// Candidate id.
+    pub candidate_id: String,
+    /// Dotted scenario key.
+    pub key: String,
+    /// Low and high values of the input, as shown with unit.
+    pub low_value: String,
+    /// High value of the input, as shown with unit.
+    pub high_value: String,
+    /// Whether the range is the default ±20 % (not stated in the scenario).
+    pub default_range: bool,
+    /// Change in net savings at the low value, against the base case.
+    pub delta_at_low: Decimal,
+    /// Change in net savings at the high value, against the base case.
+    pub delta_at_high: Decimal,
+}
+
+/// Monte Carlo summary.
+#[derive(Debug, Clone, Serialize)]
+pub struct RiskView {
+    /// Number of samples.
+    pub samples: usize,
+    /// Seed.
+    pub seed: u64,
+    /// One entry per non-baseline candidate.
+    pub candidates: Vec<RiskCandidate>,
+}
+
+/// Monte Carlo results for one candidate.
+#[derive(Debug, Clone, Serialize)]
+pub struct RiskCandidate {
+    /// Candidate id.
+    pub candidate_id: String,
+    /// Net savings statistics.
+    pub net_savings: Percentiles,
+    /// Break-even premium statistics.
+    pub break_even_premium: Percentiles,
+    /// Probability that it beats the baseline at the premium asked.
+    pub probability_beats_baseline: f64,
+    /// Histogram of net savings.
+    pub histogram: Histogram,
+}
+
+/// Mean and percentiles of a sampled money figure.
+#[derive(Debug, Clone, Serialize)]
+pub struct Percentiles {
+    /// Mean.
+    pub mean: Decimal,
+    /// 10th percentile.
+    pub p10: Decimal,
+    /// Median.
+    pub p50: Decimal,
+    /// 90th percentile.
+    pub p90: Decimal,
+}
+
+/// Equal-width histogram.
+#[derive(Debug, Clone, Serialize)]
+pub struct Histogram {
+    /// Lower edge of the first bin.
+    pub low: Decimal,
+    /// Bin width.
+    pub bin_width: Decimal,
+    /// Count per bin.
+    pub counts: Vec<u64>,
+}

@@ -9,3 +9,8 @@ pub trait Renderer {
     /// Render the whole model.
     fn render(&self, model: &model::Model) -> crate::Result<Vec<u8>>;
 }
+
+pub mod csv;
+pub mod format;
+pub mod json;
+pub mod table;

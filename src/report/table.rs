@@ -1,0 +1,188 @@
+//! Terminal renderer: a performance table, an economics table and one
+//! verdict line per candidate, aligned, units in headers.
+
+use super::format::{self, money, money_opt};
+use super::model::{CandidateView, Model, Units, VerdictKind};
+use super::Renderer;
+use tabled::builder::Builder;
+use tabled::settings::{object::Columns, Alignment, Style};
+
+/// Renders the comparison for people at a terminal.
+pub struct TableRenderer;
+
+impl Renderer for TableRenderer {
+    fn render(&self, model: &Model) -> crate::Result<Vec<u8>> {
+        let mut out = String::new();
+        let meta = &model.meta;
+        out.push_str(&format!("{}\n", meta.title));
+        out.push_str(&format!(
+            "Baseline: {}   Currency: {}   Scenario: {} (sha256 {})\n\n",
+            meta.baseline_id,
+            meta.currency,
+            meta.scenario_file,
+            &meta.scenario_sha256[..meta.scenario_sha256.len().min(12)]
+        ));
+        out.push_str("Performance at site, new and clean, full load (heat rate on LHV)\n");
+        out.push_str(&performance_table(model));
+        out.push_str("\n\nEconomics over the service life (present values)\n");
+        out.push_str(&economics_table(model));
+        out.push_str("\n\nVerdict\n");
+        for c in &model.candidates {
+            out.push_str(&format!("  {}\n", verdict_line(c, &meta.currency)));
+        }
+        if !model.sensitivity.is_empty() {
+            out.push_str("\nSensitivity of net savings (largest swing first)\n");
+            out.push_str(&sensitivity_table(model));
+            out.push('\n');
+        }
+        if !model.warnings.is_empty() {
+            out.push_str("\nWarnings\n");
+            for w in &model.warnings {
+                out.push_str(&format!("  - {w}\n"));
+            }
+        }
+        out.push_str(
+            "\nScreening-level estimate: not a substitute for vendor guarantees, acceptance \
+             testing, or licensed engineering and financial advice.\n",
+        );
+        Ok(out.into_bytes())
+    }
+}
+
+fn finish(mut builder_table: tabled::Table) -> String {
+    builder_table
+        .with(Style::psql())
+        .modify(Columns::new(1..), Alignment::right());
+    builder_table.to_string()
+}
+
+fn performance_table(model: &Model) -> String {
+    let units = model.meta.units;
+    let (hr, temp, flow) = match units {
+        Units::Si => ("heat rate kJ/kWh", "exhaust K", "kg/s"),
+        Units::Us => ("heat rate Btu/kWh", "exhaust degF", "lb/s"),
+    };
+    let mut b = Builder::default();
+    b.push_record([
+        "candidate".to_string(),
+        "net output MW".to_string(),
+        hr.to_string(),
+        "efficiency %".to_string(),
+        temp.to_string(),
+        format!("air flow {flow}"),
+        format!("fuel flow {flow}"),
+    ]);
+    for c in &model.candidates {
+        let p = &c.performance;
+        let strip = |s: String| s.split(' ').next().unwrap_or_default().to_string();
+        b.push_record([
+            c.id.clone(),
+            format::number(p.net_output_kw / 1000.0, 2),
+            strip(format::heat_rate(
+                p.heat_rate_kj_per_kwh,
+                p.heat_rate_btu_per_kwh,
+                units,
+            )),
+            format!("{:.2}", p.thermal_efficiency * 100.0),
+            strip(format::temperature(p.exhaust_temperature_k, units)),
+            strip(format::mass_flow(p.air_flow_kg_per_s, units)),
+            format!(
+                "{:.3}",
+                match units {
+                    Units::Si => p.fuel_flow_kg_per_s,
+                    Units::Us => p.fuel_flow_kg_per_s / 0.453_592_37,
+                }
+            ),
+        ]);
+    }
+    finish(b.build())
+}
+
+fn economics_table(model: &Model) -> String {
+    let cur = &model.meta.currency;
+    let mut b = Builder::default();
+    b.push_record([
+        "candidate",
+        "capital",
+        "lifecycle cost",
+        "LCOE /MWh",
+        "net savings",
+        "break-even premium",
+        "premium asked",
+        "SIR",
+        "AIRR %",
+        "disc. payback",
+    ]);
+    for c in &model.candidates {
+        let e = &c.economics;
+        b.push_record([
+            c.id.clone(),
+            money(e.capital_cost, cur),
+            money(e.lifecycle_cost, cur),
+            format!("{} {}", cur, format::grouped(e.levelized_cost_per_mwh, 2)),
+            money_opt(e.net_savings_vs_baseline, cur),
+            money_opt(e.break_even_premium, cur),
+            money_opt(e.premium_asked, cur),
+            e.savings_to_investment_ratio
+                .map_or_else(|| "n/a".into(), |v| format!("{v:.2}")),
+            e.adjusted_irr
+                .map_or_else(|| "n/a".into(), |v| format!("{:.2}", v * 100.0)),
+            format::payback(e.discounted_payback),
+        ]);
+    }
+    finish(b.build())
+}
+
+fn sensitivity_table(model: &Model) -> String {
+    let cur = &model.meta.currency;
+    let mut b = Builder::default();
+    b.push_record([
+        "candidate",
+        "input",
+        "low",
+        "high",
+        "change at low",
+        "change at high",
+    ]);
+    for bar in &model.sensitivity {
+        let mut key = bar.key.clone();
+        if bar.default_range {
+            key.push_str(" (±20 % default)");
+        }
+        b.push_record([
+            bar.candidate_id.clone(),
+            key,
+            bar.low_value.clone(),
+            bar.high_value.clone(),
+            money(bar.delta_at_low, cur),
+            money(bar.delta_at_high, cur),
+        ]);
+    }
+    finish(b.build())
+}
+
+/// One verdict line in plain words.
+pub fn verdict_line(c: &CandidateView, currency: &str) -> String {
+    let e = &c.economics;
+    match c.verdict.kind {
+        VerdictKind::Baseline => format!("{} ({}): the baseline.", c.id, c.label),
+        VerdictKind::WorthPremium => format!(
+            "{} ({}): worth its premium. It asks {} over the baseline and would break even at {}, \
+             leaving {} of headroom.",
+            c.id,
+            c.label,
+            money_opt(e.premium_asked, currency),
+            money_opt(e.break_even_premium, currency),
+            money(c.verdict.margin, currency)
+        ),
+        VerdictKind::NotWorthPremium => format!(
+            "{} ({}): not worth its premium. It asks {} over the baseline but breaks even at {}, \
+             {} too much.",
+            c.id,
+            c.label,
+            money_opt(e.premium_asked, currency),
+            money_opt(e.break_even_premium, currency),
+            money(-c.verdict.margin, currency)
+        ),
+    }
+}

@@ -32,6 +32,10 @@ pub const KJ_PER_KG_PER_BTU_PER_LB: f64 = 2.326;
 /// (NIST SP 811, 2008, Appendix B.8; 1 psi = 6894.757 Pa).
 pub const KPA_PER_PSI: f64 = 6.894_757_293_168_361;
 
+/// Kilograms per avoirdupois pound, exactly 0.45359237 (NIST SP 811,
+/// Appendix B.8).
+pub const KG_PER_LB: f64 = 0.453_592_37;
+
 /// Metres per international foot, exactly 0.3048 (NIST SP 811, Appendix B.8).
 pub const M_PER_FT: f64 = 0.3048;
 
@@ -65,6 +69,10 @@ pub enum Kind {
     PricePerEnergy,
     /// Money per kW of capacity per year (internal: currency per kW-yr).
     PricePerCapacity,
+    /// A duration in operating hours (internal unit h).
+    Duration,
+    /// CO2 mass per unit of fuel energy (internal unit kg/GJ).
+    EmissionFactor,
 }
 
 impl Kind {
@@ -84,6 +92,8 @@ impl Kind {
             Kind::PricePerTonne => "a price per tonne",
             Kind::PricePerEnergy => "a price per unit of electrical energy",
             Kind::PricePerCapacity => "a price per kW-year",
+            Kind::Duration => "a duration",
+            Kind::EmissionFactor => "an emission factor",
         }
     }
 
@@ -103,6 +113,8 @@ impl Kind {
             Kind::PricePerTonne => "CUR/t, CUR/tCO2, CUR/kg, e.g. 45 USD/t",
             Kind::PricePerEnergy => "CUR/MWh, CUR/kWh, e.g. 4.5 USD/MWh",
             Kind::PricePerCapacity => "CUR/kW-yr, CUR/MW-yr, e.g. 12 USD/kW-yr",
+            Kind::Duration => "h; bare number = h",
+            Kind::EmissionFactor => "kg/GJ, kg/TJ, kg/MMBtu, lb/MMBtu; bare number = kg/GJ",
         }
     }
 }
@@ -220,6 +232,16 @@ const UNITS: &[Unit] = &[
         KJ_PER_KG_PER_BTU_PER_LB,
         0.0,
     ),
+    unit("h", Kind::Duration, 1.0, 0.0),
+    unit("kg/GJ", Kind::EmissionFactor, 1.0, 0.0),
+    unit("kg/TJ", Kind::EmissionFactor, 1.0e-3, 0.0),
+    unit("kg/MMBtu", Kind::EmissionFactor, 1.0 / KJ_PER_BTU, 0.0),
+    unit(
+        "lb/MMBtu",
+        Kind::EmissionFactor,
+        KG_PER_LB / KJ_PER_BTU,
+        0.0,
+    ),
     unit("m", Kind::Length, 1.0, 0.0),
     unit("ft", Kind::Length, M_PER_FT, 0.0),
 ];
@@ -328,6 +350,17 @@ pub fn heat_rate_kj_per_kwh(text: &str) -> Result<f64, UnitError> {
 /// Specific energy in kJ/kg from kJ/kg, MJ/kg or Btu/lb (bare number: kJ/kg).
 pub fn specific_energy_kj_per_kg(text: &str) -> Result<f64, UnitError> {
     convert(text, Kind::SpecificEnergy)
+}
+
+/// A duration in hours from h (bare number: h), e.g. an overhaul interval.
+pub fn duration_h(text: &str) -> Result<f64, UnitError> {
+    convert(text, Kind::Duration)
+}
+
+/// CO2 emission factor in kg per GJ of fuel energy from kg/GJ, kg/TJ,
+/// kg/MMBtu or lb/MMBtu (bare number: kg/GJ).
+pub fn emission_factor_kg_per_gj(text: &str) -> Result<f64, UnitError> {
+    convert(text, Kind::EmissionFactor)
 }
 
 /// Length in m from m or ft (bare number: m), e.g. a site elevation.

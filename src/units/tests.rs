@@ -223,3 +223,21 @@ fn other_prices() {
         Some("expected a price per tonne (CUR/t, CUR/tCO2, CUR/kg, e.g. 45 USD/t) but \"12 K\" is a temperature")
     );
 }
+
+#[test]
+fn durations_and_emission_factors() {
+    assert!(matches!(duration_h("24000 h"), Ok(v) if v == 24_000.0));
+    // IPCC 2006 Vol. 2 Ch. 2 Table 2.2: natural gas 56 100 kg CO2/TJ (NCV)
+    // is 56.1 kg/GJ.
+    assert!(matches!(emission_factor_kg_per_gj("56100 kg/TJ"), Ok(v) if close(v, 56.1, 1e-14)));
+    // 117.0 lb/MMBtu (a commonly quoted natural-gas factor, from memory)
+    // = 117.0 × 0.45359237 / 1.055056 = 50.3011... kg/GJ.
+    assert!(matches!(
+        emission_factor_kg_per_gj("117 lb/MMBtu"),
+        Ok(v) if close(v, 117.0 * 0.453_592_37 / 1.055_056, 1e-14)
+    ));
+    assert!(matches!(
+        duration_h("3 MW").err().map(|e| e.problem),
+        Some(Problem::WrongKind(Kind::Power))
+    ));
+}

@@ -14,3 +14,6 @@ pub mod csv;
 pub mod format;
 pub mod json;
 pub mod table;
+pub mod charts;
+pub mod pdf;
+pub mod wording;

@@ -1,0 +1,153 @@
+//! The analysis calendar: operating periods labelled by calendar year, and
+//! the time axis that discounting and escalation run on.
+//!
+//! Conventions (chosen here and stated in every ledger):
+//! - The base date, time zero, is the commercial-operation date. Cash before
+//!   it (construction capital) has negative time and a discount factor above
+//!   one on a positive discount rate.
+//! - The service life is `N` anniversary years: it ends at the start of the
+//!   `N`-th anniversary of commercial operation (`end_of_life`, exclusive). A
+//!   29 February start has its anniversaries on 28 February.
+//! - Rows are calendar years. The first row runs from commercial operation to
+//!   31 December; the last row from 1 January to the day before the end of
+//!   life. A 1 January start gives exactly `N` full calendar years.
+//! - Time is measured in years by the actual/actual (ISDA) day count: each
+//!   day counts 1/366 of a year in a leap year and 1/365 otherwise (ISDA 2006
+//!   Definitions, section 4.16(b), from memory). A full calendar year is
+//!   therefore exactly one year, and a partial year's share is its days over
+//!   the days of its calendar year; annual hours, energy and fuel are
+//!   prorated by that share. A mid-year start makes the total span differ
+//!   from `N` by at most a few thousandths of a year.
+
+use chrono::{Datelike, Months, NaiveDate};
+
+use super::FinanceError;
+
+/// Longest service life accepted, in years.
+pub const MAX_SERVICE_LIFE_YEARS: u32 = 60;
+
+fn days_in_year(year: i32) -> f64 {
+    if NaiveDate::from_ymd_opt(year, 2, 29).is_some() {
+        366.0
+    } else {
+        365.0
+    }
+}
+
+/// Position of `date` in years since 1 January of `reference_year`,
+/// actual/actual (ISDA): whole years plus the day of the year over the days
+/// of that year.
+fn position_years(date: NaiveDate, reference_year: i32) -> f64 {
+    f64::from(date.year() - reference_year) + f64::from(date.ordinal0()) / days_in_year(date.year())
+}
+
+/// Years from `from` to `to` by the actual/actual (ISDA) day count; negative
+/// when `to` is before `from`. Exact whole numbers between 1 January dates.
+pub fn years_between(from: NaiveDate, to: NaiveDate) -> f64 {
+    let reference_year = from.year();
+    position_years(to, reference_year) - position_years(from, reference_year)
+}
+
+/// One calendar-year row of operation.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Period {
+    /// Calendar year that labels the row.
+    pub year: i32,
+    /// First day of the period.
+    pub start: NaiveDate,
+    /// Last day of the period (inclusive).
+    pub end: NaiveDate,
+    /// Share of a full year of operation in this period (days over the days
+    /// of the calendar year); exactly 1 for a full calendar year.
+    pub fraction_of_year: f64,
+    /// Time of the period's start, in years since commercial operation.
+    pub time_start_years: f64,
+    /// Time of the period's end (the start of the next), in years since
+    /// commercial operation.
+    pub time_end_years: f64,
+}
+
+/// The dates of one analysis: commercial operation and the end of life.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Calendar {
+    /// Commercial-operation date: the base date (time zero).
+    pub commercial_operation: NaiveDate,
+    /// Service life in anniversary years (1 to 60).
+    pub service_life_years: u32,
+    /// The `N`-th anniversary of commercial operation: the first day after
+    /// the service life.
+    pub end_of_life: NaiveDate,
+}
+
+impl Calendar {
+    /// The calendar of a service life of `service_life_years` from
+    /// `commercial_operation`.
+    pub fn new(
+        commercial_operation: NaiveDate,
+        service_life_years: u32,
+    ) -> Result<Calendar, FinanceError> {
+        if !(1..=MAX_SERVICE_LIFE_YEARS).contains(&service_life_years) {
+            return Err(FinanceError::ServiceLife {
+                value: service_life_years,
+            });
+        }
+        let end_of_life = commercial_operation
+            .checked_add_months(Months::new(12 * service_life_years))
+            .ok_or(FinanceError::CalendarOverflow {
+                commercial_operation,
+                years: service_life_years,
+            })?;
+        Ok(Calendar {
+            commercial_operation,
+            service_life_years,
+            end_of_life,
+        })
+    }
+
+    /// Time of `date` in years since commercial operation (actual/actual).
+    pub fn time_of(&self, date: NaiveDate) -> f64 {
+        years_between(self.commercial_operation, date)
+    }
+
+    /// Time of the end of life in years since commercial operation.
+    pub fn end_of_life_years(&self) -> f64 {
+        self.time_of(self.end_of_life)
+    }
+
+    /// First and last calendar years with operation.
+    pub fn operating_years(&self) -> (i32, i32) {
+        let last_day = self.end_of_life.pred_opt().unwrap_or(self.end_of_life);
+        (self.commercial_operation.year(), last_day.year())
+    }
+
+    /// Number of operating rows (`N`, or `N + 1` for a mid-year start).
+    pub fn period_count(&self) -> usize {
+        let (first, last) = self.operating_years();
+        (last - first + 1) as usize
+    }
+
+    /// The operating periods in order. Times are accumulated from each
+    /// period's share so that full years step by exactly 1.
+    pub fn periods(&self) -> impl Iterator<Item = Period> + '_ {
+        let (first, last) = self.operating_years();
+        let mut time = 0.0;
+        (first..=last).filter_map(move |year| {
+            let year_start = NaiveDate::from_ymd_opt(year, 1, 1)?;
+            let next_year_start = NaiveDate::from_ymd_opt(year + 1, 1, 1)?;
+            let start = year_start.max(self.commercial_operation);
+            let next_start = next_year_start.min(self.end_of_life);
+            let days = (next_start - start).num_days() as f64;
+            let fraction_of_year = days / days_in_year(year);
+            let time_start_years = time;
+            time += fraction_of_year;
+            Some(Period {
+                year,
+                start,
+                end: next_start.pred_opt()?,
+                fraction_of_year,
+                time_start_years,
+                time_end_years: time,
+            })
+        })
+    }
+}

@@ -1,0 +1,315 @@
+//! What the ledger of one candidate needs: plain typed values, money in the
+//! ledger's number type `M` (`Decimal` by default), physics in `f64`.
+//!
+//! Every escalation rate is a fraction per year on the analysis basis
+//! ([`Rates::basis`]); 0 keeps a price constant in that basis's money. Prices
+//! are stated at the base date (commercial operation) and escalate to the
+//! time each cash flow is counted (see [`Timing`]).
+
+use chrono::NaiveDate;
+use rust_decimal::Decimal;
+
+use super::money::Money;
+use super::rates::{Rates, Timing};
+
+/// Everything one candidate's ledger is built from.
+#[derive(Debug, Clone, PartialEq)]
+pub struct LedgerInputs<M: Money = Decimal> {
+    /// Commercial-operation date: the base date of discounting and escalation.
+    pub commercial_operation: NaiveDate,
+    /// Service life in anniversary years, 1 to 60.
+    pub service_life_years: u32,
+    /// Discount rate, its basis and inflation.
+    pub rates: Rates,
+    /// When within a year cash flows are counted.
+    pub timing: Timing,
+    /// Capital cost and when it is paid.
+    pub capital: Capital<M>,
+    /// A full year of new-and-clean operation, from the physics layer.
+    pub operation: Operation,
+    /// Fuel price and its heating-value basis.
+    pub fuel: Fuel<M>,
+    /// Carbon emissions and their price.
+    pub carbon: Carbon<M>,
+    /// Fixed O&M: price per kW of net output per year, escalating.
+    pub fixed_om: EscalatingPrice<M>,
+    /// Variable O&M: price per MWh generated, escalating.
+    pub variable_om: EscalatingPrice<M>,
+    /// Major overhauls, if any are charged.
+    pub overhaul: Option<Overhaul<M>>,
+    /// Heat-rate degradation and its recovery at overhauls.
+    pub degradation: Degradation,
+    /// Value left at the end of the service life, credited.
+    pub residual: Residual<M>,
+}
+
+/// When capital is paid.
+#[derive(Debug, Clone, PartialEq)]
+pub enum Capital<M: Money = Decimal> {
+    /// One payment on the commercial-operation date.
+    AtCommercialOperation(M),
+    /// Payments over construction, in strictly increasing date order, none
+    /// after commercial operation.
+    Schedule(Vec<CapitalPayment<M>>),
+}
+
+/// One dated capital payment.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct CapitalPayment<M: Money = Decimal> {
+    /// Date of payment (on or before commercial operation).
+    pub date: NaiveDate,
+    /// Amount, in the analysis basis's money at that date.
+    pub amount: M,
+}
+
+/// A full year of new-and-clean operation at the candidate's rating.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Operation {
+    /// Operating (fired) hours per full year, 0 to 8784.
+    pub operating_hours: f64,
+    /// Net electricity generated per full year, MWh.
+    pub energy_mwh: f64,
+    /// Fuel energy burned per full year when new and clean, GJ on the lower
+    /// heating value basis.
+    pub fuel_energy_gj_lhv: f64,
+    /// Net electrical output, kW (the basis of fixed O&M).
+    pub net_output_kw: f64,
+}
+
+/// Heating-value basis on which a fuel price is quoted.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum PriceBasis {
+    /// Price per GJ of higher (gross) heating value, as gas is often sold.
+    Hhv,
+    /// Price per GJ of lower (net) heating value, the basis of heat rates.
+    Lhv,
+}
+
+/// How the fuel price evolves.
+#[derive(Debug, Clone, PartialEq)]
+pub enum FuelPrice<M: Money = Decimal> {
+    /// A base-date price per GJ escalating at a rate per year.
+    Escalating {
+        /// Price per GJ (on the fuel's price basis) at the base date.
+        price_per_gj: M,
+        /// Escalation per year on the analysis basis.
+        escalation: f64,
+    },
+    /// A price per GJ for each calendar year: `(year, price)`. Every year
+    /// with operation needs exactly one entry; extra years are ignored. Each
+    /// price is in the analysis basis's money of its year and is not
+    /// escalated further.
+    Path(Vec<(i32, M)>),
+}
+
+/// The fuel's price and heating-value basis.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Fuel<M: Money = Decimal> {
+    /// The price and how it changes.
+    pub price: FuelPrice<M>,
+    /// Heating-value basis of the price.
+    pub basis: PriceBasis,
+    /// Ratio of higher to lower heating value, 1 to 2 (about 1.11 for
+    /// pipeline natural gas, common practice). Used only for an HHV price:
+    /// cost = fuel energy (GJ LHV) × `hhv_over_lhv` × price per GJ HHV.
+    pub hhv_over_lhv: f64,
+}
+
+/// Carbon emissions and their price.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Carbon<M: Money = Decimal> {
+    /// kg of CO2 per GJ of fuel energy (LHV).
+    pub co2_kg_per_gj_lhv: f64,
+    /// Price per tonne of CO2 at the base date.
+    pub price_per_tonne: M,
+    /// Escalation per year on the analysis basis.
+    pub escalation: f64,
+}
+
+/// A unit price at the base date and its escalation.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct EscalatingPrice<M: Money = Decimal> {
+    /// Price per unit at the base date.
+    pub price: M,
+    /// Escalation per year on the analysis basis (0 = constant).
+    pub escalation: f64,
+}
+
+/// Major overhauls, triggered by accumulated operating hours.
+///
+/// One is charged each time accumulated hours reach a whole multiple of the
+/// interval strictly before the end of the service life; an overhaul falling
+/// exactly at the end of life is not charged (the unit retires instead).
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Overhaul<M: Money = Decimal> {
+    /// Operating hours between overhauls; must be positive.
+    pub interval_hours: f64,
+    /// Cost of one overhaul at the base date.
+    pub cost: M,
+    /// Escalation per year on the analysis basis.
+    pub escalation: f64,
+}
+
+/// Heat-rate degradation. See [`super::degradation`] for the model.
+#[derive(Debug, Clone, Copy, PartialEq, Default)]
+pub struct Degradation {
+    /// Heat-rate increase per year of operation at the stated annual hours,
+    /// as a fraction of the new-and-clean heat rate (0.005 = 0.5 % per year),
+    /// 0 to below 1.
+    pub heat_rate_fraction_per_year: f64,
+    /// Share of the degradation that each overhaul recovers, 0 to 1.
+    pub recoverable_fraction: f64,
+}
+
+/// The value left at the end of life.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum ResidualValue<M: Money = Decimal> {
+    /// A fraction (0 to 1) of the total capital cost.
+    FractionOfCapital(f64),
+    /// An amount at the base date.
+    Amount(M),
+}
+
+/// Residual value, credited at the end of life (a negative cost).
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Residual<M: Money = Decimal> {
+    /// How the value is stated.
+    pub value: ResidualValue<M>,
+    /// Escalation per year on the analysis basis from the base date to the
+    /// end of life (0 = the value holds in the basis's money).
+    pub escalation: f64,
+}
+
+impl<M: Money> Capital<M> {
+    /// The payments as a list (one payment on `commercial_operation` for
+    /// [`Capital::AtCommercialOperation`]).
+    pub fn payments(&self, commercial_operation: NaiveDate) -> Vec<CapitalPayment<M>> {
+        match self {
+            Capital::AtCommercialOperation(amount) => vec![CapitalPayment {
+                date: commercial_operation,
+                amount: *amount,
+            }],
+            Capital::Schedule(payments) => payments.clone(),
+        }
+    }
+
+    /// Sum of all payments, undiscounted; `None` on overflow.
+    pub fn total(&self) -> Option<M> {
+        match self {
+            Capital::AtCommercialOperation(amount) => Some(*amount),
+            Capital::Schedule(payments) => payments
+                .iter()
+                .try_fold(M::ZERO, |sum, p| sum.add_checked(p.amount)),
+        }
+    }
+
+    /// The same schedule scaled so that its payments sum to `new_total`
+    /// (each payment keeps its share). A schedule summing to zero, or a
+    /// single payment, puts `new_total` on its last date. `None` on overflow.
+    pub fn with_total(&self, new_total: M) -> Option<Capital<M>> {
+        match self {
+            Capital::AtCommercialOperation(_) => Some(Capital::AtCommercialOperation(new_total)),
+            Capital::Schedule(payments) => {
+                let total = self.total()?;
+                let last = payments.last()?;
+                if total == M::ZERO {
+                    let mut scaled = payments.clone();
+                    let tail = scaled.last_mut()?;
+                    *tail = CapitalPayment {
+                        date: last.date,
+                        amount: new_total,
+                    };
+                    return Some(Capital::Schedule(scaled));
+                }
+                let scaled = payments
+                    .iter()
+                    .map(|p| {
+                        let amount = p.amount.mul_checked(new_total)?.div_checked(total)?;
+                        Some(CapitalPayment {
+                            date: p.date,
+                            amount,
+                        })
+                    })
+                    .collect::<Option<Vec<_>>>()?;
+                Some(Capital::Schedule(scaled))
+            }
+        }
+    }
+}
+
+impl<M: Money> LedgerInputs<M> {
+    /// The same inputs with every money value converted by `convert`, e.g.
+    /// `Decimal` inputs to `f64` for sampling (see [`LedgerInputs::to_f64`]).
+    pub fn map_money<N: Money>(&self, convert: impl Fn(M) -> N) -> LedgerInputs<N> {
+        let capital = match &self.capital {
+            Capital::AtCommercialOperation(amount) => {
+                Capital::AtCommercialOperation(convert(*amount))
+            }
+            Capital::Schedule(payments) => Capital::Schedule(
+                payments
+                    .iter()
+                    .map(|p| CapitalPayment {
+                        date: p.date,
+                        amount: convert(p.amount),
+                    })
+                    .collect(),
+            ),
+        };
+        let price = match &self.fuel.price {
+            FuelPrice::Escalating {
+                price_per_gj,
+                escalation,
+            } => FuelPrice::Escalating {
+                price_per_gj: convert(*price_per_gj),
+                escalation: *escalation,
+            },
+            FuelPrice::Path(path) => {
+                FuelPrice::Path(path.iter().map(|(year, p)| (*year, convert(*p))).collect())
+            }
+        };
+        let escalating = |p: &EscalatingPrice<M>| EscalatingPrice {
+            price: convert(p.price),
+            escalation: p.escalation,
+        };
+        LedgerInputs {
+            commercial_operation: self.commercial_operation,
+            service_life_years: self.service_life_years,
+            rates: self.rates,
+            timing: self.timing,
+            capital,
+            operation: self.operation,
+            fuel: Fuel {
+                price,
+                basis: self.fuel.basis,
+                hhv_over_lhv: self.fuel.hhv_over_lhv,
+            },
+            carbon: Carbon {
+                co2_kg_per_gj_lhv: self.carbon.co2_kg_per_gj_lhv,
+                price_per_tonne: convert(self.carbon.price_per_tonne),
+                escalation: self.carbon.escalation,
+            },
+            fixed_om: escalating(&self.fixed_om),
+            variable_om: escalating(&self.variable_om),
+            overhaul: self.overhaul.map(|o| Overhaul {
+                interval_hours: o.interval_hours,
+                cost: convert(o.cost),
+                escalation: o.escalation,
+            }),
+            degradation: self.degradation,
+            residual: Residual {
+                value: match self.residual.value {
+                    ResidualValue::FractionOfCapital(f) => ResidualValue::FractionOfCapital(f),
+                    ResidualValue::Amount(amount) => ResidualValue::Amount(convert(amount)),
+                },
+                escalation: self.residual.escalation,
+            },
+        }
+    }
+}
+
+impl LedgerInputs<Decimal> {
+    /// The same inputs in `f64` money, for the fast sampling ledger.
+    pub fn to_f64(&self) -> LedgerInputs<f64> {
+        self.map_money(f64::from_decimal)
+    }
+}

@@ -1,0 +1,332 @@
+//! Reading the `[[candidate]]` array: one bid each, with optional
+//! regenerator, intercooler and reheat tables and a costs table.
+
+use super::candidate::{
+    Candidate, EfficiencyBasis, GasModelSpec, IntercoolerSpec, RegeneratorSpec, ReheatSpec,
+};
+use super::context::Context;
+use super::costs_section::read_costs;
+use super::error::ScenarioError;
+use super::reader::{type_error, TableReader};
+use super::tree::{Node, NodeValue};
+use super::values::money;
+use crate::units;
+use chrono::NaiveDate;
+
+type Read<T> = Result<T, ScenarioError>;
+
+const CANDIDATE_KEYS: &[&str] = &[
+    "id",
+    "label",
+    "capital_cost",
+    "net_output",
+    "gas_model",
+    "cp_kj_per_kg_k",
+    "specific_heat_ratio",
+    "pressure_ratio",
+    "turbine_inlet_temperature",
+    "compressor_efficiency",
+    "turbine_efficiency",
+    "efficiency_basis",
+    "inlet_pressure_loss",
+    "exhaust_pressure_loss",
+    "combustor_pressure_loss",
+    "combustion_efficiency",
+    "mechanical_efficiency",
+    "generator_efficiency",
+    "auxiliary_load",
+    "regenerator",
+    "intercooler",
+    "reheat",
+    "costs",
+];
+
+/// Read every `[[candidate]]`; at least one, ids unique.
+pub(crate) fn read_candidates(
+    ctx: &mut Context,
+    node: Option<&Node>,
+    commercial_operation: NaiveDate,
+) -> Read<Vec<Candidate>> {
+    let valid = "expected at least one [[candidate]] table with an id, capital_cost, net_output, …";
+    let Some(node) = node else {
+        return Err(ctx.error_at_offset(0, "candidate", "no candidates are given", valid));
+    };
+    let NodeValue::Array(items) = &node.value else {
+        return Err(type_error(
+            ctx,
+            "candidate",
+            node,
+            "an array of tables written [[candidate]]",
+        ));
+    };
+    if items.is_empty() {
+        return Err(ctx.error_at_offset(
+            node.span.start,
+            "candidate",
+            "the candidate list is empty",
+            valid,
+        ));
+    }
+    let mut candidates: Vec<Candidate> = Vec::with_capacity(items.len());
+    for (i, item) in items.iter().enumerate() {
+        let candidate = read_candidate(ctx, item, i, commercial_operation)?;
+        if candidates.iter().any(|c| c.id == candidate.id) {
+            return Err(ctx.error_for(
+                &format!("candidate[#{}].id", i + 1),
+                format!(
+                    "{:?} is already the id of an earlier candidate",
+                    candidate.id
+                ),
+                "expected a unique id for each candidate",
+            ));
+        }
+        candidates.push(candidate);
+    }
+    Ok(candidates)
+}
+
+/// A candidate id: a letter, then letters, digits, `-` or `_`.
+fn is_valid_id(id: &str) -> bool {
+    let mut chars = id.chars();
+    chars.next().is_some_and(|c| c.is_ascii_alphabetic())
+        && chars.all(|c| c.is_ascii_alphanumeric() || c == '-' || c == '_')
+}
+
+fn read_candidate(ctx: &mut Context, node: &Node, index: usize, cod: NaiveDate) -> Read<Candidate> {
+    let provisional = format!("candidate[#{}]", index + 1);
+    let id_check = TableReader::new(ctx, &provisional, node, CANDIDATE_KEYS)?;
+    let id = match id_check.entry("id").map(|e| &e.node) {
+        Some(Node {
+            value: NodeValue::Str(id),
+            ..
+        }) => id.clone(),
+        Some(other) => return Err(type_error(ctx, &id_check.field("id"), other, "a string")),
+        None => return Err(id_check.missing(ctx, "id", "expected an id such as id = \"premium\"")),
+    };
+    if !is_valid_id(&id) {
+        return Err(id_check.error(
+            ctx,
+            "id",
+            format!("{id:?} is not a valid id"),
+            "expected a letter followed by letters, digits, - or _ (e.g. \"premium-b\")",
+        ));
+    }
+    let path = format!("candidate[{id}]");
+    let r = TableReader::new(ctx, &path, node, CANDIDATE_KEYS)?;
+    r.string(ctx, "id")?;
+    let label = match r.string(ctx, "label")? {
+        Some(label) => label,
+        None => {
+            r.default(ctx, "label", &id);
+            id.clone()
+        }
+    };
+    let capital_cost = money(ctx, &r, "capital_cost", units::money)?.ok_or_else(|| {
+        r.missing(
+            ctx,
+            "capital_cost",
+            "expected the installed capital cost, e.g. \"48500000 USD\"",
+        )
+    })?;
+    let net_output_kw = r.required_quantity(
+        ctx,
+        "net_output",
+        units::power_kw,
+        "expected the rated net output, e.g. \"45 MW\"",
+    )?;
+    let gas_model = read_gas_model(ctx, &r)?;
+    let pressure_ratio = r.required_quantity(
+        ctx,
+        "pressure_ratio",
+        units::number,
+        "expected the compressor pressure ratio, e.g. 18",
+    )?;
+    let turbine_inlet_temperature_k = r.required_quantity(
+        ctx,
+        "turbine_inlet_temperature",
+        units::temperature_k,
+        "expected a temperature, e.g. \"1450 K\"",
+    )?;
+    let efficiency = "expected an efficiency such as \"88 %\" or 0.88";
+    let compressor_efficiency =
+        r.required_quantity(ctx, "compressor_efficiency", units::fraction, efficiency)?;
+    let turbine_efficiency =
+        r.required_quantity(ctx, "turbine_efficiency", units::fraction, efficiency)?;
+    let efficiency_basis = match r.choice(
+        ctx,
+        "efficiency_basis",
+        &["isentropic", "polytropic"],
+        "isentropic",
+    )? {
+        "polytropic" => EfficiencyBasis::Polytropic,
+        _ => EfficiencyBasis::Isentropic,
+    };
+    let fraction_or = |ctx: &mut Context, key: &str, default: f64, text: &str| {
+        r.quantity_or(ctx, key, units::fraction, default, text)
+    };
+    let inlet_pressure_loss = fraction_or(ctx, "inlet_pressure_loss", 0.0, "0 %")?;
+    let exhaust_pressure_loss = fraction_or(ctx, "exhaust_pressure_loss", 0.0, "0 %")?;
+    let combustor_pressure_loss = fraction_or(ctx, "combustor_pressure_loss", 0.0, "0 %")?;
+    let combustion_efficiency = fraction_or(ctx, "combustion_efficiency", 1.0, "100 %")?;
+    let mechanical_efficiency = fraction_or(ctx, "mechanical_efficiency", 1.0, "100 %")?;
+    let generator_efficiency = fraction_or(ctx, "generator_efficiency", 1.0, "100 %")?;
+    let auxiliary_load_fraction = fraction_or(ctx, "auxiliary_load", 0.0, "0 %")?;
+    let regenerator = read_regenerator(ctx, &r)?;
+    let intercooler = read_intercooler(ctx, &r)?;
+    let reheat = read_reheat(ctx, &r)?;
+    let costs = read_costs(ctx, &r, cod)?;
+    Ok(Candidate {
+        id,
+        label,
+        capital_cost,
+        net_output_kw,
+        gas_model,
+        pressure_ratio,
+        turbine_inlet_temperature_k,
+        compressor_efficiency,
+        turbine_efficiency,
+        efficiency_basis,
+        inlet_pressure_loss,
+        exhaust_pressure_loss,
+        combustor_pressure_loss,
+        combustion_efficiency,
+        mechanical_efficiency,
+        generator_efficiency,
+        auxiliary_load_fraction,
+        regenerator,
+        intercooler,
+        reheat,
+        costs,
+    })
+}
+
+fn read_gas_model(ctx: &mut Context, r: &TableReader) -> Read<GasModelSpec> {
+    let model = r.choice(ctx, "gas_model", &["air", "products", "cold-air"], "air")?;
+    if model != "cold-air" {
+        if let Some(key) = ["cp_kj_per_kg_k", "specific_heat_ratio"]
+            .iter()
+            .find(|k| r.has(k))
+        {
+            return Err(r.error(
+                ctx,
+                key,
+                format!("applies only to gas_model = \"cold-air\", not {model:?}"),
+                "expected no constant specific heats with a variable-property gas model",
+            ));
+        }
+    }
+    Ok(match model {
+        "products" => GasModelSpec::Products,
+        // cp = 1.005 kJ/(kg·K), k = 1.4: the cold-air standard of the
+        // engineering thermodynamics texts (common practice).
+        "cold-air" => GasModelSpec::ColdAir {
+            cp_kj_per_kg_k: r.quantity_or(ctx, "cp_kj_per_kg_k", units::number, 1.005, "1.005")?,
+            k: r.quantity_or(ctx, "specific_heat_ratio", units::number, 1.4, "1.4")?,
+        },
+        _ => GasModelSpec::Air,
+    })
+}
+
+fn sub_table<'a>(
+    ctx: &mut Context,
+    r: &TableReader,
+    key: &str,
+    allowed: &[&str],
+    node: &'a Node,
+) -> Read<TableReader<'a>> {
+    TableReader::new(ctx, &r.field(key), node, allowed)
+}
+
+fn read_regenerator(ctx: &mut Context, r: &TableReader) -> Read<Option<RegeneratorSpec>> {
+    let Some(node) = r.node(ctx, "regenerator") else {
+        return Ok(None);
+    };
+    let t = sub_table(
+        ctx,
+        r,
+        "regenerator",
+        &[
+            "effectiveness",
+            "air_side_pressure_loss",
+            "gas_side_pressure_loss",
+        ],
+        node,
+    )?;
+    Ok(Some(RegeneratorSpec {
+        effectiveness: t.required_quantity(
+            ctx,
+            "effectiveness",
+            units::fraction,
+            "expected an effectiveness such as \"85 %\"",
+        )?,
+        air_side_pressure_loss: t.quantity_or(
+            ctx,
+            "air_side_pressure_loss",
+            units::fraction,
+            0.0,
+            "0 %",
+        )?,
+        gas_side_pressure_loss: t.quantity_or(
+            ctx,
+            "gas_side_pressure_loss",
+            units::fraction,
+            0.0,
+            "0 %",
+        )?,
+    }))
+}
+
+fn read_intercooler(ctx: &mut Context, r: &TableReader) -> Read<Option<IntercoolerSpec>> {
+    let Some(node) = r.node(ctx, "intercooler") else {
+        return Ok(None);
+    };
+    let t = sub_table(
+        ctx,
+        r,
+        "intercooler",
+        &["pressure_split", "exit_temperature", "effectiveness"],
+        node,
+    )?;
+    let pressure_split = t.quantity(ctx, "pressure_split", units::number)?;
+    if pressure_split.is_none() {
+        t.default(ctx, "pressure_split", "geometric mean (√pressure_ratio)");
+    }
+    let exit_temperature_k = t.quantity(ctx, "exit_temperature", units::temperature_k)?;
+    let effectiveness = t.quantity(ctx, "effectiveness", units::fraction)?;
+    let valid = "expected exactly one of exit_temperature and effectiveness";
+    match (exit_temperature_k, effectiveness) {
+        (Some(_), Some(_)) => Err(t.error(
+            ctx,
+            "effectiveness",
+            "is given together with exit_temperature",
+            valid,
+        )),
+        (None, None) => Err(t.missing(ctx, "exit_temperature", valid)),
+        _ => Ok(Some(IntercoolerSpec {
+            pressure_split,
+            exit_temperature_k,
+            effectiveness,
+        })),
+    }
+}
+
+fn read_reheat(ctx: &mut Context, r: &TableReader) -> Read<Option<ReheatSpec>> {
+    let Some(node) = r.node(ctx, "reheat") else {
+        return Ok(None);
+    };
+    let t = sub_table(ctx, r, "reheat", &["pressure_split", "temperature"], node)?;
+    let pressure_split = t.quantity(ctx, "pressure_split", units::number)?;
+    if pressure_split.is_none() {
+        t.default(ctx, "pressure_split", "geometric mean of the expansion");
+    }
+    let temperature_k = t.required_quantity(
+        ctx,
+        "temperature",
+        units::temperature_k,
+        "expected the reheat exit temperature, e.g. \"1400 K\"",
+    )?;
+    Ok(Some(ReheatSpec {
+        pressure_split,
+        temperature_k,
+    }))
+}

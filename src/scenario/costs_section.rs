@@ -1,0 +1,190 @@
+//! Reading a candidate's `costs` table.
+
+use super::candidate::{CandidateCosts, ResidualValue};
+use super::context::Context;
+use super::error::ScenarioError;
+use super::reader::{type_error, TableReader};
+use super::tree::NodeValue;
+use super::values::{date_of_node, in_currency, money_or_zero};
+use crate::units::{self, Kind};
+use chrono::NaiveDate;
+
+type Read<T> = Result<T, ScenarioError>;
+
+/// Fractions of a construction schedule must sum to 1 within this.
+const SCHEDULE_SUM_TOLERANCE: f64 = 1e-9;
+
+/// Read `costs` of the candidate being read by `r` (all keys optional,
+/// defaults zero; a missing table is all defaults).
+pub(crate) fn read_costs(
+    ctx: &mut Context,
+    r: &TableReader,
+    cod: NaiveDate,
+) -> Read<CandidateCosts> {
+    let empty = super::tree::Node {
+        span: r.span.clone(),
+        value: NodeValue::Table(Vec::new()),
+    };
+    let node = r.node(ctx, "costs").unwrap_or(&empty);
+    let t = TableReader::new(
+        ctx,
+        &r.field("costs"),
+        node,
+        &[
+            "fixed_om",
+            "variable_om",
+            "overhaul_interval",
+            "overhaul_cost",
+            "degradation_per_year",
+            "recoverable_fraction",
+            "residual_value",
+            "construction",
+        ],
+    )?;
+    let fixed_om_per_kw_year =
+        money_or_zero(ctx, &t, "fixed_om", units::price_per_kw_year, "/kW-yr")?;
+    let variable_om_per_mwh = money_or_zero(ctx, &t, "variable_om", units::price_per_mwh, "/MWh")?;
+    let overhaul_interval_hours = t.quantity_or(
+        ctx,
+        "overhaul_interval",
+        units::duration_h,
+        0.0,
+        "0 h (no overhauls)",
+    )?;
+    let overhaul_cost = money_or_zero(ctx, &t, "overhaul_cost", units::money, "")?;
+    if !overhaul_cost.is_zero() && overhaul_interval_hours <= 0.0 {
+        return Err(t.error(
+            ctx,
+            "overhaul_cost",
+            "is given but overhaul_interval is 0 h",
+            "expected an overhaul_interval above 0 h, e.g. \"24000 h\"",
+        ));
+    }
+    let degradation_per_year =
+        t.quantity_or(ctx, "degradation_per_year", units::fraction, 0.0, "0 %")?;
+    let recoverable_fraction =
+        t.quantity_or(ctx, "recoverable_fraction", units::fraction, 0.0, "0 %")?;
+    let residual_value = read_residual(ctx, &t)?;
+    let construction_schedule = read_schedule(ctx, &t, cod)?;
+    Ok(CandidateCosts {
+        fixed_om_per_kw_year,
+        variable_om_per_mwh,
+        overhaul_interval_hours,
+        overhaul_cost,
+        degradation_per_year,
+        recoverable_fraction,
+        residual_value,
+        construction_schedule,
+    })
+}
+
+/// Residual value: a fraction of capital (`"10 %"`, `0.1`) or an amount
+/// with a currency (`"2500000 USD"`).
+fn read_residual(ctx: &mut Context, t: &TableReader) -> Read<ResidualValue> {
+    let Some(node) = t.entry("residual_value").map(|e| &e.node) else {
+        t.default(ctx, "residual_value", "0 %");
+        return Ok(ResidualValue::FractionOfCapital(0.0));
+    };
+    let text = super::reader::quantity_text(ctx, node);
+    if units::kind_of(&text) == Some(Kind::Money) {
+        let value = t
+            .quantity(ctx, "residual_value", units::money)?
+            .ok_or_else(|| t.missing(ctx, "residual_value", "expected an amount"))?;
+        return Ok(ResidualValue::Amount(in_currency(
+            ctx,
+            t,
+            "residual_value",
+            value,
+        )?));
+    }
+    let fraction = t
+        .quantity(ctx, "residual_value", units::fraction)
+        .map_err(|_| {
+            t.error(
+                ctx,
+                "residual_value",
+                format!("{text:?} is neither a fraction of capital nor an amount of money"),
+                "expected a fraction such as \"10 %\" or an amount such as \"2500000 USD\"",
+            )
+        })?;
+    Ok(ResidualValue::FractionOfCapital(fraction.unwrap_or(0.0)))
+}
+
+/// `construction = [{ date = 2026-01-15, fraction = "40 %" }, …]`: dates
+/// ascending, on or before commercial operation, fractions summing to 1.
+fn read_schedule(
+    ctx: &mut Context,
+    t: &TableReader,
+    cod: NaiveDate,
+) -> Read<Vec<(NaiveDate, f64)>> {
+    let Some(node) = t.node(ctx, "construction") else {
+        t.default(ctx, "construction", "all capital at commercial operation");
+        return Ok(Vec::new());
+    };
+    let field = t.field("construction");
+    let NodeValue::Array(items) = &node.value else {
+        return Err(type_error(
+            ctx,
+            &field,
+            node,
+            "an array such as [{ date = 2026-01-15, fraction = \"40 %\" }]",
+        ));
+    };
+    let mut schedule: Vec<(NaiveDate, f64)> = Vec::with_capacity(items.len());
+    for (i, item) in items.iter().enumerate() {
+        let b = TableReader::new(
+            ctx,
+            &format!("{field}[{}]", i + 1),
+            item,
+            &["date", "fraction"],
+        )?;
+        let date_node = b
+            .node(ctx, "date")
+            .ok_or_else(|| b.missing(ctx, "date", "expected a date written YYYY-MM-DD"))?;
+        let date = date_of_node(ctx, &b.field("date"), date_node)?;
+        if date > cod {
+            return Err(b.error(
+                ctx,
+                "date",
+                format!("{date} is after commercial operation on {cod}"),
+                "expected construction payments on or before commercial operation",
+            ));
+        }
+        if schedule
+            .last()
+            .is_some_and(|(previous, _)| date <= *previous)
+        {
+            return Err(b.error(
+                ctx,
+                "date",
+                format!("{date} is not after the payment before it"),
+                "expected dates in ascending order",
+            ));
+        }
+        let fraction = b.required_quantity(
+            ctx,
+            "fraction",
+            units::fraction,
+            "expected a fraction of capital such as \"40 %\"",
+        )?;
+        if !(fraction > 0.0 && fraction <= 1.0) {
+            return Err(b.error(
+                ctx,
+                "fraction",
+                format!("{fraction} is not a fraction of capital in (0, 1]"),
+                "expected e.g. \"40 %\"",
+            ));
+        }
+        schedule.push((date, fraction));
+    }
+    let sum: f64 = schedule.iter().map(|(_, f)| f).sum();
+    if (sum - 1.0).abs() > SCHEDULE_SUM_TOLERANCE {
+        return Err(ctx.error_at_offset(
+            node.span.start,
+            &field,
+            format!("the fractions sum to {sum}"),
+            "expected fractions of capital summing to 1 (100 %)",
+        ));
+    }
+    Ok(schedule)
+}

@@ -1,0 +1,203 @@
+//! Loading a scenario file: read, parse with spans, build the typed
+//! scenario, validate, and keep what the report needs (defaults applied,
+//! inputs as given, file hash).
+
+use super::candidate_section::read_candidates;
+use super::context::{locate, AppliedDefault, Context, InputLine};
+use super::error::ScenarioError;
+use super::fuel_section::read_fuel;
+use super::operation_section::read_operation;
+use super::reader::TableReader;
+use super::sections::{read_economics, read_meta, read_site};
+use super::tree::{line_column, parse_document, Node, NodeValue};
+use super::types::Scenario;
+use super::uncertainty_section::read_uncertainty;
+use super::validate::{check_ranges, cross_check};
+use chrono::Datelike;
+use sha2::{Digest, Sha256};
+use std::collections::BTreeMap;
+use std::ops::Range;
+use std::path::Path;
+
+/// A scenario as loaded from a file, with what the report's assumptions
+/// page and later error messages need.
+#[derive(Debug, Clone)]
+pub struct LoadedScenario {
+    /// The typed, validated scenario.
+    pub scenario: Scenario,
+    /// File label used in messages (the path as the user gave it).
+    pub file_label: String,
+    /// The file text as read.
+    pub source_text: String,
+    /// SHA-256 of the file bytes, lower-case hex.
+    pub sha256_hex: String,
+    /// Every default the loader filled in, in file order.
+    pub applied_defaults: Vec<AppliedDefault>,
+    /// Every input as written, in file order.
+    pub inputs: Vec<InputLine>,
+    spans: BTreeMap<String, Range<usize>>,
+}
+
+const SECTIONS: &[&str] = &[
+    "scenario",
+    "site",
+    "fuel",
+    "economics",
+    "operation",
+    "candidate",
+    "uncertainty",
+];
+
+/// Read and load the scenario file at `path`.
+pub fn load(path: &Path) -> Result<LoadedScenario, ScenarioError> {
+    let label = path.display().to_string();
+    let text = std::fs::read_to_string(path).map_err(|source| ScenarioError::Read {
+        file: label.clone(),
+        source,
+    })?;
+    parse(&text, &label)
+}
+
+/// Load a scenario from its text; `file_label` names it in messages.
+pub fn parse(text: &str, file_label: &str) -> Result<LoadedScenario, ScenarioError> {
+    let mut ctx = Context::new(file_label, text);
+    let entries = parse_document(text).map_err(|e| {
+        ctx.error_at_offset(
+            e.offset,
+            "TOML syntax",
+            e.message,
+            "expected valid TOML (key = value lines, [section] headers, quoted strings)",
+        )
+    })?;
+    let root = Node {
+        span: 0..0,
+        value: NodeValue::Table(entries),
+    };
+    let r = TableReader::new(&mut ctx, "file", &root, SECTIONS)?;
+    let section = |name: &str| r.entry(name).map(|e| &e.node);
+    let required = |ctx: &Context, name: &str| {
+        section(name).ok_or_else(|| {
+            ctx.error_at_offset(
+                0,
+                name,
+                format!("the [{name}] section is missing"),
+                "expected the sections [scenario], [site], [fuel], [economics], [operation] and [[candidate]]",
+            )
+        })
+    };
+    let node = required(&ctx, "scenario")?;
+    let meta = read_meta(&mut ctx, node)?;
+    let empty_site = Node {
+        span: 0..0,
+        value: NodeValue::Table(Vec::new()),
+    };
+    let site = read_site(&mut ctx, section("site").unwrap_or(&empty_site))?;
+    let node = required(&ctx, "economics")?;
+    let economics = read_economics(&mut ctx, node)?;
+    let node = required(&ctx, "fuel")?;
+    let fuel = read_fuel(&mut ctx, node, economics.commercial_operation.year())?;
+    let node = required(&ctx, "operation")?;
+    let operation = read_operation(&mut ctx, node)?;
+    let candidates = read_candidates(
+        &mut ctx,
+        section("candidate"),
+        economics.commercial_operation,
+    )?;
+    let mut scenario = Scenario {
+        meta,
+        site,
+        fuel,
+        economics,
+        operation,
+        candidates,
+        uncertainty: Vec::new(),
+    };
+    check_ranges(&scenario)
+        .and_then(|()| cross_check(&scenario))
+        .map_err(|v| ctx.error_for(&v.field, v.problem, v.valid))?;
+    scenario.uncertainty = read_uncertainty(&mut ctx, section("uncertainty"), &scenario)?;
+    Ok(LoadedScenario {
+        scenario,
+        file_label: file_label.to_string(),
+        source_text: text.to_string(),
+        sha256_hex: sha256_hex(text.as_bytes()),
+        applied_defaults: ctx.defaults,
+        inputs: ctx.inputs,
+        spans: ctx.spans,
+    })
+}
+
+fn sha256_hex(bytes: &[u8]) -> String {
+    Sha256::digest(bytes)
+        .iter()
+        .map(|b| format!("{b:02x}"))
+        .collect()
+}
+
+impl LoadedScenario {
+    /// A bad-input error placed at `key_path` in the file:
+    /// `<file>:<line>:<column>: <key_path>: <message>`. Later layers use it
+    /// when a value is refused after loading (e.g. the cycle solver refuses
+    /// a candidate's physics). `key_path` is a scenario key such as
+    /// `candidate[premium].turbine_inlet_temperature`; `candidate[<n>]` with
+    /// a 0-based index and field names with unit suffixes
+    /// (`turbine_inlet_temperature_k`, `net_output_kw`,
+    /// `auxiliary_load_fraction`, `regenerator_effectiveness`) are accepted
+    /// too. Unknown paths fall back to their nearest known parent.
+    pub fn error_at(&self, key_path: &str, message: &str) -> crate::Error {
+        let path = self.normalise(key_path);
+        let offset = locate(&self.spans, &path).unwrap_or(0);
+        let (line, column) = line_column(&self.source_text, offset);
+        crate::Error::Input(format!(
+            "{}:{line}:{column}: {path}: {message}",
+            self.file_label
+        ))
+    }
+
+    /// Map a code-side key path to the file's key path.
+    fn normalise(&self, key_path: &str) -> String {
+        let mut path = key_path.to_string();
+        if let Some(rest) = path.strip_prefix("candidate[") {
+            if let Some((index, tail)) = rest.split_once(']') {
+                if let Some(c) = index
+                    .parse::<usize>()
+                    .ok()
+                    .and_then(|i| self.scenario.candidates.get(i))
+                {
+                    path = format!("candidate[{}]{tail}", c.id);
+                }
+            }
+        }
+        if self.spans.contains_key(&path) {
+            return path;
+        }
+        let (head, last) = match path.rsplit_once('.') {
+            Some((h, l)) => (format!("{h}."), l.to_string()),
+            None => (String::new(), path.clone()),
+        };
+        let mut name = last.as_str();
+        for suffix in [
+            "_fraction",
+            "_kpa",
+            "_kw",
+            "_k",
+            "_m",
+            "_hours",
+            "_per_year",
+        ] {
+            if let Some(stripped) = name.strip_suffix(suffix) {
+                if self.spans.contains_key(&format!("{head}{stripped}")) {
+                    return format!("{head}{stripped}");
+                }
+                name = stripped;
+                break;
+            }
+        }
+        for part in ["regenerator_", "intercooler_", "reheat_"] {
+            if let Some(rest) = name.strip_prefix(part) {
+                return format!("{head}{}.{rest}", part.trim_end_matches('_'));
+            }
+        }
+        format!("{head}{name}")
+    }
+}

@@ -1,0 +1,206 @@
+//! Reading the `[operation]` section: hours per year, a dispatch profile and
+//! the part-load heat-rate curve.
+
+use super::context::Context;
+use super::error::ScenarioError;
+use super::ranges::{Range, HOURS_PER_LEAP_YEAR};
+use super::reader::{type_error, TableReader};
+use super::tree::{Node, NodeValue};
+use super::types::{DispatchBlock, Operation, PartLoadPoint};
+use super::values::checked;
+use crate::units;
+
+type Read<T> = Result<T, ScenarioError>;
+
+/// Read `[operation]`.
+pub(crate) fn read_operation(ctx: &mut Context, node: &Node) -> Read<Operation> {
+    let r = TableReader::new(
+        ctx,
+        "operation",
+        node,
+        &["hours_per_year", "dispatch", "part_load"],
+    )?;
+    let hours = checked(
+        ctx,
+        &r,
+        "hours_per_year",
+        units::duration_h,
+        Range::HoursPerYear,
+    )?;
+    let dispatch = read_blocks(ctx, &r, "dispatch", &["load", "hours"])?
+        .into_iter()
+        .map(|(load_fraction, hours)| DispatchBlock {
+            load_fraction,
+            hours,
+        })
+        .collect::<Vec<_>>();
+    let mut part_load = read_blocks(ctx, &r, "part_load", &["load", "heat_rate_ratio"])?
+        .into_iter()
+        .map(|(load_fraction, heat_rate_ratio)| PartLoadPoint {
+            load_fraction,
+            heat_rate_ratio,
+        })
+        .collect::<Vec<_>>();
+    let total: f64 = dispatch.iter().map(|b| b.hours).sum();
+    if total > HOURS_PER_LEAP_YEAR {
+        return Err(r.error(
+            ctx,
+            "dispatch",
+            format!("the blocks' hours sum to {total} h, more than the 8784 hours of a leap year"),
+            "expected dispatch hours summing to at most 8784",
+        ));
+    }
+    let hours_per_year = match hours {
+        Some(h) => h,
+        None if !dispatch.is_empty() && total > 0.0 => {
+            r.default(ctx, "hours_per_year", &format!("{total} h (sum of dispatch)"));
+            total
+        }
+        None => {
+            return Err(r.missing(
+                ctx,
+                "hours_per_year",
+                "expected operating hours per year, e.g. hours_per_year = \"4000 h\", or a dispatch profile",
+            ))
+        }
+    };
+    check_part_load(ctx, &r, &mut part_load)?;
+    for (i, block) in dispatch.iter().enumerate() {
+        if block.load_fraction >= 1.0 {
+            continue;
+        }
+        let field = format!("operation.dispatch[{}].load", i + 1);
+        match part_load.first() {
+            None => {
+                return Err(ctx.error_for(
+                    &field,
+                    format!("{} is below full load but [operation] has no part_load table", block.load_fraction),
+                    "expected part_load = [{ load = \"100 %\", heat_rate_ratio = 1.0 }, { load = \"50 %\", heat_rate_ratio = 1.25 }, …] covering every dispatch load",
+                ))
+            }
+            Some(lowest) if block.load_fraction < lowest.load_fraction => {
+                return Err(ctx.error_for(
+                    &field,
+                    format!(
+                        "{} is below the lowest part_load point ({}); brayfin does not extrapolate",
+                        block.load_fraction, lowest.load_fraction
+                    ),
+                    "expected a part_load table that reaches down to every dispatch load",
+                ))
+            }
+            _ => {}
+        }
+    }
+    Ok(Operation {
+        hours_per_year,
+        dispatch,
+        part_load,
+    })
+}
+
+/// Read an array of small inline tables with a `load` and one other value
+/// (`hours` or `heat_rate_ratio`).
+fn read_blocks(
+    ctx: &mut Context,
+    r: &TableReader,
+    key: &str,
+    keys: &[&str; 2],
+) -> Read<Vec<(f64, f64)>> {
+    let Some(node) = r.node(ctx, key) else {
+        return Ok(Vec::new());
+    };
+    let field = r.field(key);
+    let NodeValue::Array(items) = &node.value else {
+        return Err(type_error(
+            ctx,
+            &field,
+            node,
+            "an array of tables, e.g. [{ load = \"100 %\", … }]",
+        ));
+    };
+    let mut blocks = Vec::with_capacity(items.len());
+    for (i, item) in items.iter().enumerate() {
+        let path = format!("{field}[{}]", i + 1);
+        let b = TableReader::new(ctx, &path, item, keys)?;
+        let load = checked(ctx, &b, "load", units::fraction, Range::Efficiency)?
+            .ok_or_else(|| b.missing(ctx, "load", "expected a load fraction such as \"75 %\""))?;
+        let second = if keys[1] == "hours" {
+            checked(ctx, &b, "hours", units::duration_h, Range::NonNegative)?
+        } else {
+            checked(ctx, &b, keys[1], units::number, Range::Positive)?
+        }
+        .ok_or_else(|| b.missing(ctx, keys[1], "expected a value for each block"))?;
+        blocks.push((load, second));
+    }
+    Ok(blocks)
+}
+
+/// The part-load curve: loads strictly monotone (either order), heat-rate
+/// ratio ≥ 1 and not rising with load, (1.0, 1.0) at full load. Sorted
+/// ascending on return; (1.0, 1.0) added (as a default) when absent.
+fn check_part_load(
+    ctx: &mut Context,
+    r: &TableReader,
+    points: &mut Vec<PartLoadPoint>,
+) -> Read<()> {
+    if points.is_empty() {
+        return Ok(());
+    }
+    let field = |i: usize, key: &str| format!("operation.part_load[{}].{key}", i + 1);
+    let ascending = points.len() < 2 || points[1].load_fraction > points[0].load_fraction;
+    for i in 1..points.len() {
+        let (a, b) = (points[i - 1].load_fraction, points[i].load_fraction);
+        if (ascending && b <= a) || (!ascending && b >= a) {
+            return Err(ctx.error_for(
+                &field(i, "load"),
+                format!("{b} breaks the order of the loads before it"),
+                "expected loads strictly ascending or strictly descending, each load once",
+            ));
+        }
+    }
+    for (i, p) in points.iter().enumerate() {
+        if p.heat_rate_ratio < 1.0 {
+            return Err(ctx.error_for(
+                &field(i, "heat_rate_ratio"),
+                format!(
+                    "{} is below 1: a heat rate better than at full load",
+                    p.heat_rate_ratio
+                ),
+                "expected heat-rate ratios of 1 or more (1.0 at full load)",
+            ));
+        }
+        if p.load_fraction == 1.0 && p.heat_rate_ratio != 1.0 {
+            return Err(ctx.error_for(
+                &field(i, "heat_rate_ratio"),
+                format!("{} at full load", p.heat_rate_ratio),
+                "expected exactly 1.0 at load 100 %: the ratio is relative to the full-load heat rate",
+            ));
+        }
+    }
+    if !ascending {
+        points.reverse();
+    }
+    if points.last().is_some_and(|p| p.load_fraction < 1.0) {
+        r.default(ctx, "part_load", "includes load 100 %, heat_rate_ratio 1.0");
+        points.push(PartLoadPoint {
+            load_fraction: 1.0,
+            heat_rate_ratio: 1.0,
+        });
+    }
+    for pair in points.windows(2) {
+        if pair[1].heat_rate_ratio > pair[0].heat_rate_ratio {
+            return Err(ctx.error_for(
+                "operation.part_load",
+                format!(
+                    "the heat-rate ratio rises from {} at load {} to {} at load {}",
+                    pair[0].heat_rate_ratio,
+                    pair[0].load_fraction,
+                    pair[1].heat_rate_ratio,
+                    pair[1].load_fraction
+                ),
+                "expected the heat-rate ratio to fall (or stay) as load rises",
+            ));
+        }
+    }
+    Ok(())
+}

@@ -1,0 +1,112 @@
+//! Valid ranges of scenario values: one rule per field, used when a file is
+//! loaded and again when a value is set through a key path.
+
+/// Hours in a leap year, the most a year can operate (366 × 24).
+pub const HOURS_PER_LEAP_YEAR: f64 = 8784.0;
+
+/// The valid range of a numeric value.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) enum Range {
+    /// An efficiency or load fraction: (0, 1].
+    Efficiency,
+    /// A pressure loss or auxiliary load: [0, 1).
+    Loss,
+    /// A fraction: [0, 1].
+    Fraction,
+    /// An effectiveness that cannot be perfect: (0, 1).
+    OpenFraction,
+    /// Strictly positive.
+    Positive,
+    /// Zero or more.
+    NonNegative,
+    /// Greater than one (a pressure ratio, a specific-heat ratio).
+    AboveOne,
+    /// A yearly rate above −100 %.
+    Rate,
+    /// Operating hours in a year: (0, 8784].
+    HoursPerYear,
+    /// A whole number from `.0` to `.1` inclusive.
+    Whole(u32, u32),
+}
+
+impl Range {
+    /// Check `value`; on failure return (what is wrong, what would be valid).
+    pub fn check(self, value: f64) -> Result<(), (String, String)> {
+        if !value.is_finite() {
+            return Err((format!("{value} is not a finite number"), self.valid()));
+        }
+        let wrong = match self {
+            Range::Efficiency if value <= 0.0 => Some("is not above 0"),
+            Range::Efficiency | Range::Fraction if value > 1.0 => Some("is above 1"),
+            Range::Loss if value >= 1.0 => Some("is not below 1"),
+            Range::OpenFraction if value >= 1.0 => Some("is not below 1"),
+            Range::OpenFraction | Range::Positive if value <= 0.0 => Some("is not above 0"),
+            Range::Loss | Range::Fraction | Range::NonNegative if value < 0.0 => {
+                Some("is negative")
+            }
+            Range::AboveOne if value <= 1.0 => Some("is not above 1"),
+            Range::Rate if value <= -1.0 => Some("is not above -1 (-100 %)"),
+            Range::HoursPerYear if value <= 0.0 => Some("is not above 0"),
+            Range::HoursPerYear if value > HOURS_PER_LEAP_YEAR => {
+                Some("is more than the 8784 hours of a leap year")
+            }
+            Range::Whole(..) if value.fract() != 0.0 => Some("is not a whole number"),
+            Range::Whole(low, _) if value < f64::from(low) => Some("is too small"),
+            Range::Whole(_, high) if value > f64::from(high) => Some("is too large"),
+            _ => None,
+        };
+        match wrong {
+            Some(why) => Err((format!("{value} {why}"), self.valid())),
+            None => Ok(()),
+        }
+    }
+
+    /// What would be valid, for messages.
+    pub fn valid(self) -> String {
+        match self {
+            Range::Efficiency => "expected a fraction in (0, 1]".into(),
+            Range::Loss => "expected a fraction in [0, 1)".into(),
+            Range::Fraction => "expected a fraction in [0, 1]".into(),
+            Range::OpenFraction => "expected a fraction in (0, 1)".into(),
+            Range::Positive => "expected a value above 0".into(),
+            Range::NonNegative => "expected a value of 0 or more".into(),
+            Range::AboveOne => "expected a value above 1".into(),
+            Range::Rate => "expected a yearly rate above -100 %, e.g. 7 % or 0.07".into(),
+            Range::HoursPerYear => "expected hours in (0, 8784]".into(),
+            Range::Whole(low, high) => format!("expected a whole number from {low} to {high}"),
+        }
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn edges_of_each_range() {
+        assert!(Range::Efficiency.check(1.0).is_ok());
+        assert!(Range::Efficiency.check(0.0).is_err());
+        assert_eq!(
+            Range::Efficiency.check(1.3),
+            Err((
+                "1.3 is above 1".into(),
+                "expected a fraction in (0, 1]".into()
+            ))
+        );
+        assert!(Range::Loss.check(0.0).is_ok());
+        assert!(Range::Loss.check(1.0).is_err());
+        assert!(Range::Fraction.check(1.0).is_ok());
+        assert!(Range::Fraction.check(-0.01).is_err());
+        assert!(Range::OpenFraction.check(0.999).is_ok());
+        assert!(Range::OpenFraction.check(1.0).is_err());
+        assert!(Range::AboveOne.check(1.0).is_err());
+        assert!(Range::Rate.check(-0.99).is_ok());
+        assert!(Range::Rate.check(-1.0).is_err());
+        assert!(Range::HoursPerYear.check(8784.0).is_ok());
+        assert!(Range::HoursPerYear.check(8784.5).is_err());
+        assert!(Range::Whole(1, 60).check(30.0).is_ok());
+        assert!(Range::Whole(1, 60).check(30.5).is_err());
+        assert!(Range::Whole(1, 60).check(61.0).is_err());
+        assert!(Range::Positive.check(f64::NAN).is_err());
+    }
+}

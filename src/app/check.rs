@@ -1,9 +1,222 @@
-//! `brayfin check`.
+//! `brayfin check`: load and validate a scenario, print a short normalised
+//! summary (SI units, money per internal unit) and engineering warnings.
 
 use crate::cli::CheckArgs;
-use crate::{Error, Result};
+use crate::scenario::{
+    self, FuelComposition, GasModelSpec, LoadedScenario, PriceBasis, RateBasis, Timing,
+};
+use crate::Result;
+use std::fmt::Write;
 
-/// Run `brayfin check`.
-pub fn run(_args: &CheckArgs) -> Result<()> {
-    Err(Error::Internal("`check` is not built yet".into()))
+/// Run `brayfin check SCENARIO`: exit 0 (with any warnings) when the
+/// scenario is valid; a bad scenario is an input error (exit 1).
+pub fn run(args: &CheckArgs) -> Result<()> {
+    let loaded = scenario::load(&args.scenario)?;
+    print!("{}", report(&loaded, Vec::new()));
+    Ok(())
+}
+
+/// The text `check` prints: the summary, then the warnings from the
+/// scenario alone followed by `extra_warnings` (e.g. from solving the
+/// cycle), then a one-line verdict.
+pub fn report(loaded: &LoadedScenario, extra_warnings: Vec<String>) -> String {
+    let mut warnings = scenario::engineering_warnings(&loaded.scenario);
+    warnings.extend(extra_warnings);
+    let mut out = summary(loaded);
+    if warnings.is_empty() {
+        out.push_str("\nWarnings: none\n");
+    } else {
+        let _ = writeln!(out, "\nWarnings ({}):", warnings.len());
+        for w in &warnings {
+            let _ = writeln!(out, "  - {w}");
+        }
+    }
+    let _ = writeln!(
+        out,
+        "\n{}: valid; {}, {}, {}",
+        loaded.file_label,
+        count(loaded.scenario.candidates.len(), "candidate"),
+        count(
+            loaded.applied_defaults.len(),
+            "default applied|defaults applied"
+        ),
+        count(warnings.len(), "warning")
+    );
+    out
+}
+
+/// The normalised summary: every figure in SI (K, kPa, kW, h) and money in
+/// the scenario currency per internal unit (per GJ, per t, per kW-yr).
+pub fn summary(loaded: &LoadedScenario) -> String {
+    let s = &loaded.scenario;
+    let cur = &s.meta.currency;
+    let mut out = String::new();
+    let _ = writeln!(out, "Scenario  {}", s.meta.title);
+    let _ = writeln!(
+        out,
+        "          for {}, by {}, dated {}; currency {cur}; baseline {}",
+        s.meta.prepared_for, s.meta.prepared_by, s.meta.date, s.meta.baseline
+    );
+    let _ = writeln!(out, "          file sha256 {}", loaded.sha256_hex);
+    let site = &s.site;
+    let elevation = site
+        .elevation_m
+        .map_or(String::new(), |z| format!(" (ISO 2533 at {z} m)"));
+    let _ = writeln!(
+        out,
+        "Site      {}ambient {:.2} K, {:.3} kPa{elevation}",
+        site.name
+            .as_ref()
+            .map_or(String::new(), |n| format!("{n}: ")),
+        site.ambient_temperature_k,
+        site.ambient_pressure_kpa
+    );
+    let fuel = &s.fuel;
+    let basis = match fuel.price_basis {
+        PriceBasis::Hhv => "HHV",
+        PriceBasis::Lhv => "LHV",
+    };
+    let composition = match &fuel.composition {
+        FuelComposition::Named(name) => name.clone(),
+        FuelComposition::MoleFractions(x) => x
+            .iter()
+            .map(|(species, f)| format!("{species} {f}"))
+            .collect::<Vec<_>>()
+            .join(", "),
+        FuelComposition::HeatingValues {
+            lhv_kj_per_kg,
+            hhv_kj_per_kg,
+            co2_kg_per_gj_lhv,
+        } => format!(
+            "LHV {lhv_kj_per_kg} kJ/kg, HHV {hhv_kj_per_kg} kJ/kg, CO2 {co2_kg_per_gj_lhv} kg/GJ LHV"
+        ),
+    };
+    let _ = writeln!(out, "Fuel      {} ({composition})", fuel.name);
+    let path = if fuel.price_path.is_empty() {
+        String::new()
+    } else {
+        format!("; price path {} years", fuel.price_path.len())
+    };
+    let _ = writeln!(
+        out,
+        "          {} {cur}/GJ {basis}, escalating {}/yr{path}",
+        fuel.price_per_gj.round_dp(4),
+        percent(fuel.escalation)
+    );
+    let e = &s.economics;
+    let _ = writeln!(
+        out,
+        "Economics operation from {}, {} years, discount {} {}, inflation {}, {}",
+        e.commercial_operation,
+        e.service_life_years,
+        percent(e.discount_rate),
+        match e.rate_basis {
+            RateBasis::Real => "real",
+            RateBasis::Nominal => "nominal",
+        },
+        percent(e.inflation),
+        match e.timing {
+            Timing::EndOfYear => "end-of-year",
+            Timing::MidYear => "mid-year",
+        }
+    );
+    let _ = writeln!(
+        out,
+        "          carbon {} {cur}/t escalating {}/yr; capacity value {} {cur}/kW-yr",
+        e.carbon_price_per_tonne,
+        percent(e.carbon_escalation),
+        e.capacity_value_per_kw_year
+    );
+    let op = &s.operation;
+    let profile = if op.dispatch.is_empty() {
+        "all at full load".to_string()
+    } else {
+        op.dispatch
+            .iter()
+            .map(|b| format!("{} h at {}", b.hours, percent(b.load_fraction)))
+            .collect::<Vec<_>>()
+            .join(", ")
+    };
+    let _ = writeln!(out, "Operation {} h/yr: {profile}", op.hours_per_year);
+    out.push_str(&candidate_table(loaded));
+    out
+}
+
+fn candidate_table(loaded: &LoadedScenario) -> String {
+    let s = &loaded.scenario;
+    let mut rows = vec![[
+        "id".to_string(),
+        format!("capital {}", s.meta.currency),
+        "net kW".into(),
+        "gas".into(),
+        "PR".into(),
+        "TIT K".into(),
+        "eta_c".into(),
+        "eta_t".into(),
+        "parts".into(),
+    ]];
+    for c in &s.candidates {
+        let mut parts = Vec::new();
+        if let Some(r) = c.regenerator {
+            parts.push(format!("regenerator {}", percent(r.effectiveness)));
+        }
+        if c.intercooler.is_some() {
+            parts.push("intercooler".to_string());
+        }
+        if c.reheat.is_some() {
+            parts.push("reheat".to_string());
+        }
+        let basis = match c.efficiency_basis {
+            scenario::EfficiencyBasis::Isentropic => "",
+            scenario::EfficiencyBasis::Polytropic => " poly",
+        };
+        rows.push([
+            c.id.clone(),
+            c.capital_cost.to_string(),
+            format!("{:.0}", c.net_output_kw),
+            match c.gas_model {
+                GasModelSpec::Air => "air".into(),
+                GasModelSpec::Products => "products".into(),
+                GasModelSpec::ColdAir { .. } => "cold-air".into(),
+            },
+            format!("{}", c.pressure_ratio),
+            format!("{:.1}", c.turbine_inlet_temperature_k),
+            format!("{}{basis}", c.compressor_efficiency),
+            format!("{}{basis}", c.turbine_efficiency),
+            if parts.is_empty() {
+                "simple cycle".into()
+            } else {
+                parts.join(", ")
+            },
+        ]);
+    }
+    let widths: Vec<usize> = (0..9)
+        .map(|i| rows.iter().map(|r| r[i].chars().count()).max().unwrap_or(0))
+        .collect();
+    let mut out = String::from("Candidates\n");
+    for row in &rows {
+        let cells: Vec<String> = row
+            .iter()
+            .zip(&widths)
+            .map(|(cell, w)| format!("{cell:<w$}"))
+            .collect();
+        let _ = writeln!(out, "  {}", cells.join("  ").trim_end());
+    }
+    out
+}
+
+/// `n` with the singular or plural noun (`"x|ys"` gives both forms, a
+/// single word takes an `s`).
+fn count(n: usize, noun: &str) -> String {
+    let (one, many) = match noun.split_once('|') {
+        Some((one, many)) => (one.to_string(), many.to_string()),
+        None => (noun.to_string(), format!("{noun}s")),
+    };
+    format!("{n} {}", if n == 1 { one } else { many })
+}
+
+/// A fraction as a percentage with up to three decimals, e.g. `7 %`.
+fn percent(fraction: f64) -> String {
+    let p = (fraction * 100.0 * 1000.0).round() / 1000.0;
+    format!("{p} %")
 }

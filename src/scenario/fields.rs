@@ -152,7 +152,7 @@ pub(crate) const SCENARIO_FIELDS: &[ScenarioField] = &[
         Kind::FuelPrice,
         Range::NonNegative,
         |s| Some(money_to_f64(s.fuel.price_per_gj)),
-        |s, v| set_fuel_price(s, v),
+        set_fuel_price,
     ),
     field(
         "fuel.escalation",
@@ -259,6 +259,6 @@ pub(crate) const SCENARIO_FIELDS: &[ScenarioField] = &[
         Kind::Duration,
         Range::HoursPerYear,
         |s| Some(s.operation.hours_per_year),
-        |s, v| set_hours_per_year(s, v),
+        set_hours_per_year,
     ),
 ];

@@ -31,3 +31,6 @@ mod values;
 
 pub use load::{load, parse, LoadedScenario};
 pub use sections::iso_2533_pressure_kpa;
+mod warnings;
+
+pub use warnings::engineering_warnings;

@@ -48,9 +48,9 @@ impl Distribution {
             Distribution::Uniform { low, high } | Distribution::Triangular { low, high, .. } => {
                 (low, high)
             }
-            Distribution::Normal { mean, sigma } if sigma == 0.0 => (mean, mean),
+            Distribution::Normal { mean, sigma: 0.0 } => (mean, mean),
             Distribution::Normal { .. } => (f64::NEG_INFINITY, f64::INFINITY),
-            Distribution::LogNormal { mu, sigma } if sigma == 0.0 => (mu.exp(), mu.exp()),
+            Distribution::LogNormal { mu, sigma: 0.0 } => (mu.exp(), mu.exp()),
             Distribution::LogNormal { .. } => (0.0, f64::INFINITY),
         }
     }

@@ -73,7 +73,7 @@ pub fn parse(text: &str, file_label: &str) -> Result<LoadedScenario, ScenarioErr
         span: 0..0,
         value: NodeValue::Table(entries),
     };
-    let r = TableReader::new(&mut ctx, "file", &root, SECTIONS)?;
+    let r = TableReader::new(&mut ctx, "", &root, SECTIONS)?;
     let section = |name: &str| r.entry(name).map(|e| &e.node);
     let required = |ctx: &Context, name: &str| {
         section(name).ok_or_else(|| {

@@ -96,9 +96,13 @@ impl<'a> TableReader<'a> {
         Ok(())
     }
 
-    /// Dotted path of `key` in this table.
+    /// Dotted path of `key` in this table (the root table's path is empty).
     pub fn field(&self, key: &str) -> String {
-        format!("{}.{key}", self.path)
+        if self.path.is_empty() {
+            key.to_string()
+        } else {
+            format!("{}.{key}", self.path)
+        }
     }
 
     /// The entry for `key`, if given.

@@ -4,7 +4,7 @@
 
 use super::frame::{category_label, draw_frame, Axis, LegendEntry, Swatch};
 use super::geometry::{hatch_lines, rect_corners, Colour, Mark, MarkerShape, Rect};
-use super::scale::{money_f64, nice_ticks, MoneyScale};
+use super::scale::{money_f64, tight_ticks, MoneyScale};
 use super::style::stream_fill;
 use super::Chart;
 use crate::report::model::{CostBreakdown, Model};
@@ -63,7 +63,7 @@ pub fn breakdown_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Bre
         high = high.max(money_f64(c.economics.lifecycle_cost));
     }
     let money = MoneyScale::for_magnitude(low.abs().max(high.abs()));
-    let y_ticks = nice_ticks(low, high, 6);
+    let y_ticks = tight_ticks(low, high, 6, 0.06);
     let y_axis = Axis::numeric(
         format!(
             "{}, {}",

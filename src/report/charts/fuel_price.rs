@@ -4,7 +4,7 @@
 
 use super::frame::{draw_frame, Axis, LegendEntry, Swatch, SMALL_PT};
 use super::geometry::{Anchor, Colour, LineStyle, Mark, MarkerShape, Pt, Rect};
-use super::scale::{money_f64, nice_ticks, MoneyScale};
+use super::scale::{money_f64, tight_ticks, MoneyScale};
 use super::style::series_style;
 use super::Chart;
 use crate::report::model::Model;
@@ -51,8 +51,8 @@ pub fn fuel_price_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Ch
     let y_max = premiums.iter().copied().fold(f64::NEG_INFINITY, f64::max);
     let money = MoneyScale::for_magnitude(y_min.abs().max(y_max.abs()));
     let currency = &model.meta.currency;
-    let x_ticks = nice_ticks(x_min, x_max, 7);
-    let y_ticks = nice_ticks(y_min, y_max, 6);
+    let x_ticks = tight_ticks(x_min, x_max, 7, 0.0);
+    let y_ticks = tight_ticks(y_min, y_max, 6, 0.06);
     let x_axis = Axis::numeric(
         format!(
             "{}, {currency}/GJ ({})",
@@ -119,7 +119,11 @@ pub fn fuel_price_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Ch
     });
     marks.push(Mark::text(
         Pt::new(price_x + 1.0, frame.plot.top_mm() - SMALL_PT * 0.35 - 1.0),
-        labels.scenario_price.clone(),
+        format!(
+            "{} {} {currency}/GJ",
+            labels.scenario_price,
+            crate::report::format::grouped(curves.scenario_price_per_gj, 2)
+        ),
         SMALL_PT,
         Anchor::Left,
     ));

@@ -3,7 +3,7 @@
 
 use super::frame::{draw_frame, Axis, LegendEntry, Swatch, SMALL_PT};
 use super::geometry::{rect_corners, Anchor, Colour, LineStyle, Mark, Pt, Rect};
-use super::scale::{money_f64, nice_ticks, MoneyScale};
+use super::scale::{money_f64, nice_ticks, tight_ticks, MoneyScale};
 use super::Chart;
 use crate::report::model::RiskCandidate;
 use crate::report::pdf::labels::Labels;
@@ -34,7 +34,7 @@ pub fn histogram_chart(
     let x_high = lines.iter().map(|l| l.1).fold(high.max(0.0), f64::max);
     let money = MoneyScale::for_magnitude(x_low.abs().max(x_high.abs()));
     let max_count = counts.iter().copied().max().unwrap_or(1).max(1) as f64;
-    let x_ticks = nice_ticks(x_low, x_high, 7);
+    let x_ticks = tight_ticks(x_low, x_high, 7, 0.04);
     let y_ticks = nice_ticks(0.0, max_count, 5);
     let x_axis = Axis::numeric(
         format!("{}, {}", labels.risk_axis, money.unit(currency)),
@@ -89,12 +89,18 @@ pub fn histogram_chart(
             width_pt: 1.2,
             colour: accent,
         });
-        // Staggered down from the top so close percentiles do not overlap.
+        // Staggered down from the top so close percentiles do not overlap;
+        // set on the side of the line with more room.
+        let (dx, anchor) = if x > frame.plot.x_mm + frame.plot.width_mm * 0.8 {
+            (-0.8, Anchor::Right)
+        } else {
+            (0.8, Anchor::Left)
+        };
         marks.push(Mark::text(
-            Pt::new(x + 0.8, frame.plot.top_mm() - 3.0 - k as f32 * 3.2),
+            Pt::new(x + dx, frame.plot.top_mm() - 3.0 - k as f32 * 3.2),
             *name,
             SMALL_PT - 0.5,
-            Anchor::Left,
+            anchor,
         ));
     }
     Some(Chart { marks, frame })

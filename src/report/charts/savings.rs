@@ -3,7 +3,7 @@
 
 use super::frame::{draw_frame, Axis, LegendEntry, Swatch, SMALL_PT};
 use super::geometry::{Anchor, Colour, LineStyle, Mark, MarkerShape, Pt, Rect};
-use super::scale::{money_f64, nice_ticks, MoneyScale};
+use super::scale::{money_f64, tight_ticks, MoneyScale};
 use super::style::series_style;
 use super::Chart;
 use crate::report::format;
@@ -55,8 +55,8 @@ pub fn savings_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Savin
     let money = MoneyScale::for_magnitude(y_min.abs().max(y_max.abs()));
     let currency = &model.meta.currency;
 
-    let x_ticks = nice_ticks(0.0, x_max, 7);
-    let y_ticks = nice_ticks(y_min, y_max, 6);
+    let x_ticks = tight_ticks(0.0, x_max, 7, 0.0);
+    let y_ticks = tight_ticks(y_min, y_max, 6, 0.06);
     let x_axis = Axis::numeric(format!("{}, years", labels.years_axis), &x_ticks, 1.0);
     let y_axis = Axis::numeric(
         format!("{}, {}", labels.savings_axis, money.unit(currency)),

@@ -62,32 +62,23 @@ pub struct Ticks {
     pub values: Vec<f64>,
 }
 
-/// The "nice number" of Heckbert, "Nice numbers for graph labels",
-/// Graphics Gems (1990): 1, 2, 5 or 10 times a power of ten near `x`.
-fn nice(x: f64, round: bool) -> f64 {
+/// The rounded "nice number" of Heckbert, "Nice numbers for graph
+/// labels", Graphics Gems (1990): 1, 2, 5 or 10 times a power of ten
+/// nearest `x`.
+fn nice(x: f64) -> f64 {
     let exponent = x.log10().floor();
     let fraction = x / 10f64.powf(exponent);
-    let nice_fraction = if round {
-        match fraction {
-            f if f < 1.5 => 1.0,
-            f if f < 3.0 => 2.0,
-            f if f < 7.0 => 5.0,
-            _ => 10.0,
-        }
-    } else {
-        match fraction {
-            f if f <= 1.0 => 1.0,
-            f if f <= 2.0 => 2.0,
-            f if f <= 5.0 => 5.0,
-            _ => 10.0,
-        }
+    let nice_fraction = match fraction {
+        f if f < 1.5 => 1.0,
+        f if f < 3.0 => 2.0,
+        f if f < 7.0 => 5.0,
+        _ => 10.0,
     };
     nice_fraction * 10f64.powf(exponent)
 }
 
-/// About `count` nice ticks covering `low..=high` (Heckbert's loose
-/// labelling). A degenerate or non-finite interval is widened first.
-pub fn nice_ticks(low: f64, high: f64, count: usize) -> Ticks {
+/// `low..=high` ordered, finite and of non-zero width.
+fn usable(low: f64, high: f64) -> (f64, f64) {
     let (mut low, mut high) = if low.is_finite() && high.is_finite() {
         (low.min(high), low.max(high))
     } else {
@@ -98,8 +89,21 @@ pub fn nice_ticks(low: f64, high: f64, count: usize) -> Ticks {
         low -= pad;
         high += pad;
     }
-    let range = nice(high - low, false);
-    let step = nice(range / (count.max(2) - 1) as f64, true);
+    (low, high)
+}
+
+/// A nice step giving about `count` ticks over `range`: the rounded nice
+/// number of range / (count − 1).
+fn nice_step(range: f64, count: usize) -> f64 {
+    nice(range / (count.max(2) - 1) as f64)
+}
+
+/// About `count` nice ticks covering `low..=high`, the axis ending on a
+/// tick at each side (Heckbert's loose labelling). A degenerate or
+/// non-finite interval is widened first.
+pub fn nice_ticks(low: f64, high: f64, count: usize) -> Ticks {
+    let (low, high) = usable(low, high);
+    let step = nice_step(high - low, count);
     let first = (low / step).floor() * step;
     let last = (high / step).ceil() * step;
     let n = ((last - first) / step).round() as usize;
@@ -107,6 +111,26 @@ pub fn nice_ticks(low: f64, high: f64, count: usize) -> Ticks {
     Ticks {
         low: first,
         high: last,
+        step,
+        values,
+    }
+}
+
+/// Nice ticks for an axis that ends at the data, padded by `pad_fraction`
+/// of the range on each side (not past zero when an end is zero), with the
+/// ticks that fall inside.
+pub fn tight_ticks(low: f64, high: f64, count: usize, pad_fraction: f64) -> Ticks {
+    let (low, high) = usable(low, high);
+    let pad = (high - low) * pad_fraction;
+    let axis_low = if low == 0.0 { 0.0 } else { low - pad };
+    let axis_high = if high == 0.0 { 0.0 } else { high + pad };
+    let step = nice_step(high - low, count);
+    let first = (axis_low / step - 1e-9).ceil() as i64;
+    let last = (axis_high / step + 1e-9).floor() as i64;
+    let values = (first..=last).map(|i| i as f64 * step).collect();
+    Ticks {
+        low: axis_low,
+        high: axis_high,
         step,
         values,
     }
@@ -214,6 +238,16 @@ mod tests {
         let t = nice_ticks(-3.2e6, 11.9e6, 6);
         assert!(t.low <= -3.2e6 && t.high >= 11.9e6);
         assert!([1.0, 2.0, 5.0].contains(&(t.step / 10f64.powf(t.step.log10().floor()))));
+    }
+
+    #[test]
+    fn tight_ticks_end_at_the_data_and_stay_inside() {
+        let t = tight_ticks(0.0, 25.0, 7, 0.0);
+        assert_eq!((t.low, t.high, t.step), (0.0, 25.0, 5.0));
+        assert_eq!(t.values, vec![0.0, 5.0, 10.0, 15.0, 20.0, 25.0]);
+        let t = tight_ticks(-1.5e6, 182.0e6, 6, 0.05);
+        assert!(t.low < -1.5e6 && t.low > -12.0e6, "{t:?}");
+        assert!(t.values.iter().all(|v| *v >= t.low && *v <= t.high));
     }
 
     #[test]

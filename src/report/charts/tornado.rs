@@ -4,7 +4,7 @@
 
 use super::frame::{draw_frame, Axis, LegendEntry, Swatch, SMALL_PT};
 use super::geometry::{hatch_lines, rect_corners, Anchor, Colour, Mark, Pt, Rect};
-use super::scale::{money_f64, nice_ticks, MoneyScale};
+use super::scale::{money_f64, tight_ticks, MoneyScale};
 use super::style::stream_fill;
 use super::Chart;
 use crate::report::model::SensitivityBar;
@@ -35,7 +35,7 @@ pub fn tornado_chart(
         (lo.min(v), hi.max(v))
     });
     let money = MoneyScale::for_magnitude(low.abs().max(high.abs()));
-    let x_ticks = nice_ticks(low, high, 6);
+    let x_ticks = tight_ticks(low, high, 6, 0.15);
     let x_axis = Axis::numeric(
         format!("{}, {}", labels.sensitivity_axis, money.unit(currency)),
         &x_ticks,

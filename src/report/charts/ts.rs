@@ -4,7 +4,7 @@
 
 use super::frame::{draw_frame, Axis, LegendEntry, Swatch, SMALL_PT};
 use super::geometry::{Anchor, Colour, LineStyle, Mark, MarkerShape, Pt, Rect};
-use super::scale::nice_ticks;
+use super::scale::tight_ticks;
 use super::Chart;
 use crate::report::model::{CandidateView, StateRow, Units};
 use crate::report::pdf::labels::Labels;
@@ -62,10 +62,8 @@ pub fn ts_chart(
         ),
         |(a, b, c, d), (s, t)| (a.min(s), b.max(s), c.min(t), d.max(t)),
     );
-    let s_pad = (s_max - s_min) * 0.05;
-    let t_pad = (t_max - t_min) * 0.05;
-    let x_ticks = nice_ticks(s_min - s_pad, s_max + s_pad, 6);
-    let y_ticks = nice_ticks(t_min - t_pad, t_max + t_pad, 6);
+    let x_ticks = tight_ticks(s_min, s_max, 6, 0.08);
+    let y_ticks = tight_ticks(t_min, t_max, 6, 0.08);
     let (s_unit, t_unit) = match units {
         Units::Si => ("kJ/(kg·K)", "K"),
         Units::Us => ("Btu/(lb·°R)", "°F"),

@@ -112,6 +112,16 @@ impl Composer {
         self.pages.push(page);
     }
 
+    /// Pages so far.
+    pub fn page_count(&self) -> usize {
+        self.pages.len()
+    }
+
+    /// Orientation of the current page.
+    pub fn orientation(&self) -> Orientation {
+        self.orientation
+    }
+
     fn ensure_page(&mut self) {
         if self.pages.is_empty() {
             self.new_page(Orientation::Portrait);
@@ -170,7 +180,12 @@ impl Composer {
     /// kept with at least `keep_with_mm` of what follows.
     pub fn heading(&mut self, text: &str, level: u8, keep_with_mm: f32) {
         let size = if level <= 1 { 15.0 } else { 11.5 };
-        let above = if level <= 1 { 0.0 } else { 2.5 };
+        let at_top = self.pages.is_empty() || self.cursor_mm >= self.content_box().top_mm() - 0.01;
+        let above = match (level <= 1, at_top) {
+            (_, true) => 0.0,
+            (true, false) => 5.0,
+            (false, false) => 2.5,
+        };
         let height = above + line_height_mm(size) + 1.5;
         if self.remaining_mm() < height + keep_with_mm {
             self.new_page(self.orientation);

@@ -7,13 +7,18 @@ use super::fonts::{text_width_mm, to_win_ansi, Face};
 pub const ELLIPSIS: char = '…';
 
 /// `text` wrapped into lines no wider than `width_mm` when set in `face` at
-/// `size_pt`. Breaks at spaces; a word wider than the line is broken
-/// between characters. Always returns at least one line (possibly empty).
+/// `size_pt`. Breaks at spaces (not at no-break spaces, U+00A0, which keep
+/// e.g. a currency code with its amount); a word wider than the line is
+/// broken between characters. Always returns at least one line.
 pub fn wrap(text: &str, face: Face, size_pt: f32, width_mm: f32) -> Vec<String> {
-    let text = to_win_ansi(text);
     let mut lines = Vec::new();
     let mut line = String::new();
-    for word in text.split(' ').filter(|w| !w.is_empty()) {
+    let words = text
+        .split([' ', '\n'])
+        .filter(|w| !w.is_empty())
+        .map(to_win_ansi);
+    for word in words {
+        let word = word.as_str();
         let candidate = if line.is_empty() {
             word.to_string()
         } else {
@@ -109,6 +114,12 @@ mod tests {
             assert!(text_width_mm(line, Face::Regular, 9.0) <= 30.0, "{line}");
         }
         assert_eq!(lines.join(" "), text);
+    }
+
+    #[test]
+    fn a_no_break_space_keeps_currency_and_amount_together() {
+        let lines = wrap("USD\u{a0}12,500,000 USD 1", Face::Regular, 9.0, 30.0);
+        assert_eq!(lines[0], "USD 12,500,000");
     }
 
     #[test]

@@ -1,0 +1,65 @@
+//! The year-by-year ledger of each candidate, on landscape pages in a small
+//! font so every column fits.
+
+use super::Ctx;
+use crate::report::format;
+use crate::report::model::LedgerRowView;
+use crate::report::pdf::document::{Composer, Orientation};
+use crate::report::pdf::fonts::Face;
+use crate::report::pdf::table::{draw_table, Column, TableStyle};
+
+fn row(r: &LedgerRowView) -> Vec<String> {
+    let m = |v| format::grouped(v, 0);
+    vec![
+        r.year.to_string(),
+        format::number(r.operating_hours, 0),
+        format::number(r.energy_mwh, 0),
+        format::number(r.fuel_energy_gj, 0),
+        m(r.fuel_cost),
+        m(r.carbon_cost),
+        m(r.fixed_om),
+        m(r.variable_om),
+        m(r.overhaul),
+        m(r.capital),
+        m(r.residual),
+        m(r.total),
+        format!("{:.4}", r.discount_factor),
+        m(r.present_value),
+    ]
+}
+
+/// Lay out the ledger appendix.
+pub fn ledger(ctx: &Ctx, composer: &mut Composer) {
+    let l = ctx.labels;
+    let columns = vec![
+        Column::left(l.ledger_year.clone()),
+        Column::right(l.ledger_hours.clone()),
+        Column::right(l.ledger_energy.clone()),
+        Column::right(l.ledger_fuel_energy.clone()),
+        Column::right(l.ledger_fuel_cost.clone()),
+        Column::right(l.ledger_carbon.clone()),
+        Column::right(l.ledger_fixed_om.clone()),
+        Column::right(l.ledger_variable_om.clone()),
+        Column::right(l.ledger_overhaul.clone()),
+        Column::right(l.ledger_capital.clone()),
+        Column::right(l.ledger_residual.clone()),
+        Column::right(l.ledger_total.clone()),
+        Column::right(l.ledger_discount_factor.clone()),
+        Column::right(l.ledger_present_value.clone()),
+    ];
+    let style = TableStyle {
+        size_pt: 7.0,
+        max_lines: 2,
+        bold_first_column: false,
+    };
+    for (i, c) in ctx.model.candidates.iter().enumerate() {
+        composer.new_page(Orientation::Landscape);
+        if i == 0 {
+            composer.heading(&l.ledger, 1, 40.0);
+            composer.paragraph(&l.ledger_note, 8.5, Face::Regular, 0.0);
+        }
+        composer.heading(&c.label, 2, 30.0);
+        let rows: Vec<Vec<String>> = c.ledger.iter().map(row).collect();
+        draw_table(composer, &columns, &rows, &style);
+    }
+}

@@ -1,0 +1,194 @@
+//! The briefing page: title block, the decision in one sentence, the key
+//! figures of every candidate, a verdict per candidate, and the three
+//! inputs that move the answer most.
+
+use super::{pdf_units, Ctx};
+use crate::report::charts::geometry::{Anchor, Colour, Mark, Pt, Weight};
+use crate::report::format;
+use crate::report::model::CandidateView;
+use crate::report::pdf::context::{money, money_opt, with_candidate};
+use crate::report::pdf::document::{line_height_mm, Composer, BODY_PT};
+use crate::report::pdf::fonts::{Face, MM_PER_PT};
+use crate::report::pdf::table::{draw_table, Column, TableStyle};
+use crate::report::pdf::text::wrap;
+use crate::Result;
+
+/// Candidates per key-figures table; more are set in further tables so
+/// columns stay readable.
+const CANDIDATES_PER_TABLE: usize = 4;
+
+/// The key figures of `c`, in the order of [`figure_names`].
+pub fn key_figures(
+    c: &CandidateView,
+    currency: &str,
+    units: crate::report::model::Units,
+) -> Vec<String> {
+    let e = &c.economics;
+    vec![
+        money(e.capital_cost, currency),
+        pdf_units(format::heat_rate(
+            c.performance.heat_rate_kj_per_kwh,
+            c.performance.heat_rate_btu_per_kwh,
+            units,
+        )),
+        money(e.lifecycle_cost, currency),
+        money_opt(e.net_savings_vs_baseline, currency),
+        money_opt(e.break_even_premium, currency),
+        money_opt(e.premium_asked, currency),
+        format::payback(e.discounted_payback),
+    ]
+}
+
+/// Row labels of the key-figures table.
+pub fn figure_names(ctx: &Ctx) -> Vec<String> {
+    let l = ctx.labels;
+    vec![
+        l.capital_cost.clone(),
+        l.heat_rate.clone(),
+        l.lifecycle_cost.clone(),
+        l.net_savings.clone(),
+        l.break_even_premium.clone(),
+        l.premium_asked.clone(),
+        l.discounted_payback.clone(),
+    ]
+}
+
+fn title_block(ctx: &Ctx, composer: &mut Composer) {
+    let meta = &ctx.model.meta;
+    let content = composer.content_box();
+    let kicker = composer.reserve(line_height_mm(10.0));
+    composer.push(Mark::Label {
+        at: Pt::new(kicker.x_mm, kicker.top_mm() - 10.0 * MM_PER_PT),
+        text: ctx.labels.report_title.clone(),
+        size_pt: 10.0,
+        anchor: Anchor::Left,
+        weight: Weight::Regular,
+        colour: Colour::grey(0.35),
+        vertical: false,
+    });
+    for line in wrap(&meta.title, Face::Bold, 18.0, content.width_mm) {
+        let rect = composer.reserve(line_height_mm(18.0));
+        composer.push(Mark::Label {
+            at: Pt::new(rect.x_mm, rect.top_mm() - 18.0 * MM_PER_PT),
+            text: line,
+            size_pt: 18.0,
+            anchor: Anchor::Left,
+            weight: Weight::Bold,
+            colour: Colour::BLACK,
+            vertical: false,
+        });
+    }
+    composer.gap(2.0);
+    let l = ctx.labels;
+    let mut facts = vec![
+        (l.prepared_for.as_str(), meta.prepared_for.clone()),
+        (l.prepared_by.as_str(), meta.prepared_by.clone()),
+        (l.study_date.as_str(), meta.date.clone()),
+    ];
+    if let Some(site) = &meta.site_name {
+        facts.push((l.site.as_str(), site.clone()));
+    }
+    facts.push((l.scenario_file.as_str(), meta.scenario_file.clone()));
+    let label_width = 32.0;
+    for (name, value) in facts {
+        let lines = wrap(
+            &value,
+            Face::Regular,
+            BODY_PT,
+            content.width_mm - label_width,
+        );
+        for (i, line) in lines.iter().enumerate() {
+            let rect = composer.reserve(line_height_mm(BODY_PT));
+            let baseline = rect.top_mm() - BODY_PT * MM_PER_PT;
+            if i == 0 {
+                composer.push(Mark::Label {
+                    at: Pt::new(rect.x_mm, baseline),
+                    text: name.to_string(),
+                    size_pt: BODY_PT,
+                    anchor: Anchor::Left,
+                    weight: Weight::Bold,
+                    colour: Colour::BLACK,
+                    vertical: false,
+                });
+            }
+            composer.push(Mark::text(
+                Pt::new(rect.x_mm + label_width, baseline),
+                line.clone(),
+                BODY_PT,
+                Anchor::Left,
+            ));
+        }
+    }
+    composer.gap(3.0);
+}
+
+/// Lay out the briefing page.
+pub fn briefing(ctx: &Ctx, composer: &mut Composer) -> Result<()> {
+    let model = ctx.model;
+    let l = ctx.labels;
+    title_block(ctx, composer);
+
+    composer.heading(&l.recommendation, 2, 12.0);
+    let sentence = ctx.wording.render("decision.j2", &ctx.base)?;
+    composer.paragraph(sentence.trim(), 11.0, Face::Bold, 0.0);
+
+    composer.heading(&l.key_figures, 2, 30.0);
+    let currency = &model.meta.currency;
+    let names = figure_names(ctx);
+    for group in model.candidates.chunks(CANDIDATES_PER_TABLE) {
+        let mut columns = vec![Column::left(l.figure.clone())];
+        columns.extend(group.iter().map(|c| Column::right(c.label.clone())));
+        let figures: Vec<Vec<String>> = group
+            .iter()
+            .map(|c| key_figures(c, currency, model.meta.units))
+            .collect();
+        let rows: Vec<Vec<String>> = names
+            .iter()
+            .enumerate()
+            .map(|(i, name)| {
+                std::iter::once(name.clone())
+                    .chain(figures.iter().map(|f| f[i].clone()))
+                    .collect()
+            })
+            .collect();
+        let style = TableStyle {
+            size_pt: 8.5,
+            max_lines: 2,
+            bold_first_column: true,
+        };
+        draw_table(composer, &columns, &rows, &style);
+    }
+
+    composer.heading(&l.verdicts, 2, 12.0);
+    for c in &model.candidates {
+        let text = ctx
+            .wording
+            .render("verdict.j2", &with_candidate(model, c))?;
+        composer.bullet(text.trim(), BODY_PT);
+    }
+
+    composer.heading(&l.key_assumptions, 2, 15.0);
+    if model.key_assumptions.is_empty() {
+        composer.paragraph(&l.no_key_assumptions, BODY_PT, Face::Regular, 0.0);
+    } else {
+        let columns = vec![
+            Column::left(l.assumption.clone()),
+            Column::left(l.base_value.clone()),
+            Column::right(l.swing.clone()),
+        ];
+        let rows: Vec<Vec<String>> = model
+            .key_assumptions
+            .iter()
+            .take(3)
+            .map(|k| {
+                vec![
+                    format!("{} ({})", k.label, k.key),
+                    k.base_value.clone(),
+                    money(k.swing, currency),
+                ]
+            })
+            .collect();
+        draw_table(composer, &columns, &rows, &TableStyle::default());
+    }
+    Ok(())
+}

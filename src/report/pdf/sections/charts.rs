@@ -1,0 +1,68 @@
+//! The chart pages: cumulative discounted savings with payback, break-even
+//! premium against fuel price, lifecycle cost by stream, and a
+//! temperature–entropy diagram of each candidate.
+
+use super::Ctx;
+use crate::report::charts::breakdown::breakdown_chart;
+use crate::report::charts::fuel_price::fuel_price_chart;
+use crate::report::charts::geometry::Mark;
+use crate::report::charts::savings::savings_chart;
+use crate::report::charts::style::series_style;
+use crate::report::charts::ts::ts_chart;
+use crate::report::pdf::document::{Composer, Orientation};
+use crate::report::pdf::fonts::Face;
+
+/// Gap between charts stacked on a page, mm.
+const GAP_MM: f32 = 6.0;
+
+/// Height for each of `count` charts sharing what is left of the page,
+/// capped at `max_mm`.
+fn share(composer: &mut Composer, count: usize, max_mm: f32) -> f32 {
+    let room = composer.remaining_mm() - GAP_MM * (count as f32 - 1.0);
+    (room / count as f32).min(max_mm)
+}
+
+fn place(composer: &mut Composer, marks: Vec<Mark>) {
+    for mark in marks {
+        composer.push(mark);
+    }
+}
+
+/// Lay out the chart pages.
+pub fn charts(ctx: &Ctx, composer: &mut Composer) {
+    let model = ctx.model;
+    let l = ctx.labels;
+    composer.new_page(Orientation::Portrait);
+    composer.heading(&l.charts, 1, 100.0);
+    let height = share(composer, 2, 118.0);
+    let area = composer.reserve(height);
+    if let Some(chart) = savings_chart(model, l, area) {
+        place(composer, chart.chart.marks);
+        composer.gap(GAP_MM);
+    }
+    let area = composer.reserve(height);
+    if let Some(chart) = fuel_price_chart(model, l, area) {
+        place(composer, chart.marks);
+        composer.gap(GAP_MM);
+    }
+
+    composer.new_page(Orientation::Portrait);
+    let height = share(composer, 2, 118.0);
+    let area = composer.reserve(height);
+    if let Some(chart) = breakdown_chart(model, l, area) {
+        place(composer, chart.chart.marks);
+        composer.gap(GAP_MM);
+    }
+    for (i, candidate) in model.candidates.iter().enumerate() {
+        let height = 112.0f32.min(composer.content_box().height_mm / 2.0 - GAP_MM);
+        let area = composer.reserve(height);
+        if let Some(chart) = ts_chart(candidate, model.meta.units, l, area, series_style(i).colour)
+        {
+            place(composer, chart.marks);
+        }
+        composer.gap(GAP_MM);
+    }
+    if model.candidates.iter().any(|c| c.cycle.states.len() >= 2) {
+        composer.paragraph(&l.ts_note, 8.0, Face::Regular, 0.0);
+    }
+}

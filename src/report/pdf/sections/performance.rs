@@ -1,0 +1,144 @@
+//! Performance of each candidate at site conditions: headline figures,
+//! specific works and heat, the first-law residual, and the state table.
+
+use super::{pdf_units, Ctx};
+use crate::report::format;
+use crate::report::model::{CandidateView, Units};
+use crate::report::pdf::document::{Composer, Orientation};
+use crate::report::pdf::table::{draw_table, Column, TableStyle};
+
+/// Specific energy in kJ/kg with its unit.
+fn kj_per_kg(value: f64) -> String {
+    format!("{} kJ/kg", format::number(value, 1))
+}
+
+/// The headline rows (name, value) of one candidate.
+fn headline(ctx: &Ctx, c: &CandidateView) -> Vec<(String, String)> {
+    let l = ctx.labels;
+    let units = ctx.model.meta.units;
+    let p = &c.performance;
+    let k = &c.cycle;
+    let mut rows = vec![
+        (l.gas_model.clone(), c.gas_model.clone()),
+        (
+            l.net_output.clone(),
+            format!("{} kW", format::number(p.net_output_kw, 0)),
+        ),
+        (
+            l.heat_rate.clone(),
+            pdf_units(format::heat_rate(
+                p.heat_rate_kj_per_kwh,
+                p.heat_rate_btu_per_kwh,
+                units,
+            )),
+        ),
+        (
+            l.thermal_efficiency.clone(),
+            format::percent(p.thermal_efficiency, 2),
+        ),
+        (
+            l.exhaust_temperature.clone(),
+            pdf_units(format::temperature(p.exhaust_temperature_k, units)),
+        ),
+        (
+            l.air_flow.clone(),
+            format::mass_flow(p.air_flow_kg_per_s, units),
+        ),
+        (
+            l.fuel_flow.clone(),
+            format::mass_flow(p.fuel_flow_kg_per_s, units),
+        ),
+        (
+            l.co2_intensity.clone(),
+            format!("{} kg/MWh", format::number(p.co2_kg_per_mwh, 1)),
+        ),
+        (
+            l.compressor_work.clone(),
+            kj_per_kg(k.compressor_work_kj_per_kg),
+        ),
+        (l.turbine_work.clone(), kj_per_kg(k.turbine_work_kj_per_kg)),
+        (l.net_work.clone(), kj_per_kg(k.net_work_kj_per_kg)),
+        (l.heat_input.clone(), kj_per_kg(k.heat_input_kj_per_kg)),
+        (
+            l.heat_rejected.clone(),
+            kj_per_kg(k.heat_rejected_kj_per_kg),
+        ),
+        (
+            l.back_work_ratio.clone(),
+            format::percent(k.back_work_ratio, 1),
+        ),
+        (
+            l.energy_residual.clone(),
+            format!("{:.2e} kJ/kg", k.energy_balance_residual_kj_per_kg),
+        ),
+    ];
+    if let Some(far) = k.fuel_air_ratio {
+        rows.push((l.fuel_air_ratio.clone(), format!("{far:.5}")));
+    }
+    rows.push((
+        l.levelized_cost.clone(),
+        format!(
+            "{} {}/MWh",
+            format::grouped(c.economics.levelized_cost_per_mwh, 2),
+            ctx.model.meta.currency
+        ),
+    ));
+    rows
+}
+
+fn state_rows(c: &CandidateView, units: Units) -> Vec<Vec<String>> {
+    c.cycle
+        .states
+        .iter()
+        .map(|s| {
+            vec![
+                s.id.clone(),
+                s.name.clone(),
+                pdf_units(format::temperature(s.temperature_k, units)),
+                format::pressure(s.pressure_kpa, units),
+                format::number(s.enthalpy_kj_per_kg, 1),
+                format!("{:.4}", s.entropy_kj_per_kg_k),
+            ]
+        })
+        .collect()
+}
+
+/// Lay out the performance section.
+pub fn performance(ctx: &Ctx, composer: &mut Composer) {
+    let l = ctx.labels;
+    composer.new_page(Orientation::Portrait);
+    composer.heading(&l.performance, 1, 60.0);
+    for c in &ctx.model.candidates {
+        composer.heading(&c.label, 2, 50.0);
+        let pairs = headline(ctx, c);
+        let half = pairs.len().div_ceil(2);
+        let rows: Vec<Vec<String>> = (0..half)
+            .map(|i| {
+                let (a, b) = &pairs[i];
+                let (c2, d) = pairs.get(i + half).cloned().unwrap_or_default();
+                vec![a.clone(), b.clone(), c2, d]
+            })
+            .collect();
+        let columns = vec![
+            Column::left(l.figure.clone()),
+            Column::right(String::new()),
+            Column::left(l.figure.clone()),
+            Column::right(String::new()),
+        ];
+        draw_table(composer, &columns, &rows, &TableStyle::default());
+        let columns = vec![
+            Column::left(l.state.clone()),
+            Column::left(l.state_name.clone()),
+            Column::right(l.temperature.clone()),
+            Column::right(l.pressure.clone()),
+            Column::right(l.enthalpy.clone()),
+            Column::right(l.entropy.clone()),
+        ];
+        draw_table(
+            composer,
+            &columns,
+            &state_rows(c, ctx.model.meta.units),
+            &TableStyle::default(),
+        );
+    }
+}

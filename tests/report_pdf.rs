@@ -1,0 +1,281 @@
+//! The PDF briefing read back with a PDF library: pages, headings, key
+//! figures as printed, traceability, paper sizes, templates, and chart
+//! geometry. The model is an invented rendering fixture (see
+//! `report_support`), so these tests check formatting and layout only.
+//!
+//! Set `BRAYFIN_FIXTURE_PDF=<path>` to keep the rendered fixture for a look.
+
+mod report_support;
+
+use brayfin::report::charts::geometry::{Anchor, Mark, Weight};
+use brayfin::report::format;
+use brayfin::report::model::Model;
+use brayfin::report::pdf::document::Page;
+use brayfin::report::pdf::fonts::{text_width_mm, Face};
+use brayfin::report::pdf::{Paper, PdfRenderer};
+use brayfin::report::wording::Wording;
+use brayfin::report::Renderer;
+use lopdf::Document;
+use rust_decimal::Decimal;
+use std::str::FromStr;
+
+fn renderer(paper: Paper) -> PdfRenderer {
+    PdfRenderer {
+        paper,
+        wording: Wording::builtin().expect("built-in templates load"),
+    }
+}
+
+fn render(model: &Model, paper: Paper) -> (Vec<u8>, Document) {
+    let bytes = renderer(paper).render(model).expect("renders");
+    if let Ok(path) = std::env::var("BRAYFIN_FIXTURE_PDF") {
+        std::fs::write(path, &bytes).expect("fixture written");
+    }
+    let doc = Document::load_mem(&bytes).expect("the output is a PDF lopdf can read");
+    (bytes, doc)
+}
+
+fn page_text(doc: &Document, page: u32) -> String {
+    doc.extract_text(&[page]).expect("text extracts")
+}
+
+fn all_text(doc: &Document) -> String {
+    let pages: Vec<u32> = doc.get_pages().keys().copied().collect();
+    doc.extract_text(&pages).expect("text extracts")
+}
+
+#[test]
+fn page_count_matches_the_layout_and_every_page_is_numbered() {
+    let model = report_support::model(true, true);
+    let pages = renderer(Paper::A4).layout(&model).expect("lays out");
+    let (_, doc) = render(&model, Paper::A4);
+    let count = doc.get_pages().len();
+    assert_eq!(count, pages.len());
+    assert!(
+        count >= 8,
+        "briefing, charts, performance, ledger…: {count} pages"
+    );
+    for n in 1..=count as u32 {
+        let text = page_text(&doc, n);
+        assert!(
+            text.contains(&format!("page {n} of {count}")),
+            "page {n}: {text}"
+        );
+        assert!(text.contains(&model.meta.title), "page {n} lacks the title");
+    }
+}
+
+#[test]
+fn every_section_heading_is_present() {
+    let model = report_support::model(true, true);
+    let (_, doc) = render(&model, Paper::A4);
+    let text = all_text(&doc);
+    for heading in [
+        "Gas-turbine purchase briefing",
+        "Recommendation",
+        "Key figures",
+        "The three inputs that move the answer most",
+        "Charts",
+        "Cumulative discounted savings against the baseline",
+        "Break-even premium against fuel price",
+        "Lifecycle cost by stream (present value)",
+        "Temperature-entropy diagram",
+        "Sensitivity of net savings",
+        "Risk: Monte Carlo simulation",
+        "Performance at site conditions",
+        "Assumptions",
+        "Year-by-year ledger",
+        "Method",
+        "References",
+        "Cautions",
+        "Traceability",
+    ] {
+        assert!(text.contains(heading), "missing heading {heading:?}");
+    }
+}
+
+/// Parse money as printed ("USD 12,500,000", "USD -1,500") back to a number.
+fn parse_money(printed: &str, currency: &str) -> Decimal {
+    let digits = printed.trim_start_matches(currency).trim().replace(',', "");
+    Decimal::from_str(&digits).expect("printed money parses")
+}
+
+#[test]
+fn every_key_figure_on_the_briefing_page_is_the_model_figure_as_printed() {
+    let model = report_support::model(true, false);
+    let (_, doc) = render(&model, Paper::A4);
+    let first = page_text(&doc, 1);
+    let lines: Vec<&str> = first.lines().map(str::trim).collect();
+    let currency = &model.meta.currency;
+    let mut checked = 0;
+    for c in &model.candidates {
+        let e = &c.economics;
+        let money_figures = [
+            Some(e.capital_cost),
+            Some(e.lifecycle_cost),
+            e.net_savings_vs_baseline,
+            e.break_even_premium,
+            e.premium_asked,
+        ];
+        for value in money_figures.into_iter().flatten() {
+            let printed = format::money(value, currency);
+            assert!(lines.contains(&printed.as_str()), "{printed} not on page 1");
+            // Printed in whole units: equal to the model figure to 0.5.
+            assert!((parse_money(&printed, currency) - value).abs() <= Decimal::new(5, 1));
+            checked += 1;
+        }
+        let heat_rate = format::heat_rate(
+            c.performance.heat_rate_kj_per_kwh,
+            c.performance.heat_rate_btu_per_kwh,
+            model.meta.units,
+        );
+        assert!(
+            lines.contains(&heat_rate.as_str()),
+            "{heat_rate} not on page 1"
+        );
+        let payback = format::payback(e.discounted_payback);
+        assert!(lines.contains(&payback.as_str()), "{payback} not on page 1");
+        checked += 2;
+    }
+    // Baseline: capital and lifecycle cost; bids: five money figures each;
+    // every candidate: heat rate and payback.
+    assert_eq!(checked, 2 + 5 + 5 + 3 * 2);
+    for k in model.key_assumptions.iter().take(3) {
+        assert!(first.contains(&format::money(k.swing, currency)));
+    }
+    let fourth = &model.key_assumptions[3];
+    assert!(!first.contains(&fourth.label), "only three key assumptions");
+}
+
+#[test]
+fn the_last_page_traces_the_scenario_version_and_time() {
+    let model = report_support::model(false, false);
+    let (_, doc) = render(&model, Paper::Letter);
+    let last = doc.get_pages().len() as u32;
+    let text = page_text(&doc, last);
+    assert!(text.contains(&model.meta.scenario_sha256), "{text}");
+    assert!(text.contains(&model.meta.brayfin_version));
+    assert!(text.contains(&model.meta.generated_at));
+}
+
+#[test]
+fn without_sensitivity_or_risk_those_sections_are_left_out_and_said_so() {
+    let model = report_support::model(false, false);
+    let (_, doc) = render(&model, Paper::A4);
+    let text = all_text(&doc);
+    assert!(!text.contains("Sensitivity of net savings"));
+    assert!(!text.contains("Risk: Monte Carlo simulation"));
+    assert!(text.contains("No sensitivity ranking was made"));
+}
+
+fn media_box(doc: &Document, page: u32) -> Vec<f32> {
+    let id = doc.get_pages()[&page];
+    let dict = doc.get_dictionary(id).expect("page dictionary");
+    dict.get(b"MediaBox")
+        .and_then(|o| o.as_array().map(|a| a.clone()))
+        .expect("MediaBox")
+        .iter()
+        .map(|o| {
+            o.as_float()
+                .or_else(|_| o.as_i64().map(|i| i as f32))
+                .unwrap_or(-1.0)
+        })
+        .collect()
+}
+
+#[test]
+fn paper_sizes_are_a4_and_us_letter_with_a_landscape_ledger() {
+    // ISO 216 A4 = 210 × 297 mm = 595.28 × 841.89 pt; US Letter =
+    // 8.5 × 11 in = 612 × 792 pt (1 in = 72 pt).
+    let model = report_support::model(false, false);
+    for (paper, w, h) in [(Paper::A4, 595.28, 841.89), (Paper::Letter, 612.0, 792.0)] {
+        let (_, doc) = render(&model, paper);
+        let first = media_box(&doc, 1);
+        assert!(
+            (first[2] - w).abs() < 0.5 && (first[3] - h).abs() < 0.5,
+            "{first:?}"
+        );
+        let landscape = doc
+            .get_pages()
+            .keys()
+            .filter(|n| {
+                let b = media_box(&doc, **n);
+                (b[2] - h).abs() < 0.5 && (b[3] - w).abs() < 0.5
+            })
+            .count();
+        assert!(
+            landscape >= model.candidates.len(),
+            "one ledger page per candidate"
+        );
+    }
+}
+
+/// Left and right extent of a label, mm.
+fn extent(mark: &Mark) -> Option<(f32, f32, f32, bool)> {
+    match mark {
+        Mark::Label {
+            at,
+            text,
+            size_pt,
+            anchor,
+            weight,
+            vertical,
+            ..
+        } => {
+            let face = match weight {
+                Weight::Regular => Face::Regular,
+                Weight::Bold => Face::Bold,
+                Weight::Mono => Face::Mono,
+            };
+            let width = text_width_mm(text, face, *size_pt);
+            let shift = match anchor {
+                Anchor::Left => 0.0,
+                Anchor::Centre => width / 2.0,
+                Anchor::Right => width,
+            };
+            let along = if *vertical { at.y_mm } else { at.x_mm };
+            Some((along - shift, along - shift + width, *size_pt, *vertical))
+        }
+        _ => None,
+    }
+}
+
+fn assert_no_text_leaves_the_page(pages: &[Page]) {
+    for (n, page) in pages.iter().enumerate() {
+        let margin = 5.0;
+        for mark in &page.marks {
+            if let Some((from, to, _, vertical)) = extent(mark) {
+                let limit = if vertical {
+                    page.height_mm
+                } else {
+                    page.width_mm
+                };
+                assert!(
+                    from >= margin && to <= limit - margin,
+                    "page {}: {mark:?} runs off the page",
+                    n + 1
+                );
+            }
+        }
+    }
+}
+
+#[test]
+fn no_text_runs_off_any_page_on_either_paper() {
+    let model = report_support::model(true, true);
+    for paper in [Paper::A4, Paper::Letter] {
+        let pages = renderer(paper).layout(&model).expect("lays out");
+        assert_no_text_leaves_the_page(&pages);
+    }
+}
+
+#[test]
+fn long_labels_are_wrapped_not_dropped() {
+    let model = report_support::model(false, false);
+    let (_, doc) = render(&model, Paper::A4);
+    let first = page_text(&doc, 1);
+    // The long label is wrapped over lines of its column; its first and
+    // last words are both on the page.
+    assert!(first.contains("Bid C:"));
+    assert!(first.contains("deliberately") || first.contains('…'));
+}

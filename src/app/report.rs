@@ -1,9 +1,92 @@
-//! `brayfin report`.
+//! `brayfin report`: load the scenario, build the report model, render the
+//! PDF briefing and write it atomically next to the scenario (or where
+//! `-o` says), never over the scenario itself.
 
-use crate::cli::ReportArgs;
+use crate::cli::{Paper as PaperArg, ReportArgs};
+use crate::report::model::Model;
+use crate::report::pdf::{Paper, PdfRenderer};
+use crate::report::wording::Wording;
 use crate::{Error, Result};
+use std::path::{Path, PathBuf};
 
-/// Run `brayfin report`.
-pub fn run(_args: &ReportArgs) -> Result<()> {
-    Err(Error::Internal("`report` is not built yet".into()))
+/// What `report` wrote.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct Written {
+    /// The PDF file.
+    pub path: PathBuf,
+    /// Its number of pages.
+    pub pages: usize,
+}
+
+/// The paper size of the renderer for the `--paper` flag.
+pub fn paper(arg: PaperArg) -> Paper {
+    match arg {
+        PaperArg::A4 => Paper::A4,
+        PaperArg::Letter => Paper::Letter,
+    }
+}
+
+/// Where the PDF goes: `output` if given, else the scenario path with the
+/// extension `.pdf`. An output path equal to the scenario is refused.
+pub fn output_path(scenario: &Path, output: Option<&Path>) -> Result<PathBuf> {
+    let path = match output {
+        Some(p) => p.to_path_buf(),
+        None => scenario.with_extension("pdf"),
+    };
+    if path == scenario {
+        return Err(Error::Input(format!(
+            "output path {} is the scenario file itself; give -o with another path",
+            path.display()
+        )));
+    }
+    Ok(path)
+}
+
+/// The wording: built in, or with the `.j2` files of `templates` in place.
+pub fn wording(templates: Option<&Path>) -> Result<Wording> {
+    match templates {
+        Some(dir) => Wording::with_overrides(dir),
+        None => Wording::builtin(),
+    }
+}
+
+/// Render `model` on `paper` with `wording` and write it atomically to
+/// `output`, refusing to overwrite `scenario`.
+pub fn write_report(
+    model: &Model,
+    paper: Paper,
+    wording: Wording,
+    output: &Path,
+    scenario: &Path,
+) -> Result<Written> {
+    let renderer = PdfRenderer { paper, wording };
+    let pages = renderer.layout(model)?;
+    let bytes = crate::report::pdf::emit::write_pdf(&pages, &model.meta.title)?;
+    crate::app::output::write_atomically(output, &bytes, &[scenario])?;
+    Ok(Written {
+        path: output.to_path_buf(),
+        pages: pages.len(),
+    })
+}
+
+/// The line `report` prints once the file is written.
+pub fn summary(written: &Written) -> String {
+    let plural = if written.pages == 1 { "" } else { "s" };
+    format!(
+        "wrote {} ({} page{plural})",
+        written.path.display(),
+        written.pages
+    )
+}
+
+/// Run `brayfin report`. Until the analysis that fills the report model
+/// lands, this checks the flags, the templates and the scenario, then says
+/// what is missing.
+pub fn run(args: &ReportArgs) -> Result<()> {
+    let _output = output_path(&args.scenario, args.output.as_deref())?;
+    let _wording = wording(args.templates.as_deref())?;
+    crate::scenario::load(&args.scenario)?;
+    Err(Error::Internal(
+        "`report` needs the analysis that builds the report model, which is not built yet".into(),
+    ))
 }

@@ -94,19 +94,39 @@ fn is_valid_id(id: &str) -> bool {
 
 fn read_candidate(ctx: &mut Context, node: &Node, index: usize, cod: NaiveDate) -> Read<Candidate> {
     let provisional = format!("candidate[#{}]", index + 1);
-    let id_check = TableReader::new(ctx, &provisional, node, CANDIDATE_KEYS)?;
-    let id = match id_check.entry("id").map(|e| &e.node) {
+    let NodeValue::Table(entries) = &node.value else {
+        return Err(type_error(
+            ctx,
+            &provisional,
+            node,
+            "a table written [[candidate]]",
+        ));
+    };
+    let id_field = format!("{provisional}.id");
+    let id_entry = entries.iter().find(|e| e.key == "id");
+    if let Some(entry) = id_entry {
+        ctx.spans.insert(id_field.clone(), entry.node.span.clone());
+    }
+    let id = match id_entry.map(|e| &e.node) {
         Some(Node {
             value: NodeValue::Str(id),
             ..
         }) => id.clone(),
-        Some(other) => return Err(type_error(ctx, &id_check.field("id"), other, "a string")),
-        None => return Err(id_check.missing(ctx, "id", "expected an id such as id = \"premium\"")),
+        Some(other) => return Err(type_error(ctx, &id_field, other, "a string")),
+        None => {
+            return Err(ctx.error_at_offset(
+                node.span.start,
+                &id_field,
+                format!("is missing from [{provisional}]"),
+                "expected an id such as id = \"premium\"",
+            ))
+        }
     };
     if !is_valid_id(&id) {
-        return Err(id_check.error(
-            ctx,
-            "id",
+        let offset = id_entry.map_or(node.span.start, |e| e.node.span.start);
+        return Err(ctx.error_at_offset(
+            offset,
+            &id_field,
             format!("{id:?} is not a valid id"),
             "expected a letter followed by letters, digits, - or _ (e.g. \"premium-b\")",
         ));

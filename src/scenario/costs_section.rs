@@ -182,7 +182,7 @@ fn read_schedule(
         return Err(ctx.error_at_offset(
             node.span.start,
             &field,
-            format!("the fractions sum to {sum}"),
+            format!("the fractions sum to {}", (sum * 1e12).round() / 1e12),
             "expected fractions of capital summing to 1 (100 %)",
         ));
     }

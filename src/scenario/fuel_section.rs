@@ -207,7 +207,7 @@ fn read_composition(ctx: &mut Context, r: &TableReader) -> Read<FuelComposition>
                 return Err(ctx.error_at_offset(
                     node.span.start,
                     &field,
-                    format!("the mole fractions sum to {sum}"),
+                    format!("the mole fractions sum to {}", (sum * 1e9).round() / 1e9),
                     "expected mole fractions summing to 1 within 1e-6",
                 ));
             }

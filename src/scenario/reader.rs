@@ -50,7 +50,8 @@ impl<'a> TableReader<'a> {
                     entry.key_span.start,
                     &reader.field(&entry.key),
                     format!(
-                        "unknown key {:?}{}",
+                        "unknown {} {:?}{}",
+                        if path.is_empty() { "section" } else { "key" },
                         entry.key,
                         did_you_mean(&entry.key, allowed.iter().copied())
                     ),

@@ -44,21 +44,17 @@ pub(crate) fn check_entry(
         high = high.min(t_high);
     }
     if input.distribution.is_some() {
-        for (bound, value) in [("low end", low), ("high end", high)] {
-            if value.is_finite() {
-                check_value(
-                    ctx,
-                    r,
-                    scenario,
-                    &input.key,
-                    value,
-                    if input.truncate.is_some() {
-                        "truncate"
-                    } else {
-                        "distribution"
-                    },
-                    bound,
-                )?;
+        for (bound, value, key) in [("low end", low, "low"), ("high end", high, "high")] {
+            let at = if input.truncate.is_some() {
+                "truncate"
+            } else {
+                key
+            };
+            // A lognormal never reaches the 0 of its support.
+            let lognormal_zero =
+                matches!(input.distribution, Some(Distribution::LogNormal { .. })) && value <= 0.0;
+            if value.is_finite() && !lognormal_zero {
+                check_value(ctx, r, scenario, &input.key, value, at, bound)?;
             }
         }
     }

@@ -158,7 +158,10 @@ impl Fuel {
         }
         let sum: f64 = parts.iter().map(|(_, x)| x).sum();
         if (sum - 1.0).abs() > 1e-6 || sum.is_nan() {
-            return Err(FuelError::FractionsDoNotSumToOne(sum));
+            // Rounded to 9 significant figures so the message shows the sum as
+            // typed, not its binary rounding.
+            let shown = format!("{sum:.9e}").parse::<f64>().unwrap_or(sum);
+            return Err(FuelError::FractionsDoNotSumToOne(shown));
         }
         for part in &mut parts {
             part.1 /= sum;

@@ -201,3 +201,17 @@ impl LoadedScenario {
         format!("{head}{name}")
     }
 }
+
+#[cfg(test)]
+mod tests {
+    use super::sha256_hex;
+
+    #[test]
+    fn sha256_matches_the_fips_180_example() {
+        // FIPS 180-2, Appendix B.1: SHA-256("abc").
+        assert_eq!(
+            sha256_hex(b"abc"),
+            "ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad"
+        );
+    }
+}

@@ -39,6 +39,23 @@ fn page_text(doc: &Document, page: u32) -> String {
     doc.extract_text(&[page]).expect("text extracts")
 }
 
+/// Every string drawn with Tj on any page, as raw (WinAnsi) bytes.
+fn raw_strings(doc: &Document) -> Vec<Vec<u8>> {
+    let mut out = Vec::new();
+    for id in doc.get_pages().values() {
+        let content = doc.get_page_content(*id).expect("page content");
+        let ops = lopdf::content::Content::decode(&content).expect("content decodes");
+        for op in ops.operations.iter().filter(|o| o.operator == "Tj") {
+            for operand in &op.operands {
+                if let lopdf::Object::String(bytes, _) = operand {
+                    out.push(bytes.clone());
+                }
+            }
+        }
+    }
+    out
+}
+
 fn all_text(doc: &Document) -> String {
     let pages: Vec<u32> = doc.get_pages().keys().copied().collect();
     doc.extract_text(&pages).expect("text extracts")
@@ -172,7 +189,7 @@ fn media_box(doc: &Document, page: u32) -> Vec<f32> {
     let id = doc.get_pages()[&page];
     let dict = doc.get_dictionary(id).expect("page dictionary");
     dict.get(b"MediaBox")
-        .and_then(|o| o.as_array().map(|a| a.clone()))
+        .and_then(|o| o.as_array().cloned())
         .expect("MediaBox")
         .iter()
         .map(|o| {
@@ -278,4 +295,29 @@ fn long_labels_are_wrapped_not_dropped() {
     // last words are both on the page.
     assert!(first.contains("Bid C:"));
     assert!(first.contains("deliberately") || first.contains('…'));
+}
+
+#[test]
+fn us_units_print_btu_per_kwh_and_degrees_fahrenheit() {
+    let mut model = report_support::model(false, false);
+    model.meta.units = brayfin::report::model::Units::Us;
+    let (_, doc) = render(&model, Paper::Letter);
+    let text = all_text(&doc);
+    let bid = &model.candidates[1].performance;
+    // 9,900 kJ/kWh / 1.055056 kJ/Btu = 9,383 Btu/kWh (NIST SP 811 Btu_IT).
+    assert!(bid.heat_rate_btu_per_kwh.round() == 9383.0);
+    assert!(text.contains("9,383 Btu/kWh"), "heat rate in Btu/kWh");
+    // 780 K = 944.3 °F (°F = K × 9/5 − 459.67); the degree sign survives.
+    // The text extractor of the PDF library drops some WinAnsi characters,
+    // so the degree sign (WinAnsi 0xB0) and middle dot (0xB7) are checked
+    // in the raw strings the page draws.
+    let strings = raw_strings(&doc);
+    assert!(
+        strings.contains(&b"944.3 \xB0F".to_vec()),
+        "exhaust temperature in °F"
+    );
+    assert!(
+        strings.iter().any(|s| s.ends_with(b"Btu/(lb\xB7\xB0R)")),
+        "T-s entropy axis in US units"
+    );
 }

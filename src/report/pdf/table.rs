@@ -52,6 +52,8 @@ pub struct TableStyle {
     pub max_lines: usize,
     /// Set the first column in bold (row labels).
     pub bold_first_column: bool,
+    /// Draw the header row (off for label–value tables).
+    pub header: bool,
 }
 
 impl Default for TableStyle {
@@ -60,6 +62,7 @@ impl Default for TableStyle {
             size_pt: 8.5,
             max_lines: 3,
             bold_first_column: false,
+            header: true,
         }
     }
 }
@@ -209,6 +212,9 @@ impl Layout<'_> {
     }
 
     fn draw_header(&self, composer: &mut Composer) {
+        if !self.style.header {
+            return;
+        }
         let cells: Vec<(Vec<String>, Face)> = self
             .columns
             .iter()

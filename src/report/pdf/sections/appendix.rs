@@ -51,6 +51,7 @@ pub fn ledger(ctx: &Ctx, composer: &mut Composer) {
         size_pt: 7.0,
         max_lines: 2,
         bold_first_column: false,
+        header: true,
     };
     for (i, c) in ctx.model.candidates.iter().enumerate() {
         composer.new_page(Orientation::Landscape);

@@ -36,6 +36,7 @@ pub fn assumptions(ctx: &Ctx, composer: &mut Composer) {
         size_pt: 8.0,
         max_lines: 4,
         bold_first_column: false,
+        header: true,
     };
     draw_table(composer, &columns, &rows, &style);
 

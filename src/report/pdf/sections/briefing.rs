@@ -155,6 +155,7 @@ pub fn briefing(ctx: &Ctx, composer: &mut Composer) -> Result<()> {
             size_pt: 8.5,
             max_lines: 2,
             bold_first_column: true,
+            header: true,
         };
         draw_table(composer, &columns, &rows, &style);
     }

@@ -9,11 +9,13 @@ use crate::report::charts::geometry::Mark;
 use crate::report::charts::savings::savings_chart;
 use crate::report::charts::style::series_style;
 use crate::report::charts::ts::ts_chart;
-use crate::report::pdf::document::{Composer, Orientation};
+use crate::report::pdf::document::{line_height_mm, Composer, Orientation};
 use crate::report::pdf::fonts::Face;
 
 /// Gap between charts stacked on a page, mm.
 const GAP_MM: f32 = 6.0;
+/// Size of the note under the diagrams, pt.
+const NOTE_PT: f32 = 8.0;
 
 /// Height for each of `count` charts sharing what is left of the page,
 /// capped at `max_mm`.
@@ -53,8 +55,20 @@ pub fn charts(ctx: &Ctx, composer: &mut Composer) {
         place(composer, chart.chart.marks);
         composer.gap(GAP_MM);
     }
-    for (i, candidate) in model.candidates.iter().enumerate() {
-        let height = 112.0f32.min(composer.content_box().height_mm / 2.0 - GAP_MM);
+    let note_mm = 2.0 * line_height_mm(NOTE_PT) + 2.0;
+    let drawable = model
+        .candidates
+        .iter()
+        .filter(|c| c.cycle.states.len() >= 2);
+    let last = drawable.clone().count();
+    for (i, candidate) in drawable.enumerate() {
+        // Two diagrams and the note fit one page.
+        let height = 112.0f32.min((composer.content_box().height_mm - note_mm) / 2.0 - GAP_MM);
+        // The note on reading the diagrams stays with the last one.
+        let keep = if i + 1 == last { note_mm } else { 0.0 };
+        if composer.remaining_mm() < height + keep {
+            composer.new_page(Orientation::Portrait);
+        }
         let area = composer.reserve(height);
         if let Some(chart) = ts_chart(candidate, model.meta.units, l, area, series_style(i).colour)
         {
@@ -62,7 +76,7 @@ pub fn charts(ctx: &Ctx, composer: &mut Composer) {
         }
         composer.gap(GAP_MM);
     }
-    if model.candidates.iter().any(|c| c.cycle.states.len() >= 2) {
-        composer.paragraph(&l.ts_note, 8.0, Face::Regular, 0.0);
+    if last > 0 {
+        composer.paragraph(&l.ts_note, NOTE_PT, Face::Regular, 0.0);
     }
 }

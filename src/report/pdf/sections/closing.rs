@@ -39,6 +39,7 @@ pub fn closing(ctx: &Ctx, composer: &mut Composer) -> Result<()> {
             size_pt: 8.0,
             max_lines: 3,
             bold_first_column: true,
+            header: false,
         },
     );
     Ok(())

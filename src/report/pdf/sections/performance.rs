@@ -120,12 +120,16 @@ pub fn performance(ctx: &Ctx, composer: &mut Composer) {
             })
             .collect();
         let columns = vec![
-            Column::left(l.figure.clone()),
+            Column::left(String::new()),
             Column::right(String::new()),
-            Column::left(l.figure.clone()),
+            Column::left(String::new()),
             Column::right(String::new()),
         ];
-        draw_table(composer, &columns, &rows, &TableStyle::default());
+        let pairs_style = TableStyle {
+            header: false,
+            ..TableStyle::default()
+        };
+        draw_table(composer, &columns, &rows, &pairs_style);
         let columns = vec![
             Column::left(l.state.clone()),
             Column::left(l.state_name.clone()),

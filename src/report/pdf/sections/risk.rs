@@ -127,6 +127,7 @@ pub fn risk(ctx: &Ctx, composer: &mut Composer) {
             size_pt: 8.0,
             max_lines: 3,
             bold_first_column: false,
+            header: true,
         },
     );
     for c in &risk.candidates {

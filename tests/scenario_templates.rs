@@ -19,5 +19,4 @@ fn bid_evaluation_template_loads() {
     assert!((s.site.ambient_temperature_k - 288.15).abs() < 1e-12);
     assert_eq!(s.operation.hours_per_year, 3000.0);
     assert_eq!(s.uncertainty.len(), 2);
-    eprintln!("{:#?}", loaded.applied_defaults);
 }

@@ -15,7 +15,7 @@ pub use money::{
     money, price_per_gj, price_per_kw_year, price_per_mwh, price_per_tonne, MoneyValue,
 };
 
-use parse::{split_quantity, Split};
+pub(crate) use parse::{split_quantity, Split};
 use std::fmt;
 
 /// Kilojoules per International Table British thermal unit. The exact

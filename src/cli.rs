@@ -55,6 +55,9 @@ pub enum GasModelArg {
 }
 
 /// The subcommands.
+// Parsed once per process; the size difference between variants is
+// irrelevant, so the variants are not boxed.
+#[allow(clippy::large_enum_variant)]
 #[derive(Debug, Subcommand)]
 pub enum Command {
     /// Solve one gas-turbine cycle and print its state table and heat rate.

@@ -321,3 +321,23 @@ fn us_units_print_btu_per_kwh_and_degrees_fahrenheit() {
         "T-s entropy axis in US units"
     );
 }
+
+#[test]
+fn many_candidates_and_very_long_texts_stay_on_the_page() {
+    let mut model = report_support::model(true, true);
+    model.meta.title = "A very long scenario title that goes on and on to test wrapping, ".repeat(4);
+    model.meta.prepared_for = "An organisation with an exceptionally long name ".repeat(5);
+    let template = model.candidates[2].clone();
+    for i in 0..5 {
+        let mut extra = template.clone();
+        extra.id = format!("extra{i}");
+        extra.label = format!("Extra bid {i}: {}", "long-winded-description-".repeat(4));
+        model.candidates.push(extra);
+    }
+    for paper in [Paper::A4, Paper::Letter] {
+        let pages = renderer(paper).layout(&model).expect("lays out");
+        assert_no_text_leaves_the_page(&pages);
+        let (_, doc) = render(&model, paper);
+        assert_eq!(doc.get_pages().len(), pages.len());
+    }
+}

@@ -80,10 +80,15 @@ fn longest_word_mm(text: &str, face: Face, size_pt: f32) -> f32 {
         .fold(0.0, f32::max)
 }
 
+/// Widest a single word may make a column; longer words (a long code or
+/// identifier) are broken instead of starving the other columns.
+const MAX_WORD_MM: f32 = 30.0;
+
 /// Column widths (mm) summing to `available_mm`. Right-aligned (numeric)
-/// columns get their full width if at all possible, so numbers are never
-/// broken; the other columns get at least their longest word, and the rest
-/// is shared by how much more each column's text would like.
+/// columns get their full body width if at all possible, so numbers are
+/// never broken; the other columns get at least their longest word (up to
+/// [`MAX_WORD_MM`]), and the rest is shared by how much more each column's
+/// text would like.
 pub fn column_widths(
     columns: &[Column],
     rows: &[Vec<String>],
@@ -92,6 +97,7 @@ pub fn column_widths(
 ) -> Vec<f32> {
     let n = columns.len();
     let mut word = vec![0.0f32; n];
+    let mut body = vec![0.0f32; n];
     let mut natural = vec![0.0f32; n];
     let face_of = |i: usize| {
         if i == 0 && style.bold_first_column {
@@ -101,7 +107,7 @@ pub fn column_widths(
         }
     };
     for (i, column) in columns.iter().enumerate() {
-        word[i] = longest_word_mm(&column.header, Face::Bold, style.size_pt);
+        word[i] = longest_word_mm(&column.header, Face::Bold, style.size_pt).min(MAX_WORD_MM);
         // A header may take two lines before it asks for more width.
         let header = text_width_mm(&to_win_ansi(&column.header), Face::Bold, style.size_pt);
         natural[i] = word[i].max(header / 2.0);
@@ -109,35 +115,35 @@ pub fn column_widths(
     for row in rows {
         for (i, cell) in row.iter().enumerate().take(n) {
             let face = face_of(i);
-            word[i] = word[i].max(longest_word_mm(cell, face, style.size_pt));
-            natural[i] = natural[i].max(text_width_mm(&to_win_ansi(cell), face, style.size_pt));
+            let width = text_width_mm(&to_win_ansi(cell), face, style.size_pt);
+            word[i] = word[i].max(longest_word_mm(cell, face, style.size_pt).min(MAX_WORD_MM));
+            body[i] = body[i].max(width);
+            natural[i] = natural[i].max(width);
         }
     }
     let pad = 2.0 * PAD_X_MM;
-    let word: Vec<f32> = word.iter().map(|w| w + pad).collect();
-    let natural: Vec<f32> = natural.iter().map(|w| w + pad).collect();
-    let strict: Vec<f32> = columns
-        .iter()
-        .enumerate()
-        .map(|(i, c)| match c.align {
-            Align::Right => natural[i],
-            Align::Left => word[i],
+    let numeric = |i: usize| columns[i].align == Align::Right;
+    let min: Vec<f32> = (0..n)
+        .map(|i| {
+            pad + if numeric(i) {
+                body[i].max(word[i])
+            } else {
+                word[i]
+            }
         })
         .collect();
-    let min = if strict.iter().sum::<f32>() <= available_mm {
-        strict
-    } else {
-        word
-    };
+    let natural: Vec<f32> = natural.iter().map(|w| w + pad).collect();
     let sum_natural: f32 = natural.iter().sum();
     let sum_min: f32 = min.iter().sum();
     if sum_natural <= available_mm {
         let extra = (available_mm - sum_natural) / n.max(1) as f32;
-        natural.iter().map(|w| w + extra).collect()
-    } else if sum_min <= available_mm {
+        return natural.iter().map(|w| w + extra).collect();
+    }
+    if sum_min <= available_mm {
         let want: f32 = natural.iter().zip(&min).map(|(a, b)| a - b).sum();
         let spare = available_mm - sum_min;
-        min.iter()
+        return min
+            .iter()
             .zip(&natural)
             .map(|(lo, hi)| {
                 lo + if want > 0.0 {
@@ -146,6 +152,16 @@ pub fn column_widths(
                     0.0
                 }
             })
+            .collect();
+    }
+    // Too narrow for every minimum: numbers keep theirs if they can, the
+    // text columns share what is left.
+    let numbers: f32 = (0..n).filter(|i| numeric(*i)).map(|i| min[i]).sum();
+    let text: f32 = (0..n).filter(|i| !numeric(*i)).map(|i| min[i]).sum();
+    if numbers < available_mm && text > 0.0 {
+        let scale = (available_mm - numbers) / text;
+        (0..n)
+            .map(|i| if numeric(i) { min[i] } else { min[i] * scale })
             .collect()
     } else {
         min.iter().map(|w| w * available_mm / sum_min).collect()

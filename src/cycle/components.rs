@@ -54,7 +54,8 @@ pub(crate) fn greater(a: f64, b: f64) -> bool {
     matches!(a.partial_cmp(&b), Some(std::cmp::Ordering::Greater))
 }
 
-/// Compress from `inlet` through pressure ratio `ratio` (> 1).
+/// Compress from `inlet` through a pressure ratio r given as `ln_ratio`
+/// = ln r > 0.
 ///
 /// Isentropic: `s°(T2s) = s°(T1) + R ln r`, `h2 = h1 + (h2s − h1)/η`.
 /// Polytropic: `s°(T2) = s°(T1) + (R/η_p) ln r` (exact for an ideal gas with
@@ -62,66 +63,60 @@ pub(crate) fn greater(a: f64, b: f64) -> bool {
 pub(crate) fn compress<G: GasProperties>(
     gas: &G,
     inlet: Point,
-    ratio: f64,
+    ln_ratio: f64,
     efficiency: f64,
     basis: EfficiencyBasis,
 ) -> Result<StageEnd, ThermoError> {
-    stage(
-        gas,
-        inlet,
-        gas.gas_constant_kj_per_kg_k() * ratio.ln(),
-        efficiency,
-        basis,
-        true,
-    )
+    let ds = gas.gas_constant_kj_per_kg_k() * ln_ratio;
+    stage(gas, inlet, ds, 1.0 / efficiency, basis, None)
 }
 
-/// Expand from `inlet` through expansion ratio `ratio` (> 1).
+/// Expand from `inlet` through an expansion ratio r given as `ln_ratio`
+/// = ln r > 0; `previous` (an earlier solve of nearly the same stage) seeds
+/// the inverse solves.
 ///
 /// Isentropic: `s°(T4s) = s°(T3) − R ln r`, `h4 = h3 − η (h3 − h4s)`.
 /// Polytropic: `s°(T4) = s°(T3) − η_p R ln r`.
 pub(crate) fn expand<G: GasProperties>(
     gas: &G,
     inlet: Point,
-    ratio: f64,
+    ln_ratio: f64,
     efficiency: f64,
     basis: EfficiencyBasis,
+    previous: Option<&StageEnd>,
 ) -> Result<StageEnd, ThermoError> {
-    stage(
-        gas,
-        inlet,
-        -gas.gas_constant_kj_per_kg_k() * ratio.ln(),
-        efficiency,
-        basis,
-        false,
-    )
+    let ds = -gas.gas_constant_kj_per_kg_k() * ln_ratio;
+    stage(gas, inlet, ds, efficiency, basis, previous)
 }
 
-/// One compression (`ds_ideal` = R ln r > 0) or expansion (`ds_ideal` < 0).
+/// One compression or expansion: `ds_ideal` is the change of s° along the
+/// isentrope (`±R ln r`); the actual enthalpy change is the ideal one times
+/// `factor` (1/η for a compressor, η for a turbine), or for a polytropic
+/// efficiency the change of s° is `ds_ideal × factor`.
 fn stage<G: GasProperties>(
     gas: &G,
     inlet: Point,
     ds_ideal: f64,
-    efficiency: f64,
+    factor: f64,
     basis: EfficiencyBasis,
-    compressing: bool,
+    previous: Option<&StageEnd>,
 ) -> Result<StageEnd, ThermoError> {
     let s0_ideal = inlet.s0 + ds_ideal;
-    let guess = inlet.t_k * (ds_ideal / gas.cp_kj_per_kg_k(inlet.t_k)).exp();
+    let guess = match previous {
+        Some(p) => p.ideal.t_k,
+        None if G::USES_GUESS => inlet.t_k * (ds_ideal / gas.cp_kj_per_kg_k(inlet.t_k)).exp(),
+        None => 0.0,
+    };
     let t_ideal = gas.temperature_from_standard_entropy(s0_ideal, guess)?;
     let ideal = Point {
         t_k: t_ideal,
         h: gas.enthalpy_kj_per_kg(t_ideal),
         s0: s0_ideal,
     };
-    // The actual enthalpy change is the ideal one divided (compressor) or
-    // multiplied (turbine) by the efficiency.
-    let factor = if compressing {
-        1.0 / efficiency
-    } else {
-        efficiency
+    let guess = match previous {
+        Some(p) => p.actual.t_k,
+        None => inlet.t_k + (t_ideal - inlet.t_k) * factor,
     };
-    let guess = inlet.t_k + (t_ideal - inlet.t_k) * factor;
     let actual = match basis {
         EfficiencyBasis::Isentropic => {
             let h = inlet.h + (ideal.h - inlet.h) * factor;

@@ -4,7 +4,7 @@
 use super::components::{compress, greater, Point, StageEnd};
 use super::config::{EngineConfig, IntercoolerExit};
 use super::error::CycleError;
-use super::states::{data_range, in_range, StateTable};
+use super::states::{data_range, in_range, Pressure, StateTable};
 use crate::thermo::GasProperties;
 
 /// The compressor delivery and what it cost, per kg of inlet air.
@@ -17,22 +17,24 @@ pub(crate) struct Compression {
     pub intercooler_heat: f64,
 }
 
-/// Compress from `inlet` (state 1, pressure `p1_kpa`), recording the states
-/// `2as, 2a, 2b` (intercooled) and `2s, 2` into `table`.
+/// Compress from `inlet` (state 1, pressure `p1`), recording the states
+/// `2as, 2a, 2b` (intercooled) and `2s, 2` into `table`. Returns the
+/// compression and the delivery pressure.
 pub(crate) fn compression<G: GasProperties>(
     cfg: &EngineConfig,
     air: &G,
     inlet: Point,
-    p1_kpa: f64,
+    p1: Pressure,
     table: &mut StateTable,
-) -> Result<Compression, CycleError> {
+) -> Result<(Compression, Pressure), CycleError> {
     let eta = cfg.compressor_efficiency;
     let basis = cfg.efficiency_basis;
     let r_air = air.gas_constant_kj_per_kg_k();
-    let p2 = p1_kpa * cfg.pressure_ratio;
+    let ln_ratio = cfg.pressure_ratio.ln();
+    let p2 = p1.times(cfg.pressure_ratio, ln_ratio);
     let result = match &cfg.intercooler {
         None => {
-            let exit = compress(air, inlet, cfg.pressure_ratio, eta, basis)
+            let exit = compress(air, inlet, ln_ratio, eta, basis)
                 .map_err(data_range("pressure_ratio", "2"))?;
             Compression {
                 exit,
@@ -44,9 +46,10 @@ pub(crate) fn compression<G: GasProperties>(
             let r_lp = ic
                 .pressure_split
                 .unwrap_or_else(|| cfg.pressure_ratio.sqrt());
-            let lp = compress(air, inlet, r_lp, eta, basis)
+            let ln_lp = r_lp.ln();
+            let lp = compress(air, inlet, ln_lp, eta, basis)
                 .map_err(data_range("pressure_ratio", "2a"))?;
-            let p2a = p1_kpa * r_lp;
+            let p2a = p1.times(r_lp, ln_lp);
             table.push(
                 "2as",
                 "low-pressure compressor exit, isentropic",
@@ -73,7 +76,7 @@ pub(crate) fn compression<G: GasProperties>(
             in_range(air, field, t2b)?;
             let cooled = Point::at(air, t2b);
             table.push("2b", "intercooler exit", cooled, p2a, r_air);
-            let hp = compress(air, cooled, cfg.pressure_ratio / r_lp, eta, basis)
+            let hp = compress(air, cooled, ln_ratio - ln_lp, eta, basis)
                 .map_err(data_range("pressure_ratio", "2"))?;
             Compression {
                 exit: hp,
@@ -90,5 +93,5 @@ pub(crate) fn compression<G: GasProperties>(
         r_air,
     );
     table.push("2", "compressor exit", result.exit.actual, p2, r_air);
-    Ok(result)
+    Ok((result, p2))
 }

@@ -5,7 +5,7 @@
 use super::components::{expand, greater, Burn, Combustion, Point, StageEnd, Stream};
 use super::config::EfficiencyBasis;
 use super::error::CycleError;
-use super::states::{data_range, StateTable};
+use super::states::{data_range, Pressure, StateTable};
 use crate::thermo::GasProperties;
 
 /// How the expansion is split around a reheat combustor.
@@ -13,8 +13,11 @@ use crate::thermo::GasProperties;
 pub(crate) struct ReheatSplit {
     /// High-pressure turbine expansion ratio.
     pub r_hp: f64,
-    /// Low-pressure turbine expansion ratio (after the reheat loss).
-    pub r_lp: f64,
+    /// Its logarithm.
+    pub ln_hp: f64,
+    /// Logarithm of the low-pressure turbine expansion ratio (after the
+    /// reheat combustor's loss).
+    pub ln_lp: f64,
     /// Reheat combustor exit temperature, K.
     pub t_k: f64,
 }
@@ -23,7 +26,8 @@ pub(crate) struct ReheatSplit {
 pub(crate) struct HotSection<'a, C> {
     pub combustion: &'a C,
     pub t3_k: f64,
-    pub turbine_ratio: f64,
+    /// Logarithm of the overall turbine expansion ratio.
+    pub ln_turbine_ratio: f64,
     pub reheat: Option<ReheatSplit>,
     pub efficiency: f64,
     pub basis: EfficiencyBasis,
@@ -56,8 +60,13 @@ impl<G> Hot<G> {
 }
 
 impl<C: Combustion> HotSection<'_, C> {
-    /// Burn air entering at enthalpy `h_in` (kJ/kg) to state 3 and expand.
-    pub fn run(&self, h_in: f64) -> Result<Hot<C::Gas>, CycleError> {
+    /// Burn air entering at enthalpy `h_in` (kJ/kg) to state 3 and expand;
+    /// `previous`, a solve at a nearby `h_in`, seeds the expansions.
+    pub fn run(
+        &self,
+        h_in: f64,
+        previous: Option<&Hot<C::Gas>>,
+    ) -> Result<Hot<C::Gas>, CycleError> {
         let c = self.combustion;
         let intake = Stream {
             gas: c.air().clone(),
@@ -74,7 +83,8 @@ impl<C: Combustion> HotSection<'_, C> {
         let (eta, basis) = (self.efficiency, self.basis);
         match self.reheat {
             None => {
-                let last = expand(gas, turbine_inlet, self.turbine_ratio, eta, basis)
+                let seed = previous.map(|p| &p.last);
+                let last = expand(gas, turbine_inlet, self.ln_turbine_ratio, eta, basis, seed)
                     .map_err(data_range("turbine_inlet_temperature_k", "4"))?;
                 Ok(Hot {
                     turbine_work: m1 * (burn.h_out - last.actual.h),
@@ -86,7 +96,8 @@ impl<C: Combustion> HotSection<'_, C> {
                 })
             }
             Some(split) => {
-                let hp = expand(gas, turbine_inlet, split.r_hp, eta, basis)
+                let seed = previous.and_then(|p| p.reheat.as_ref().map(|r| &r.0));
+                let hp = expand(gas, turbine_inlet, split.ln_hp, eta, basis, seed)
                     .map_err(data_range("reheat.pressure_split", "3a"))?;
                 let t3a = hp.actual.t_k;
                 if !greater(split.t_k, t3a) {
@@ -107,7 +118,8 @@ impl<C: Combustion> HotSection<'_, C> {
                     h: second.h_out,
                     s0: gas2.standard_entropy_kj_per_kg_k(split.t_k),
                 };
-                let last = expand(gas2, reheated, split.r_lp, eta, basis)
+                let seed = previous.map(|p| &p.last);
+                let last = expand(gas2, reheated, split.ln_lp, eta, basis, seed)
                     .map_err(data_range("reheat.temperature_k", "4"))?;
                 let m2 = second.stream.mass_per_kg_air();
                 Ok(Hot {
@@ -123,22 +135,40 @@ impl<C: Combustion> HotSection<'_, C> {
         }
     }
 
+    /// The same hot section for another combustor inlet enthalpy `h_in`,
+    /// when the gas does not depend on the fuel (air-standard models): only
+    /// the main combustor's fuel energy changes; the turbines do not.
+    pub fn rebase(&self, hot: Hot<C::Gas>, h_in: f64) -> Result<Hot<C::Gas>, CycleError> {
+        let c = self.combustion;
+        let intake = Stream {
+            gas: c.air().clone(),
+            fuel_per_kg_air: 0.0,
+        };
+        let burn = c.burn(&intake, h_in, self.t3_k, "turbine_inlet_temperature_k")?;
+        Ok(Hot {
+            fuel_energy: hot.fuel_energy - hot.burn.fuel_energy_kj_per_kg_air
+                + burn.fuel_energy_kj_per_kg_air,
+            burn,
+            ..hot
+        })
+    }
+
     /// Record states 3, (3as, 3a, 3b), 4s, 4 of `hot`: turbine inlet at
-    /// `p3_kpa`, exit at `p4_kpa`, reheat combustor with pressure-loss
-    /// fraction `reheat_loss`.
+    /// `p3`, exit at `p4`, reheat combustor with pressure-loss fraction
+    /// `reheat_loss`.
     pub fn record(
         &self,
         hot: &Hot<C::Gas>,
         table: &mut StateTable,
-        p3_kpa: f64,
-        p4_kpa: f64,
+        p3: Pressure,
+        p4: Pressure,
         reheat_loss: f64,
     ) {
         let r1 = hot.burn.stream.gas.gas_constant_kj_per_kg_k();
-        table.push("3", "turbine inlet", hot.turbine_inlet, p3_kpa, r1);
+        table.push("3", "turbine inlet", hot.turbine_inlet, p3, r1);
         let mut r_last = r1;
         if let (Some((hp, second, reheated)), Some(split)) = (&hot.reheat, self.reheat) {
-            let p3a = p3_kpa / split.r_hp;
+            let p3a = p3.times(1.0 / split.r_hp, -split.ln_hp);
             let r2 = second.stream.gas.gas_constant_kj_per_kg_k();
             table.push(
                 "3as",
@@ -152,18 +182,12 @@ impl<C: Combustion> HotSection<'_, C> {
                 "3b",
                 "reheat combustor exit",
                 *reheated,
-                p3a * (1.0 - reheat_loss),
+                p3a.after_loss(reheat_loss),
                 r2,
             );
             r_last = r2;
         }
-        table.push(
-            "4s",
-            "turbine exit, isentropic",
-            hot.last.ideal,
-            p4_kpa,
-            r_last,
-        );
-        table.push("4", "turbine exit", hot.last.actual, p4_kpa, r_last);
+        table.push("4s", "turbine exit, isentropic", hot.last.ideal, p4, r_last);
+        table.push("4", "turbine exit", hot.last.actual, p4, r_last);
     }
 }

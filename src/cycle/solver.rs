@@ -9,7 +9,7 @@ use super::compression::compression;
 use super::config::{EngineConfig, Regenerator};
 use super::error::CycleError;
 use super::hot::{Hot, HotSection, ReheatSplit};
-use super::states::{data_range, in_range, StateTable};
+use super::states::{data_range, in_range, Pressure, StateTable};
 use super::StatePoint;
 use crate::thermo::{GasProperties, REFERENCE_TEMPERATURE_K};
 
@@ -17,7 +17,10 @@ use crate::thermo::{GasProperties, REFERENCE_TEMPERATURE_K};
 const CLOSURE_TOLERANCE: f64 = 1e-9;
 
 /// Convergence of the regenerator loop: |Δh5| relative to |h5| (or 1 kJ/kg).
-const REGENERATOR_TOLERANCE: f64 = 1e-13;
+/// The first law closes exactly at any iterate (h5 and the gas-side exit are
+/// set from one heat q); this tolerance only bounds the error in the
+/// effectiveness actually applied (about 1e-11 relative, T5 within ~1e-8 K).
+const REGENERATOR_TOLERANCE: f64 = 1e-12;
 
 /// Everything the result needs, per kg of compressor inlet air where
 /// specific.
@@ -44,10 +47,11 @@ pub(crate) fn run<C: Combustion>(cfg: &EngineConfig, c: &C) -> Result<Solved, Cy
     }
 
     let mut table = StateTable::new();
-    let p1 = cfg.ambient_pressure_kpa * (1.0 - cfg.inlet_pressure_loss);
+    let ambient = Pressure::new(cfg.ambient_pressure_kpa);
+    let p1 = ambient.after_loss(cfg.inlet_pressure_loss);
     let inlet = Point::at(air, cfg.ambient_temperature_k);
     table.push("1", "compressor inlet", inlet, p1, r_air);
-    let compressed = compression(cfg, air, inlet, p1, &mut table)?;
+    let (compressed, p2) = compression(cfg, air, inlet, p1, &mut table)?;
     let delivery = compressed.exit.actual;
     let (t2, h2) = (delivery.t_k, delivery.h);
     if !greater(t3, t2) {
@@ -60,33 +64,35 @@ pub(crate) fn run<C: Combustion>(cfg: &EngineConfig, c: &C) -> Result<Solved, Cy
 
     // Pressures through the hot section.
     let regen = cfg.regenerator;
-    let p2 = p1 * cfg.pressure_ratio;
-    let p5 = regen.map_or(p2, |r| p2 * (1.0 - r.air_side_pressure_loss));
-    let p3 = p5 * (1.0 - cfg.combustor_pressure_loss);
-    let p6 = cfg.ambient_pressure_kpa / (1.0 - cfg.exhaust_pressure_loss);
-    let p4 = regen.map_or(p6, |r| p6 / (1.0 - r.gas_side_pressure_loss));
-    let turbine_ratio = p3 / p4;
-    if !greater(turbine_ratio, 1.0) {
+    let p5 = regen.map_or(p2, |r| p2.after_loss(r.air_side_pressure_loss));
+    let p3 = p5.after_loss(cfg.combustor_pressure_loss);
+    let p6 = ambient.before_loss(cfg.exhaust_pressure_loss);
+    let p4 = regen.map_or(p6, |r| p6.before_loss(r.gas_side_pressure_loss));
+    let ln_turbine_ratio = p3.ln_rel - p4.ln_rel;
+    if !greater(ln_turbine_ratio, 0.0) {
         return Err(CycleError::invalid(
             "pressure_ratio",
-            format!("after the pressure losses the turbine inlet ({p3:.3} kPa) is not above its exit ({p4:.3} kPa)"),
+            format!(
+                "after the pressure losses the turbine inlet ({:.3} kPa) is not above its exit ({:.3} kPa)",
+                p3.kpa, p4.kpa
+            ),
             format!(
                 "expected a pressure ratio above {:.4} or smaller losses",
-                cfg.pressure_ratio / turbine_ratio
+                cfg.pressure_ratio * p4.kpa / p3.kpa
             ),
         ));
     }
     let section = HotSection {
         combustion: c,
         t3_k: t3,
-        turbine_ratio,
-        reheat: reheat_split(cfg, turbine_ratio)?,
+        ln_turbine_ratio,
+        reheat: reheat_split(cfg, ln_turbine_ratio)?,
         efficiency: cfg.turbine_efficiency,
         basis: cfg.efficiency_basis,
     };
 
     let (hot, h5) = match &regen {
-        None => (section.run(h2)?, None),
+        None => (section.run(h2, None)?, None),
         Some(rg) => {
             let (hot, h5) = regenerate(&section, rg, air, delivery)?;
             (hot, Some(h5))
@@ -158,24 +164,32 @@ pub(crate) fn run<C: Combustion>(cfg: &EngineConfig, c: &C) -> Result<Solved, Cy
     })
 }
 
-/// Expansion ratios around the reheat combustor, if any.
-fn reheat_split(cfg: &EngineConfig, turbine_ratio: f64) -> Result<Option<ReheatSplit>, CycleError> {
+/// Expansion ratios around the reheat combustor, if any, given the
+/// logarithm of the overall turbine expansion ratio.
+fn reheat_split(
+    cfg: &EngineConfig,
+    ln_turbine_ratio: f64,
+) -> Result<Option<ReheatSplit>, CycleError> {
     let Some(rh) = &cfg.reheat else {
         return Ok(None);
     };
-    let available = turbine_ratio * (1.0 - cfg.combustor_pressure_loss);
-    let r_hp = rh.pressure_split.unwrap_or_else(|| turbine_ratio.sqrt());
-    let r_lp = available / r_hp;
-    if !(greater(r_hp, 1.0) && greater(r_lp, 1.0)) {
+    let ln_available = ln_turbine_ratio + (-cfg.combustor_pressure_loss).ln_1p();
+    let r_hp = rh
+        .pressure_split
+        .unwrap_or_else(|| (0.5 * ln_turbine_ratio).exp());
+    let ln_hp = r_hp.ln();
+    let ln_lp = ln_available - ln_hp;
+    if !(greater(ln_hp, 0.0) && greater(ln_lp, 0.0)) {
         return Err(CycleError::invalid(
             "reheat.pressure_split",
             format!("a high-pressure turbine ratio of {r_hp:.4} leaves no expansion for the low-pressure turbine after the reheat combustor's loss"),
-            format!("expected a ratio in (1, {available:.4})"),
+            format!("expected a ratio in (1, {:.4})", ln_available.exp()),
         ));
     }
     Ok(Some(ReheatSplit {
         r_hp,
-        r_lp,
+        ln_hp,
+        ln_lp,
         t_k: rh.temperature_k,
     }))
 }
@@ -206,16 +220,17 @@ fn regenerate<C: Combustion>(
         let air_side = air.enthalpy_kj_per_kg(t4) - h2;
         Ok(rg.effectiveness * air_side.min(gas_side))
     };
-    let first = section.run(h2)?;
+    let first = section.run(h2, None)?;
     let q0 = heat_passed(&first)?;
     if !C::COMPOSITION_FOLLOWS_FUEL {
-        // The turbine gas does not depend on the fuel: q is final.
+        // The turbine gas does not depend on the fuel: q is final, and only
+        // the combustor's fuel energy changes.
         let h5 = h2 + q0;
-        return Ok((section.run(h5)?, h5));
+        return Ok((section.rebase(first, h5)?, h5));
     }
     let (mut x0, mut g0) = (h2, q0);
     let mut x1 = h2 + q0;
-    let mut current = section.run(x1)?;
+    let mut current = section.run(x1, Some(&first))?;
     let mut g1 = h2 + heat_passed(&current)? - x1;
     for _ in 0..60 {
         if g1.abs() <= REGENERATOR_TOLERANCE * x1.abs().max(1.0) {
@@ -229,7 +244,7 @@ fn regenerate<C: Combustion>(
         };
         (x0, g0) = (x1, g1);
         x1 = next;
-        current = section.run(x1)?;
+        current = section.run(x1, Some(&current))?;
         g1 = h2 + heat_passed(&current)? - x1;
     }
     Err(CycleError::NoConvergence { last_change: g1 })

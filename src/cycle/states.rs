@@ -6,6 +6,54 @@ use super::error::CycleError;
 use super::StatePoint;
 use crate::thermo::{GasProperties, ThermoError, STANDARD_PRESSURE_KPA};
 
+/// A pressure and its logarithm relative to the standard pressure,
+/// `ln(p / p°)`, carried along so that each state's entropy costs no
+/// logarithm of its own.
+#[derive(Debug, Clone, Copy)]
+pub(crate) struct Pressure {
+    /// Pressure, kPa.
+    pub kpa: f64,
+    /// ln(p / 101.325 kPa).
+    pub ln_rel: f64,
+}
+
+impl Pressure {
+    /// The pressure `kpa`.
+    pub fn new(kpa: f64) -> Pressure {
+        Pressure {
+            kpa,
+            ln_rel: (kpa / STANDARD_PRESSURE_KPA).ln(),
+        }
+    }
+
+    /// This pressure times a ratio r given with its logarithm.
+    pub fn times(self, ratio: f64, ln_ratio: f64) -> Pressure {
+        Pressure {
+            kpa: self.kpa * ratio,
+            ln_rel: self.ln_rel + ln_ratio,
+        }
+    }
+
+    /// The pressure after a loss of the fraction `loss` of this one.
+    pub fn after_loss(self, loss: f64) -> Pressure {
+        if loss == 0.0 {
+            self
+        } else {
+            self.times(1.0 - loss, (-loss).ln_1p())
+        }
+    }
+
+    /// The pressure upstream of a loss of the fraction `loss` that ends at
+    /// this one.
+    pub fn before_loss(self, loss: f64) -> Pressure {
+        if loss == 0.0 {
+            self
+        } else {
+            self.times(1.0 / (1.0 - loss), -(-loss).ln_1p())
+        }
+    }
+}
+
 /// State points in flow order.
 pub(crate) struct StateTable(pub Vec<StatePoint>);
 
@@ -15,16 +63,23 @@ impl StateTable {
         StateTable(Vec::with_capacity(14))
     }
 
-    /// Record `point` at `p_kpa` on a gas of gas constant `r` kJ/(kg·K):
-    /// `s = s°(T) − R ln(p / p°)`.
-    pub fn push(&mut self, id: &'static str, name: &'static str, point: Point, p_kpa: f64, r: f64) {
+    /// Record `point` at pressure `p` on a gas of gas constant `r`
+    /// kJ/(kg·K): `s = s°(T) − R ln(p / p°)`.
+    pub fn push(
+        &mut self,
+        id: &'static str,
+        name: &'static str,
+        point: Point,
+        p: Pressure,
+        r: f64,
+    ) {
         self.0.push(StatePoint {
             id,
             name,
             temperature_k: point.t_k,
-            pressure_kpa: p_kpa,
+            pressure_kpa: p.kpa,
             enthalpy_kj_per_kg: point.h,
-            entropy_kj_per_kg_k: point.s0 - r * (p_kpa / STANDARD_PRESSURE_KPA).ln(),
+            entropy_kj_per_kg_k: point.s0 - r * p.ln_rel,
         });
     }
 }

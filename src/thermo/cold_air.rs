@@ -50,6 +50,8 @@ impl ColdAir {
 }
 
 impl GasProperties for ColdAir {
+    const USES_GUESS: bool = false;
+
     #[inline]
     fn enthalpy_kj_per_kg(&self, temperature_k: f64) -> f64 {
         self.cp_kj_per_kg_k * temperature_k

@@ -32,8 +32,6 @@ pub struct Mixture {
     poly: Nasa7,
     gas_constant_kj_per_kg_k: f64,
     molar_mass_kg_per_kmol: f64,
-    enthalpy_at_ends: (f64, f64),
-    entropy_at_ends: (f64, f64),
 }
 
 impl Mixture {
@@ -83,10 +81,7 @@ impl Mixture {
         molar.add_entropy_constant(mixing_entropy);
         let gas_constant = UNIVERSAL_GAS_CONSTANT_KJ_PER_KMOL_K / molar_mass;
         let poly = molar.scaled(gas_constant);
-        let (lo, hi) = (MIN_TEMPERATURE_K, MAX_TEMPERATURE_K);
         Mixture {
-            enthalpy_at_ends: (poly.enthalpy(lo), poly.enthalpy(hi)),
-            entropy_at_ends: (poly.standard_entropy(lo), poly.standard_entropy(hi)),
             poly,
             gas_constant_kj_per_kg_k: gas_constant,
             molar_mass_kg_per_kmol: molar_mass,
@@ -140,7 +135,6 @@ impl GasProperties for Mixture {
             value: |t| self.poly.enthalpy(t),
             slope: |t| self.poly.cp(t),
             range_k: (MIN_TEMPERATURE_K, MAX_TEMPERATURE_K),
-            values_at_ends: self.enthalpy_at_ends,
         };
         invert_monotone(&f, enthalpy_kj_per_kg, guess_k)
     }
@@ -155,7 +149,6 @@ impl GasProperties for Mixture {
             value: |t| self.poly.standard_entropy(t),
             slope: |t| self.poly.cp(t) / t,
             range_k: (MIN_TEMPERATURE_K, MAX_TEMPERATURE_K),
-            values_at_ends: self.entropy_at_ends,
         };
         invert_monotone(&f, entropy_kj_per_kg_k, guess_k)
     }

@@ -76,6 +76,11 @@ pub enum ThermoError {
 /// An ideal gas whose properties depend on temperature only (enthalpy) or on
 /// temperature and pressure (entropy), per kilogram of the gas.
 pub trait GasProperties {
+    /// Whether the inverse solves start from their `guess_k` (iterative
+    /// models). A closed-form model sets this false so callers can skip
+    /// computing a guess.
+    const USES_GUESS: bool = true;
+
     /// Specific enthalpy, kJ/kg, at `temperature_k`.
     fn enthalpy_kj_per_kg(&self, temperature_k: f64) -> f64;
     /// Specific entropy at the standard pressure (101.325 kPa), kJ/(kg·K).
@@ -125,17 +130,18 @@ pub trait GasProperties {
 }
 
 /// What an inverse solve inverts: a strictly increasing function of
-/// temperature, its slope, and its values at the ends of the range.
+/// temperature over a range, and its slope.
 pub(crate) struct Monotone<F, D> {
     pub(crate) quantity: &'static str,
     pub(crate) value: F,
     pub(crate) slope: D,
     pub(crate) range_k: (f64, f64),
-    pub(crate) values_at_ends: (f64, f64),
 }
 
 /// Solve `value(T) = target` for T within the range by Newton steps kept
-/// inside a shrinking bracket (bisection when a step would leave it).
+/// inside a shrinking bracket (bisection when a step would leave it). The
+/// function is evaluated at an end of the range only when a Newton step
+/// points beyond it, to tell whether the answer lies outside the data.
 ///
 /// Converges to |ΔT| ≤ 1e-12·T, or to a bracket that narrow at the
 /// (tiny) step where a polynomial changes range. At that step the two ranges
@@ -158,19 +164,11 @@ where
         high_k,
         above,
     };
-    if target.is_nan() {
-        return Err(out_of_range(false));
+    if !target.is_finite() {
+        return Err(out_of_range(target > 0.0));
     }
-    if target < f.values_at_ends.0 {
-        return Err(out_of_range(false));
-    }
-    if target > f.values_at_ends.1 {
-        return Err(out_of_range(true));
-    }
-    // The bracket is widened by a hair so that a Newton step landing exactly
-    // on an end of the range counts as inside it; the answer is clamped back.
-    let (mut a, mut b) = (low_k * (1.0 - 1e-12), high_k * (1.0 + 1e-12));
-    let clamp = |t: f64| t.clamp(low_k, high_k);
+    let (mut a, mut b) = (low_k, high_k);
+    let (mut low_checked, mut high_checked) = (false, false);
     let mut t = if guess_k > a && guess_k < b {
         guess_k
     } else {
@@ -179,7 +177,7 @@ where
     for _ in 0..200 {
         let residual = (f.value)(t) - target;
         if residual == 0.0 {
-            return Ok(clamp(t));
+            return Ok(t);
         }
         if residual > 0.0 {
             b = t;
@@ -187,15 +185,35 @@ where
             a = t;
         }
         let mut next = t - residual / (f.slope)(t);
+        if next >= b && b == high_k && !high_checked {
+            high_checked = true;
+            let at_end = (f.value)(high_k) - target;
+            if at_end < 0.0 {
+                return Err(out_of_range(true));
+            }
+            if at_end == 0.0 {
+                return Ok(high_k);
+            }
+        }
+        if next <= a && a == low_k && !low_checked {
+            low_checked = true;
+            let at_end = (f.value)(low_k) - target;
+            if at_end > 0.0 {
+                return Err(out_of_range(false));
+            }
+            if at_end == 0.0 {
+                return Ok(low_k);
+            }
+        }
         if !(next > a && next < b) {
             next = 0.5 * (a + b);
         }
         if (next - t).abs() <= 1e-12 * t || b - a <= 1e-12 * t {
-            return Ok(clamp(next));
+            return Ok(next);
         }
         t = next;
     }
-    Ok(clamp(t))
+    Ok(t)
 }
 
 #[cfg(test)]
@@ -208,7 +226,6 @@ mod tests {
             value: |t: f64| t + 1e-4 * t * t,
             slope: |t: f64| 1.0 + 2e-4 * t,
             range_k: (200.0, 3000.0),
-            values_at_ends: (200.0 + 4.0, 3000.0 + 900.0),
         }
     }
 
@@ -245,7 +262,6 @@ mod tests {
             value: |t: f64| if t <= 1000.0 { t } else { t + 0.5 },
             slope: |_t: f64| 1.0,
             range_k: (200.0, 3000.0),
-            values_at_ends: (200.0, 3000.5),
         };
         let got = invert_monotone(&f, 1000.25, 400.0).unwrap();
         assert!((got - 1000.0).abs() < 1e-6);

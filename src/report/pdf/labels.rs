@@ -104,6 +104,7 @@ labels! {
     risk_table_mean,
     risk_probability,
     risk_samples,
+    risk_note,
     risk_seed,
     performance,
     state,

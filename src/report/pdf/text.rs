@@ -94,7 +94,7 @@ pub fn wrap_at_most(
     if lines.len() > max_lines.max(1) {
         lines.truncate(max_lines.max(1));
         if let Some(last) = lines.last_mut() {
-            let marked = format!("{last}{ELLIPSIS}{ELLIPSIS}");
+            let marked = format!("{last}{ELLIPSIS}");
             *last = fit(&marked, face, size_pt, width_mm);
         }
     }
@@ -147,5 +147,6 @@ mod tests {
         let lines = wrap_at_most(text, Face::Regular, 9.0, 15.0, 2);
         assert_eq!(lines.len(), 2);
         assert!(lines[1].ends_with(ELLIPSIS), "{lines:?}");
+        assert_eq!(lines[1].matches(ELLIPSIS).count(), 1, "{lines:?}");
     }
 }

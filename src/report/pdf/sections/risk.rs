@@ -82,6 +82,7 @@ pub fn risk(ctx: &Ctx, composer: &mut Composer) {
         Face::Regular,
         0.0,
     );
+    composer.paragraph(&l.risk_note, 9.0, Face::Regular, 0.0);
     let columns = vec![
         Column::left(l.candidate.clone()),
         Column::left(l.figure.clone()),

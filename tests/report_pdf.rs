@@ -325,7 +325,8 @@ fn us_units_print_btu_per_kwh_and_degrees_fahrenheit() {
 #[test]
 fn many_candidates_and_very_long_texts_stay_on_the_page() {
     let mut model = report_support::model(true, true);
-    model.meta.title = "A very long scenario title that goes on and on to test wrapping, ".repeat(4);
+    model.meta.title =
+        "A very long scenario title that goes on and on to test wrapping, ".repeat(4);
     model.meta.prepared_for = "An organisation with an exceptionally long name ".repeat(5);
     let template = model.candidates[2].clone();
     for i in 0..5 {

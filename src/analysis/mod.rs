@@ -1,1 +1,12 @@
-//! Placeholder; the owning change fills this module.
+//! Analysis: each candidate through cycle, operation and ledger, set against
+//! the baseline; sensitivity and risk. Plain typed values in and out.
+
+pub mod compare;
+pub mod engine;
+pub mod evaluate;
+pub mod model;
+pub mod operation;
+pub mod sensitivity;
+pub mod warnings;
+
+pub use model::{build_model, ModelOptions};

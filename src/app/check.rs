@@ -12,7 +12,11 @@ use std::fmt::Write;
 /// scenario is valid; a bad scenario is an input error (exit 1).
 pub fn run(args: &CheckArgs) -> Result<()> {
     let loaded = scenario::load(&args.scenario)?;
-    print!("{}", report(&loaded, Vec::new()));
+    // Solving every candidate also validates what only physics and the
+    // ledger can: an impossible cycle is an input error here too.
+    let study = crate::analysis::compare::run_study(&loaded)?;
+    let extra = crate::analysis::warnings::cycle_warnings(&loaded, &study);
+    print!("{}", report(&loaded, extra));
     Ok(())
 }
 

@@ -1,0 +1,149 @@
+//! One candidate through the whole chain: cycle → a year of operation →
+//! ledger inputs. The ledger itself is generic over its number type, so the
+//! same inputs serve the printed (decimal) ledger and the sampled (`f64`)
+//! one.
+
+use super::engine::{engine_config_of, gas_model_of, solve_error};
+use super::operation::{annual_operation, AnnualOperation};
+use crate::cycle::{self, CycleResult};
+use crate::finance::{
+    self, Capital, CapitalPayment, Carbon, Degradation, EscalatingPrice, FuelPrice, LedgerInputs,
+    Overhaul, Rates, Residual,
+};
+use crate::fuel::Fuel;
+use crate::scenario::{
+    Candidate, LoadedScenario, PriceBasis, RateBasis, ResidualValue, Scenario, Timing,
+};
+use rust_decimal::Decimal;
+
+/// A candidate's solved cycle and its year of operation.
+#[derive(Debug, Clone)]
+pub struct Solved {
+    /// The solved cycle at site conditions, sized to the rated output.
+    pub cycle: CycleResult,
+    /// One full year at new-and-clean performance.
+    pub year: AnnualOperation,
+}
+
+/// Solve a candidate's cycle and its year of operation. The error is the
+/// solver's, for the caller to place.
+pub fn solve(
+    scenario: &Scenario,
+    candidate: &Candidate,
+    fuel: &Fuel,
+) -> Result<Solved, cycle::CycleError> {
+    let config = engine_config_of(candidate, &scenario.site);
+    let result = cycle::solve(&config, &gas_model_of(&candidate.gas_model), fuel)?;
+    let year = annual_operation(
+        &scenario.operation,
+        candidate.net_output_kw,
+        result.heat_rate_kj_per_kwh,
+    );
+    Ok(Solved {
+        cycle: result,
+        year,
+    })
+}
+
+/// Like [`solve`], with a refusal placed at the candidate's key in the file.
+pub fn solve_at(loaded: &LoadedScenario, index: usize, fuel: &Fuel) -> crate::Result<Solved> {
+    let scenario = &loaded.scenario;
+    solve(scenario, &scenario.candidates[index], fuel).map_err(|e| solve_error(loaded, index, &e))
+}
+
+/// The ledger inputs of a candidate whose year of operation is `year`.
+pub fn ledger_inputs(
+    scenario: &Scenario,
+    candidate: &Candidate,
+    fuel: &Fuel,
+    year: &AnnualOperation,
+) -> Result<LedgerInputs<Decimal>, finance::FinanceError> {
+    let e = &scenario.economics;
+    let costs = &candidate.costs;
+    let capital = if costs.construction_schedule.is_empty() {
+        Capital::AtCommercialOperation(candidate.capital_cost)
+    } else {
+        Capital::Schedule(
+            costs
+                .construction_schedule
+                .iter()
+                .map(|(date, fraction)| {
+                    let share: Decimal =
+                        finance::convert_physics_to_money(*fraction, "construction fraction")?;
+                    Ok(CapitalPayment {
+                        date: *date,
+                        amount: candidate.capital_cost * share,
+                    })
+                })
+                .collect::<Result<Vec<_>, finance::FinanceError>>()?,
+        )
+    };
+    let price = if scenario.fuel.price_path.is_empty() {
+        FuelPrice::Escalating {
+            price_per_gj: scenario.fuel.price_per_gj,
+            escalation: scenario.fuel.escalation,
+        }
+    } else {
+        FuelPrice::Path(scenario.fuel.price_path.clone())
+    };
+    Ok(LedgerInputs {
+        commercial_operation: e.commercial_operation,
+        service_life_years: e.service_life_years,
+        rates: Rates {
+            discount_rate: e.discount_rate,
+            basis: match e.rate_basis {
+                RateBasis::Real => finance::RateBasis::Real,
+                RateBasis::Nominal => finance::RateBasis::Nominal,
+            },
+            inflation: e.inflation,
+        },
+        timing: match e.timing {
+            Timing::EndOfYear => finance::Timing::EndOfYear,
+            Timing::MidYear => finance::Timing::MidYear,
+        },
+        capital,
+        operation: finance::Operation {
+            operating_hours: year.operating_hours,
+            energy_mwh: year.energy_mwh,
+            fuel_energy_gj_lhv: year.fuel_energy_gj_lhv,
+            net_output_kw: candidate.net_output_kw,
+        },
+        fuel: finance::Fuel {
+            price,
+            basis: match scenario.fuel.price_basis {
+                PriceBasis::Hhv => finance::PriceBasis::Hhv,
+                PriceBasis::Lhv => finance::PriceBasis::Lhv,
+            },
+            hhv_over_lhv: fuel.hhv_over_lhv(),
+        },
+        carbon: Carbon {
+            co2_kg_per_gj_lhv: fuel.co2_kg_per_gj_lhv(),
+            price_per_tonne: e.carbon_price_per_tonne,
+            escalation: e.carbon_escalation,
+        },
+        fixed_om: EscalatingPrice {
+            price: costs.fixed_om_per_kw_year,
+            escalation: 0.0,
+        },
+        variable_om: EscalatingPrice {
+            price: costs.variable_om_per_mwh,
+            escalation: 0.0,
+        },
+        overhaul: (costs.overhaul_interval_hours > 0.0).then_some(Overhaul {
+            interval_hours: costs.overhaul_interval_hours,
+            cost: costs.overhaul_cost,
+            escalation: 0.0,
+        }),
+        degradation: Degradation {
+            heat_rate_fraction_per_year: costs.degradation_per_year,
+            recoverable_fraction: costs.recoverable_fraction,
+        },
+        residual: Residual {
+            value: match costs.residual_value {
+                ResidualValue::FractionOfCapital(f) => finance::ResidualValue::FractionOfCapital(f),
+                ResidualValue::Amount(a) => finance::ResidualValue::Amount(a),
+            },
+            escalation: 0.0,
+        },
+    })
+}

@@ -1,0 +1,404 @@
+//! Study → report model: the one place where results are chosen, labelled
+//! and rounded for presentation (money to the currency's minor unit with the
+//! finance layer's midpoint rule).
+
+use super::compare::{run_study, CandidateOutcome, Study};
+use super::sensitivity::{rank, RangeSource, Swing};
+use super::warnings::cycle_warnings;
+use crate::finance::{
+    compare_summaries, round_for_presentation, summarize_ledger, FuelPrice, Payback, RowKind,
+    DEFAULT_MINOR_UNIT_DECIMALS,
+};
+use crate::report::model::*;
+use crate::scenario::{engineering_warnings, LoadedScenario, PriceBasis, RateBasis, Timing};
+use rust_decimal::Decimal;
+
+/// What to include in the model.
+#[derive(Debug, Clone)]
+pub struct ModelOptions {
+    /// Display unit system.
+    pub units: Units,
+    /// Include the sensitivity ranking in the model's tables (the briefing's
+    /// key assumptions are always computed).
+    pub sensitivity: bool,
+}
+
+fn money(value: Decimal) -> Decimal {
+    round_for_presentation(value, DEFAULT_MINOR_UNIT_DECIMALS)
+}
+
+fn payback_view(p: Payback) -> PaybackView {
+    match p {
+        Payback::Years(y) => PaybackView::Years(y),
+        Payback::NeverWithinLife => PaybackView::NeverWithinLife,
+    }
+}
+
+fn ledger_rows(outcome: &CandidateOutcome) -> Vec<LedgerRowView> {
+    outcome
+        .ledger
+        .rows
+        .iter()
+        .map(|r| LedgerRowView {
+            year: r.year,
+            period_start: r.period_start.to_string(),
+            period_end: r.period_end.to_string(),
+            operating_hours: r.operating_hours,
+            energy_mwh: r.energy_mwh,
+            fuel_energy_gj: r.fuel_energy_gj,
+            fuel_cost: money(r.fuel_cost),
+            carbon_cost: money(r.carbon_cost),
+            fixed_om: money(r.fixed_om),
+            variable_om: money(r.variable_om),
+            overhaul: money(r.overhaul),
+            capital: money(r.capital),
+            residual: money(r.residual),
+            total: money(r.total),
+            discount_factor: crate::finance::Money::to_f64(r.discount_factor),
+            present_value: money(r.present_value),
+        })
+        .collect()
+}
+
+/// Cumulative discounted savings against the baseline at the end of each
+/// row (rows are matched by position: both ledgers share one calendar).
+fn cumulative(outcome: &CandidateOutcome, baseline: &CandidateOutcome) -> Vec<CumulativePoint> {
+    let mut running = Decimal::ZERO;
+    outcome
+        .ledger
+        .rows
+        .iter()
+        .zip(baseline.ledger.rows.iter())
+        .map(|(c, b)| {
+            running += b.present_value - c.present_value;
+            CumulativePoint {
+                years_from_start: if c.kind == RowKind::Capital {
+                    c.cash_time_years
+                } else {
+                    c.time_end_years
+                },
+                year: c.year,
+                savings: money(running),
+            }
+        })
+        .collect()
+}
+
+/// Break-even premium of each candidate against first-year fuel price, from
+/// a quarter to twice the scenario's price, by re-running both ledgers with
+/// every fuel price scaled.
+fn fuel_price_curves(loaded: &LoadedScenario, study: &Study) -> FuelPriceCurves {
+    const MULTIPLIERS: [i64; 8] = [25, 50, 75, 100, 125, 150, 175, 200];
+    let scenario_price = loaded.scenario.fuel.price_per_gj;
+    let scaled = |price: &FuelPrice<Decimal>, m: Decimal| match price {
+        FuelPrice::Escalating {
+            price_per_gj,
+            escalation,
+        } => FuelPrice::Escalating {
+            price_per_gj: *price_per_gj * m,
+            escalation: *escalation,
+        },
+        FuelPrice::Path(path) => FuelPrice::Path(path.iter().map(|(y, p)| (*y, *p * m)).collect()),
+    };
+    let summary_at = |o: &CandidateOutcome, m: Decimal| {
+        let mut inputs = o.inputs.clone();
+        inputs.fuel.price = scaled(&inputs.fuel.price, m);
+        summarize_ledger(&inputs).ok()
+    };
+    let baseline = &study.outcomes[study.baseline_index];
+    let series = study
+        .outcomes
+        .iter()
+        .enumerate()
+        .filter(|(i, _)| *i != study.baseline_index)
+        .map(|(i, o)| FuelPriceSeries {
+            candidate_id: loaded.scenario.candidates[i].id.clone(),
+            points: MULTIPLIERS
+                .iter()
+                .filter_map(|pct| {
+                    let m = Decimal::new(*pct, 2);
+                    let (c, b) = (summary_at(o, m)?, summary_at(baseline, m)?);
+                    let premium = compare_summaries(&c, &b).ok()?.break_even_premium?;
+                    Some((money(scenario_price * m), money(premium)))
+                })
+                .collect(),
+        })
+        .collect();
+    FuelPriceCurves {
+        scenario_price_per_gj: money(scenario_price),
+        series,
+    }
+}
+
+fn candidate_view(loaded: &LoadedScenario, study: &Study, index: usize) -> CandidateView {
+    let candidate = &loaded.scenario.candidates[index];
+    let outcome = &study.outcomes[index];
+    let baseline = &study.outcomes[study.baseline_index];
+    let cycle = &outcome.solved.cycle;
+    let flows = cycle.flows.as_ref();
+    let versus = outcome.versus_baseline.as_ref();
+    let savings = versus.map(|v| &v.savings);
+    let pv = &outcome.ledger.summary.present_value;
+    let break_even = savings.and_then(|s| s.break_even_premium).map(money);
+    let asked = savings.map(|s| money(s.premium_asked));
+    let verdict = match (break_even, asked) {
+        (Some(be), Some(ask)) => Verdict {
+            kind: if be >= ask {
+                VerdictKind::WorthPremium
+            } else {
+                VerdictKind::NotWorthPremium
+            },
+            margin: be - ask,
+        },
+        _ => Verdict {
+            kind: VerdictKind::Baseline,
+            margin: Decimal::ZERO,
+        },
+    };
+    let [compressor, turbine, regenerator] = outcome.value_per_point;
+    CandidateView {
+        id: candidate.id.clone(),
+        label: candidate.label.clone(),
+        is_baseline: index == study.baseline_index,
+        gas_model: cycle.gas_model.to_string(),
+        performance: PerformanceView {
+            net_output_kw: candidate.net_output_kw,
+            heat_rate_kj_per_kwh: cycle.heat_rate_kj_per_kwh,
+            heat_rate_btu_per_kwh: cycle.heat_rate_btu_per_kwh,
+            thermal_efficiency: cycle.thermal_efficiency,
+            exhaust_temperature_k: cycle.exhaust_temperature_k,
+            air_flow_kg_per_s: flows.map_or(0.0, |f| f.air_flow_kg_per_s),
+            fuel_flow_kg_per_s: flows.map_or(0.0, |f| f.fuel_flow_kg_per_s),
+            co2_kg_per_mwh: cycle.co2_kg_per_mwh.unwrap_or(0.0),
+        },
+        cycle: CycleView {
+            states: cycle
+                .states
+                .iter()
+                .map(|s| StateRow {
+                    id: s.id.to_string(),
+                    name: s.name.to_string(),
+                    temperature_k: s.temperature_k,
+                    pressure_kpa: s.pressure_kpa,
+                    enthalpy_kj_per_kg: s.enthalpy_kj_per_kg,
+                    entropy_kj_per_kg_k: s.entropy_kj_per_kg_k,
+                })
+                .collect(),
+            compressor_work_kj_per_kg: cycle.compressor_work_kj_per_kg,
+            turbine_work_kj_per_kg: cycle.turbine_work_kj_per_kg,
+            net_work_kj_per_kg: cycle.net_work_kj_per_kg,
+            heat_input_kj_per_kg: cycle.heat_input_kj_per_kg,
+            heat_rejected_kj_per_kg: cycle.heat_rejected_kj_per_kg,
+            back_work_ratio: cycle.back_work_ratio,
+            energy_balance_residual_kj_per_kg: cycle.energy_balance_residual_kj_per_kg,
+            fuel_air_ratio: cycle.fuel_air_ratio,
+        },
+        economics: EconomicsView {
+            capital_cost: money(candidate.capital_cost),
+            lifecycle_cost: money(outcome.ledger.summary.lifecycle_cost),
+            levelized_cost_per_mwh: money(
+                outcome
+                    .ledger
+                    .summary
+                    .levelized_cost_per_mwh()
+                    .unwrap_or_default(),
+            ),
+            net_savings_vs_baseline: savings.map(|s| money(s.net_savings)),
+            break_even_premium: break_even,
+            premium_asked: asked,
+            savings_to_investment_ratio: savings
+                .and_then(|s| s.savings_to_investment)
+                .map(crate::finance::Money::to_f64),
+            adjusted_irr: savings.and_then(|s| s.adjusted_irr),
+            simple_payback: versus.map_or(PaybackView::NotApplicable, |v| {
+                payback_view(v.simple_payback)
+            }),
+            discounted_payback: versus.map_or(PaybackView::NotApplicable, |v| {
+                payback_view(v.discounted_payback)
+            }),
+            break_even_fuel_price: savings
+                .and_then(|s| s.break_even_fuel_price)
+                .map(|b| money(loaded.scenario.fuel.price_per_gj * b.multiplier)),
+            value_per_point: ValuePerPoint {
+                compressor_efficiency: money(compressor.unwrap_or_default()),
+                turbine_efficiency: money(turbine.unwrap_or_default()),
+                regenerator_effectiveness: regenerator.map(money),
+            },
+            value_per_kj_per_kwh: money(outcome.bid.pv_per_kj_per_kwh.unwrap_or_default()),
+            value_per_kw: money(outcome.bid.pv_per_kw_net_output),
+        },
+        verdict,
+        cost_breakdown: CostBreakdown {
+            capital: money(pv.capital),
+            fuel: money(pv.fuel_cost),
+            operation_and_maintenance: money(pv.fixed_om + pv.variable_om),
+            overhauls: money(pv.overhaul),
+            carbon: money(pv.carbon_cost),
+            residual: money(pv.residual),
+        },
+        cumulative_savings: if index == study.baseline_index {
+            Vec::new()
+        } else {
+            cumulative(outcome, baseline)
+        },
+        ledger: ledger_rows(outcome),
+    }
+}
+
+/// Plain-words name of a scenario key for the briefing page.
+pub fn key_label(key: &str) -> String {
+    let (who, field) = match key.split_once("].") {
+        Some((head, field)) => (head.trim_start_matches("candidate[").to_string(), field),
+        None => (String::new(), key.rsplit('.').next().unwrap_or(key)),
+    };
+    let words = field.replace(['_', '.'], " ");
+    if who.is_empty() {
+        words
+    } else {
+        format!("{words} ({who})")
+    }
+}
+
+fn show(key: &str, value: f64) -> String {
+    let fraction_like = key.contains("rate")
+        || key.contains("escalation")
+        || key.contains("efficiency")
+        || key.contains("effectiveness")
+        || key.contains("loss")
+        || key.contains("fraction");
+    if key == "fuel.price" {
+        format!("{value:.3} per GJ")
+    } else if key.ends_with("hours_per_year") {
+        format!("{value:.0} h")
+    } else if fraction_like && value.abs() <= 2.0 {
+        format!("{:.2} %", value * 100.0)
+    } else {
+        format!("{value:.4}")
+    }
+}
+
+fn sensitivity_bars(swings: &[Swing]) -> Vec<SensitivityBar> {
+    swings
+        .iter()
+        .flat_map(|s| {
+            s.deltas.iter().map(move |(id, low, high)| SensitivityBar {
+                candidate_id: id.clone(),
+                key: s.key.clone(),
+                low_value: show(&s.key, s.low),
+                high_value: show(&s.key, s.high),
+                default_range: s.source == RangeSource::DefaultTwentyPercent,
+                delta_at_low: money(*low),
+                delta_at_high: money(*high),
+            })
+        })
+        .collect()
+}
+
+/// Build the report model of a loaded scenario.
+pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Result<Model> {
+    let scenario = &loaded.scenario;
+    let study = run_study(loaded)?;
+    let candidates: Vec<CandidateView> = (0..scenario.candidates.len())
+        .map(|i| candidate_view(loaded, &study, i))
+        .collect();
+    let preferred = candidates
+        .iter()
+        .min_by_key(|c| c.economics.lifecycle_cost)
+        .ok_or_else(|| crate::Error::Internal("a scenario without candidates".into()))?;
+    let decision = Decision {
+        preferred_id: preferred.id.clone(),
+        preferred_label: preferred.label.clone(),
+        preferred_is_baseline: preferred.is_baseline,
+        break_even_premium: preferred.economics.break_even_premium.unwrap_or_default(),
+        premium_asked: preferred.economics.premium_asked.unwrap_or_default(),
+        net_savings: preferred
+            .economics
+            .net_savings_vs_baseline
+            .unwrap_or_default(),
+    };
+    let swings = rank(loaded, &study)?;
+    let key_assumptions = swings
+        .iter()
+        .map(|s| KeyAssumption {
+            key: s.key.clone(),
+            label: key_label(&s.key),
+            base_value: show(&s.key, s.base),
+            swing: money(s.magnitude()),
+        })
+        .collect();
+    let mut warnings = engineering_warnings(scenario);
+    warnings.extend(cycle_warnings(loaded, &study));
+    let e = &scenario.economics;
+    let mut gas_models: Vec<String> = candidates.iter().map(|c| c.gas_model.clone()).collect();
+    gas_models.dedup();
+    Ok(Model {
+        meta: Meta {
+            title: scenario.meta.title.clone(),
+            prepared_for: scenario.meta.prepared_for.clone(),
+            prepared_by: scenario.meta.prepared_by.clone(),
+            date: scenario.meta.date.to_string(),
+            currency: scenario.meta.currency.clone(),
+            baseline_id: scenario.meta.baseline.clone(),
+            scenario_file: loaded.file_label.clone(),
+            scenario_sha256: loaded.sha256_hex.clone(),
+            brayfin_version: env!("CARGO_PKG_VERSION").to_string(),
+            generated_at: chrono::Utc::now().to_rfc3339_opts(chrono::SecondsFormat::Secs, true),
+            units: options.units,
+            site_name: scenario.site.name.clone(),
+        },
+        decision,
+        key_assumptions,
+        inputs: loaded
+            .inputs
+            .iter()
+            .map(|i| InputView {
+                key: i.key.clone(),
+                value: i.value_text.clone(),
+                unit: i.unit.clone(),
+                source: i.source.clone(),
+            })
+            .collect(),
+        applied_defaults: loaded
+            .applied_defaults
+            .iter()
+            .map(|d| DefaultView {
+                key: d.key.clone(),
+                value: d.value.clone(),
+            })
+            .collect(),
+        warnings,
+        method: MethodView {
+            gas_models,
+            rate_basis: match e.rate_basis {
+                RateBasis::Real => "real",
+                RateBasis::Nominal => "nominal",
+            }
+            .to_string(),
+            discount_rate: e.discount_rate,
+            inflation: e.inflation,
+            timing: match e.timing {
+                Timing::EndOfYear => "end-of-year",
+                Timing::MidYear => "mid-year",
+            }
+            .to_string(),
+            service_life_years: e.service_life_years,
+            fuel_price_basis: match scenario.fuel.price_basis {
+                PriceBasis::Hhv => "HHV",
+                PriceBasis::Lhv => "LHV",
+            }
+            .to_string(),
+            hhv_over_lhv: study.fuel.hhv_over_lhv(),
+            rounding: "money rounded once, for presentation, to the minor unit; midpoints to \
+                       even (banker's rounding)"
+                .to_string(),
+        },
+        fuel_price_curves: fuel_price_curves(loaded, &study),
+        sensitivity: if options.sensitivity {
+            sensitivity_bars(&swings)
+        } else {
+            Vec::new()
+        },
+        risk: None,
+        candidates,
+    })
+}

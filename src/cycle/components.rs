@@ -113,13 +113,14 @@ fn stage<G: GasProperties>(
         h: gas.enthalpy_kj_per_kg(t_ideal),
         s0: s0_ideal,
     };
-    let guess = match previous {
-        Some(p) => p.actual.t_k,
-        None => inlet.t_k + (t_ideal - inlet.t_k) * factor,
-    };
     let actual = match basis {
         EfficiencyBasis::Isentropic => {
             let h = inlet.h + (ideal.h - inlet.h) * factor;
+            let guess = match previous {
+                Some(p) => p.actual.t_k,
+                None if G::USES_GUESS => t_ideal + (h - ideal.h) / gas.cp_kj_per_kg_k(t_ideal),
+                None => 0.0,
+            };
             let t_k = gas.temperature_from_enthalpy(h, guess)?;
             Point {
                 t_k,
@@ -129,6 +130,10 @@ fn stage<G: GasProperties>(
         }
         EfficiencyBasis::Polytropic => {
             let s0 = inlet.s0 + ds_ideal * factor;
+            let guess = match previous {
+                Some(p) => p.actual.t_k,
+                None => inlet.t_k + (t_ideal - inlet.t_k) * factor,
+            };
             let t_k = gas.temperature_from_standard_entropy(s0, guess)?;
             Point {
                 t_k,

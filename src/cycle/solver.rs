@@ -100,7 +100,7 @@ pub(crate) fn run<C: Combustion>(cfg: &EngineConfig, c: &C) -> Result<Solved, Cy
     };
     if let Some(h5) = h5 {
         let t5 = air
-            .temperature_from_enthalpy(h5, t2)
+            .temperature_from_enthalpy(h5, t2 + (h5 - h2) / air.cp_kj_per_kg_k(t2))
             .map_err(data_range("regenerator.effectiveness", "5"))?;
         let point = Point {
             t_k: t5,
@@ -117,9 +117,10 @@ pub(crate) fn run<C: Combustion>(cfg: &EngineConfig, c: &C) -> Result<Solved, Cy
         None => last,
         Some(h5) => {
             let h6 = last.h - (h5 - h2) / m_exhaust;
+            let guess = last.t_k - (last.h - h6) / exit.gas.cp_kj_per_kg_k(last.t_k);
             let t6 = exit
                 .gas
-                .temperature_from_enthalpy(h6, t2)
+                .temperature_from_enthalpy(h6, guess)
                 .map_err(data_range("regenerator.effectiveness", "6"))?;
             let point = Point {
                 t_k: t6,

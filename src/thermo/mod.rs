@@ -143,7 +143,8 @@ pub(crate) struct Monotone<F, D> {
 /// function is evaluated at an end of the range only when a Newton step
 /// points beyond it, to tell whether the answer lies outside the data.
 ///
-/// Converges to |ΔT| ≤ 1e-12·T, or to a bracket that narrow at the
+/// Stops after a Newton step below 1e-9·T (leaving an error near 1e-15·T),
+/// or at a bracket narrower than 1e-12·T at the
 /// (tiny) step where a polynomial changes range. At that step the two ranges
 /// of a fit disagree slightly (for air, by about 1e-4 K in temperature for
 /// the same enthalpy), so an inverse there is unique only to that amount.
@@ -208,7 +209,10 @@ where
         if !(next > a && next < b) {
             next = 0.5 * (a + b);
         }
-        if (next - t).abs() <= 1e-12 * t || b - a <= 1e-12 * t {
+        // Newton converges quadratically: once a step is below 1e-9·T the
+        // error left after taking it is of order (1e-9·T)²·|h''/2h'|, below
+        // 1e-15·T for these smooth polynomials.
+        if (next - t).abs() <= 1e-9 * t || b - a <= 1e-12 * t {
             return Ok(next);
         }
         t = next;

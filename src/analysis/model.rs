@@ -23,8 +23,12 @@ pub struct ModelOptions {
     pub sensitivity: bool,
 }
 
+/// Money for presentation: rounded once to the minor unit and always
+/// written with its two decimals (`"0.00"`, not `"0"`).
 fn money(value: Decimal) -> Decimal {
-    round_for_presentation(value, DEFAULT_MINOR_UNIT_DECIMALS)
+    let mut rounded = round_for_presentation(value, DEFAULT_MINOR_UNIT_DECIMALS);
+    rounded.rescale(DEFAULT_MINOR_UNIT_DECIMALS);
+    rounded
 }
 
 fn payback_view(p: Payback) -> PaybackView {

@@ -79,14 +79,27 @@ pub fn summary(written: &Written) -> String {
     )
 }
 
-/// Run `brayfin report`. Until the analysis that fills the report model
-/// lands, this checks the flags, the templates and the scenario, then says
-/// what is missing.
+/// The display units of the model for the `--units` flag.
+fn units(arg: crate::cli::UnitSystem) -> crate::report::model::Units {
+    match arg {
+        crate::cli::UnitSystem::Si => crate::report::model::Units::Si,
+        crate::cli::UnitSystem::Us => crate::report::model::Units::Us,
+    }
+}
+
+/// Run `brayfin report`: check the flags and templates first (cheap), then
+/// load the scenario, build the model with the sensitivity ranking, render,
+/// write, and print where and how many pages.
 pub fn run(args: &ReportArgs) -> Result<()> {
-    let _output = output_path(&args.scenario, args.output.as_deref())?;
-    let _wording = wording(args.templates.as_deref())?;
-    crate::scenario::load(&args.scenario)?;
-    Err(Error::Internal(
-        "`report` needs the analysis that builds the report model, which is not built yet".into(),
-    ))
+    let output = output_path(&args.scenario, args.output.as_deref())?;
+    let wording = wording(args.templates.as_deref())?;
+    let loaded = crate::scenario::load(&args.scenario)?;
+    let options = crate::analysis::ModelOptions {
+        units: units(args.units),
+        sensitivity: true,
+    };
+    let model = crate::analysis::build_model(&loaded, &options)?;
+    let written = write_report(&model, paper(args.paper), wording, &output, &args.scenario)?;
+    println!("{}", summary(&written));
+    Ok(())
 }

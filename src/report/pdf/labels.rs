@@ -142,6 +142,7 @@ labels! {
     no_warnings,
     ledger,
     ledger_note,
+    continued,
     ledger_year,
     ledger_hours,
     ledger_energy,

@@ -258,6 +258,19 @@ pub fn draw_table(
     rows: &[Vec<String>],
     style: &TableStyle,
 ) {
+    draw_table_continued(composer, columns, rows, style, None);
+}
+
+/// As [`draw_table`]; on every page the table continues onto, `caption`
+/// (if any) is set above the repeated header, so a reader of that page
+/// knows whose table it is.
+pub fn draw_table_continued(
+    composer: &mut Composer,
+    columns: &[Column],
+    rows: &[Vec<String>],
+    style: &TableStyle,
+    caption: Option<&str>,
+) {
     let available = composer.content_box().width_mm;
     let layout = Layout {
         columns,
@@ -286,6 +299,9 @@ pub fn draw_table(
         let height = layout.row_height(lines);
         if composer.remaining_mm() < height {
             composer.new_page(composer.orientation());
+            if let Some(caption) = caption {
+                composer.paragraph(caption, style.size_pt + 1.0, Face::Bold, 0.0);
+            }
             layout.draw_header(composer);
         }
         let rect = composer.reserve(height);

@@ -6,7 +6,7 @@ use crate::report::format;
 use crate::report::model::LedgerRowView;
 use crate::report::pdf::document::{Composer, Orientation};
 use crate::report::pdf::fonts::Face;
-use crate::report::pdf::table::{draw_table, Column, TableStyle};
+use crate::report::pdf::table::{draw_table_continued, Column, TableStyle};
 
 fn row(r: &LedgerRowView) -> Vec<String> {
     let m = |v| format::grouped(v, 0);
@@ -61,6 +61,7 @@ pub fn ledger(ctx: &Ctx, composer: &mut Composer) {
         }
         composer.heading(&c.label, 2, 30.0);
         let rows: Vec<Vec<String>> = c.ledger.iter().map(row).collect();
-        draw_table(composer, &columns, &rows, &style);
+        let caption = format!("{} ({})", c.label, l.continued);
+        draw_table_continued(composer, &columns, &rows, &style, Some(&caption));
     }
 }

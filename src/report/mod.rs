@@ -10,10 +10,10 @@ pub trait Renderer {
     fn render(&self, model: &model::Model) -> crate::Result<Vec<u8>>;
 }
 
+pub mod charts;
 pub mod csv;
 pub mod format;
 pub mod json;
-pub mod table;
-pub mod charts;
 pub mod pdf;
+pub mod table;
 pub mod wording;

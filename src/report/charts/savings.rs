@@ -41,10 +41,14 @@ pub fn savings_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Savin
     if series.is_empty() {
         return None;
     }
-    let xs = series
+    let xs: Vec<f64> = series
         .iter()
-        .flat_map(|c| c.cumulative_savings.iter().map(|p| p.years_from_start));
-    let x_max = xs.fold(1.0f64, f64::max);
+        .flat_map(|c| c.cumulative_savings.iter().map(|p| p.years_from_start))
+        .collect();
+    let x_max = xs.iter().copied().fold(1.0f64, f64::max);
+    // Capital paid during construction sits before commercial operation
+    // (negative years); the axis starts there so no point falls outside it.
+    let x_min = xs.iter().copied().fold(0.0f64, f64::min);
     let ys: Vec<f64> = series
         .iter()
         .flat_map(|c| c.cumulative_savings.iter().map(|p| money_f64(p.savings)))
@@ -55,7 +59,7 @@ pub fn savings_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Savin
     let money = MoneyScale::for_magnitude(y_min.abs().max(y_max.abs()));
     let currency = &model.meta.currency;
 
-    let x_ticks = tight_ticks(0.0, x_max, 7, 0.0);
+    let x_ticks = tight_ticks(x_min, x_max, 7, 0.0);
     let y_ticks = tight_ticks(y_min, y_max, 6, 0.06);
     let x_axis = Axis::numeric(format!("{}, years", labels.years_axis), &x_ticks, 1.0);
     let y_axis = Axis::numeric(

@@ -11,8 +11,10 @@
 //! (savings-to-investment ratio), E1057 (adjusted internal rate of return),
 //! E1074 (net savings) and E1121 (payback).
 
+mod bid;
 mod calendar;
 mod chain;
+mod compare;
 mod degradation;
 mod engine;
 mod error;
@@ -21,11 +23,15 @@ mod inputs;
 mod ledger;
 mod money;
 mod operating;
+mod payback;
 mod price_path;
+mod rate_of_return;
 mod rates;
 mod validate;
 
+pub use bid::{bid_factors, BidFactors, CapacityValue};
 pub use calendar::{years_between, Calendar, Period, MAX_SERVICE_LIFE_YEARS};
+pub use compare::{compare_ledgers, compare_summaries, BreakEvenFuelPrice, Comparison, Savings};
 pub use engine::{build_ledger, summarize_ledger};
 pub use error::FinanceError;
 pub use inputs::{
@@ -37,4 +43,6 @@ pub use money::{
     convert_physics_to_money, round_for_presentation, Money, DEFAULT_MINOR_UNIT_DECIMALS,
     FACTOR_DECIMALS, MIDPOINT_RULE, PHYSICS_DECIMALS,
 };
+pub use payback::{payback, Payback, PaybackKind};
+pub use rate_of_return::{internal_rate_of_return, rate_of_return};
 pub use rates::{nominal_from_real, real_from_nominal, RateBasis, Rates, Timing};

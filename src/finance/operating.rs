@@ -11,6 +11,12 @@ use super::price_path::resolve_price_path;
 use super::rates::Timing;
 use super::FinanceError;
 
+const FUEL_GJ: &str = "fuel energy (GJ on the price basis)";
+const CO2_TONNES: &str = "CO2 emitted (t)";
+const KW_YEARS: &str = "net output (kW-years)";
+const ENERGY_MWH: &str = "energy (MWh)";
+const OVERHAULS: &str = "overhauls";
+
 /// Present values accumulated over the operating rows.
 pub(crate) struct OperatingPart<M: Money> {
     /// Present value of each operating stream (capital and residual zero).
@@ -33,43 +39,120 @@ impl<M: Money> Escalated<M> {
         Escalated { base, chain }
     }
 
-    /// Move to the next cash time and return the price there.
-    fn advance(
+    /// Move to the next cash time; return the base price and the escalation
+    /// factor there.
+    fn advance(&mut self, step_years: f64) -> (M, f64) {
+        match &mut self.chain {
+            None => (self.base, 1.0),
+            Some(chain) => (self.base, chain.advance(step_years)),
+        }
+    }
+}
+
+/// The fuel stream: escalating from a base price, or a price per year.
+enum FuelStream<M: Money> {
+    Escalating(Stream<M>),
+    Path {
+        first_year: i32,
+        prices: Vec<M>,
+        present_value: M,
+    },
+}
+
+impl<M: Money> FuelStream<M> {
+    fn cost(
         &mut self,
+        quantity: f64,
         step_years: f64,
-        stream: &'static str,
+        discount: (f64, M),
         year: i32,
     ) -> Result<M, FinanceError> {
-        match &mut self.chain {
-            None => Ok(self.base),
-            Some(chain) => {
-                let escalation: M = factor(chain.advance(step_years), stream, year)?;
-                mul(self.base, escalation, stream, year)
+        match self {
+            FuelStream::Escalating(stream) => stream.cost(quantity, step_years, discount.0, year),
+            FuelStream::Path {
+                first_year,
+                prices,
+                present_value,
+            } => {
+                let price = usize::try_from(year - *first_year)
+                    .ok()
+                    .and_then(|index| prices.get(index).copied())
+                    .ok_or(FinanceError::PricePathMissingYear {
+                        year,
+                        first: *first_year,
+                        last: *first_year + prices.len() as i32 - 1,
+                    })?;
+                let cost = priced(price, quantity, FUEL_GJ, year)?;
+                let discounted = mul(cost, discount.1, FUEL_GJ, year)?;
+                *present_value = add(*present_value, discounted, FUEL_GJ, year)?;
+                Ok(cost)
             }
         }
     }
-}
 
-/// Where the fuel price of each row comes from.
-enum FuelPrices<M> {
-    Escalating(Escalated<M>),
-    Path { first_year: i32, prices: Vec<M> },
-}
-
-impl<M: Money> FuelPrices<M> {
-    fn advance(&mut self, step_years: f64, year: i32) -> Result<M, FinanceError> {
+    fn present_value(&self, year: i32) -> Result<M, FinanceError> {
         match self {
-            FuelPrices::Escalating(price) => price.advance(step_years, "fuel price", year),
-            FuelPrices::Path { first_year, prices } => usize::try_from(year - *first_year)
-                .ok()
-                .and_then(|index| prices.get(index).copied())
-                .ok_or(FinanceError::PricePathMissingYear {
-                    year,
-                    first: *first_year,
-                    last: *first_year + prices.len() as i32 - 1,
-                }),
+            FuelStream::Escalating(stream) => stream.present_value(year),
+            FuelStream::Path { present_value, .. } => Ok(*present_value),
         }
     }
+}
+
+/// One cost stream over the rows: its base-date price and the sum of its
+/// quantity × escalation × discount factor (physics in `f64`).
+///
+/// A row's cost is `price × (quantity × escalation)`: the escalation factor
+/// is dimensionless, so it joins the physical quantity in `f64` and the
+/// product crosses into money once, at [`convert_physics_to_money`]; the
+/// multiplication by the price is then exact. The stream's present value is
+/// `price × Σ quantity × escalation × discount`, priced once at the end. The
+/// streams' present values add up to the lifecycle cost (the sum of the
+/// rows' `total × discount_factor`) within about 1e-12 relative.
+struct Stream<M> {
+    name: &'static str,
+    price: Escalated<M>,
+    discounted_quantity: f64,
+}
+
+impl<M: Money> Stream<M> {
+    fn new(name: &'static str, price: M, escalation: f64) -> Self {
+        Stream {
+            name,
+            price: Escalated::new(price, escalation),
+            discounted_quantity: 0.0,
+        }
+    }
+
+    /// Cost of `quantity` in the row of `year`, the price escalated by
+    /// `step_years` since the previous row.
+    fn cost(
+        &mut self,
+        quantity: f64,
+        step_years: f64,
+        discount: f64,
+        year: i32,
+    ) -> Result<M, FinanceError> {
+        let (price, escalation) = self.price.advance(step_years);
+        let weighted = quantity * escalation;
+        self.discounted_quantity += weighted * discount;
+        priced(price, weighted, self.name, year)
+    }
+
+    /// Present value of the stream over all rows.
+    fn present_value(&self, year: i32) -> Result<M, FinanceError> {
+        priced(self.price.base, self.discounted_quantity, self.name, year)
+    }
+}
+
+/// `price × quantity`, the quantity converted at the one crossing.
+fn priced<M: Money>(
+    price: M,
+    quantity: f64,
+    stream: &'static str,
+    year: i32,
+) -> Result<M, FinanceError> {
+    let quantity: M = convert_physics_to_money(quantity, stream)?;
+    mul(price, quantity, stream, year)
 }
 
 /// Time at which a period's cash is counted, and the step to it from the
@@ -99,28 +182,29 @@ pub(crate) fn operating_rows<M: Money>(
         overhaul.map(|o| o.interval_hours),
     );
     let (first_year, last_year) = calendar.operating_years();
-    let mut fuel_price = match &inputs.fuel.price {
+    let mut fuel = match &inputs.fuel.price {
         FuelPrice::Escalating {
             price_per_gj,
             escalation,
-        } => FuelPrices::Escalating(Escalated::new(*price_per_gj, *escalation)),
-        FuelPrice::Path(path) => FuelPrices::Path {
+        } => FuelStream::Escalating(Stream::new(FUEL_GJ, *price_per_gj, *escalation)),
+        FuelPrice::Path(path) => FuelStream::Path {
             first_year,
             prices: resolve_price_path(path, first_year, last_year)?,
+            present_value: M::ZERO,
         },
     };
     let fuel_basis_factor = match inputs.fuel.basis {
         PriceBasis::Hhv => inputs.fuel.hhv_over_lhv,
         PriceBasis::Lhv => 1.0,
     };
-    let mut carbon_price = Escalated::new(inputs.carbon.price_per_tonne, inputs.carbon.escalation);
-    let mut fixed_price = Escalated::new(inputs.fixed_om.price, inputs.fixed_om.escalation);
-    let mut variable_price =
-        Escalated::new(inputs.variable_om.price, inputs.variable_om.escalation);
-    let mut overhaul_cost = overhaul.map(|o| Escalated::new(o.cost, o.escalation));
+    let carbon = &inputs.carbon;
+    let mut carbon_cost = Stream::new(CO2_TONNES, carbon.price_per_tonne, carbon.escalation);
+    let mut fixed_om = Stream::new(KW_YEARS, inputs.fixed_om.price, inputs.fixed_om.escalation);
+    let variable = &inputs.variable_om;
+    let mut variable_om = Stream::new(ENERGY_MWH, variable.price, variable.escalation);
+    let mut overhauls = overhaul.map(|o| Stream::new(OVERHAULS, o.cost, o.escalation));
     let mut discount = FactorChain::discount(inputs.rates.discount_rate);
 
-    let mut pv = StreamTotals::<M>::ZERO;
     let mut rows_present_value = M::ZERO;
     let mut pv_energy_mwh = 0.0;
     let mut previous_fraction = None;
@@ -142,86 +226,31 @@ pub(crate) fn operating_rows<M: Money>(
         let overhaul_count = wear.overhauls_between(from_hours, to_hours, index == last_index);
 
         // Quantities meet prices.
-        let fuel_gj: M = convert_physics_to_money(
+        let discount_value = discount.advance(step);
+        let discount_factor: M = factor(discount_value, "discount factor", year)?;
+        let fuel_cost = fuel.cost(
             fuel_energy_gj * fuel_basis_factor,
-            "fuel energy (GJ on the price basis)",
-        )?;
-        let co2_tonnes: M = convert_physics_to_money(
-            fuel_energy_gj * inputs.carbon.co2_kg_per_gj_lhv / 1000.0,
-            "CO2 emitted (t)",
-        )?;
-        let kw_years: M =
-            convert_physics_to_money(operation.net_output_kw * fraction, "net output (kW-years)")?;
-        let energy: M = convert_physics_to_money(energy_mwh, "energy (MWh)")?;
-
-        let fuel_cost = mul(fuel_gj, fuel_price.advance(step, year)?, "fuel cost", year)?;
-        let carbon_cost = mul(
-            co2_tonnes,
-            carbon_price.advance(step, "carbon cost", year)?,
-            "carbon cost",
+            step,
+            (discount_value, discount_factor),
             year,
         )?;
-        let fixed_om = mul(
-            kw_years,
-            fixed_price.advance(step, "fixed O&M", year)?,
-            "fixed O&M",
+        let co2_tonnes = fuel_energy_gj * carbon.co2_kg_per_gj_lhv / 1000.0;
+        let carbon_cost = carbon_cost.cost(co2_tonnes, step, discount_value, year)?;
+        let fixed_om = fixed_om.cost(
+            operation.net_output_kw * fraction,
+            step,
+            discount_value,
             year,
         )?;
-        let variable_om = mul(
-            energy,
-            variable_price.advance(step, "variable O&M", year)?,
-            "variable O&M",
-            year,
-        )?;
-        let overhaul = match &mut overhaul_cost {
-            Some(cost) => {
-                let unit = cost.advance(step, "overhaul", year)?;
-                mul(
-                    M::from_physics(f64::from(overhaul_count)).unwrap_or(M::ZERO),
-                    unit,
-                    "overhaul",
-                    year,
-                )?
-            }
+        let variable_om = variable_om.cost(energy_mwh, step, discount_value, year)?;
+        let overhaul = match &mut overhauls {
+            Some(stream) => stream.cost(f64::from(overhaul_count), step, discount_value, year)?,
             None => M::ZERO,
         };
         let total = [carbon_cost, fixed_om, variable_om, overhaul]
             .into_iter()
             .try_fold(fuel_cost, |sum, x| add(sum, x, "row total", year))?;
-        let discount_value = discount.advance(step);
-        let discount_factor: M = factor(discount_value, "discount factor", year)?;
         let present_value = mul(total, discount_factor, "present value", year)?;
-
-        pv.fuel_cost = add(
-            pv.fuel_cost,
-            mul(fuel_cost, discount_factor, "fuel cost", year)?,
-            "fuel cost",
-            year,
-        )?;
-        pv.carbon_cost = add(
-            pv.carbon_cost,
-            mul(carbon_cost, discount_factor, "carbon cost", year)?,
-            "carbon cost",
-            year,
-        )?;
-        pv.fixed_om = add(
-            pv.fixed_om,
-            mul(fixed_om, discount_factor, "fixed O&M", year)?,
-            "fixed O&M",
-            year,
-        )?;
-        pv.variable_om = add(
-            pv.variable_om,
-            mul(variable_om, discount_factor, "variable O&M", year)?,
-            "variable O&M",
-            year,
-        )?;
-        pv.overhaul = add(
-            pv.overhaul,
-            mul(overhaul, discount_factor, "overhaul", year)?,
-            "overhaul",
-            year,
-        )?;
         rows_present_value = add(rows_present_value, present_value, "present value", year)?;
         pv_energy_mwh += energy_mwh * discount_value;
 
@@ -249,8 +278,19 @@ pub(crate) fn operating_rows<M: Money>(
             present_value,
         });
     }
+    let present_value = StreamTotals {
+        fuel_cost: fuel.present_value(last_year)?,
+        carbon_cost: carbon_cost.present_value(last_year)?,
+        fixed_om: fixed_om.present_value(last_year)?,
+        variable_om: variable_om.present_value(last_year)?,
+        overhaul: match &overhauls {
+            Some(stream) => stream.present_value(last_year)?,
+            None => M::ZERO,
+        },
+        ..StreamTotals::ZERO
+    };
     Ok(OperatingPart {
-        present_value: pv,
+        present_value,
         rows_present_value,
         pv_energy_mwh,
     })

@@ -225,45 +225,59 @@ impl EngineConfig {
     }
 }
 
-fn positive(field: &'static str, value: f64, unit: &str) -> Result<(), CycleError> {
+#[inline]
+fn positive(field: &'static str, value: f64, unit: &'static str) -> Result<(), CycleError> {
     if value.is_finite() && value > 0.0 {
         Ok(())
     } else {
-        Err(CycleError::invalid(
-            field,
-            format!("{value} {unit} is not a positive number"),
-            format!("expected a value > 0 {unit}"),
-        ))
+        Err(not_positive(field, value, unit))
     }
 }
 
+#[cold]
+fn not_positive(field: &'static str, value: f64, unit: &str) -> CycleError {
+    CycleError::invalid(
+        field,
+        format!("{value} {unit} is not a positive number"),
+        format!("expected a value > 0 {unit}"),
+    )
+}
+
+#[inline]
 fn efficiency(field: &'static str, value: f64) -> Result<(), CycleError> {
     if value > 0.0 && value <= 1.0 {
         Ok(())
     } else {
-        let problem = if value > 1.0 {
-            format!("{value} is above 1")
-        } else {
-            format!("{value} is not above 0")
-        };
-        Err(CycleError::invalid(
-            field,
-            problem,
-            "expected a fraction in (0, 1]",
-        ))
+        Err(not_an_efficiency(field, value))
     }
 }
 
+#[cold]
+fn not_an_efficiency(field: &'static str, value: f64) -> CycleError {
+    let problem = if value > 1.0 {
+        format!("{value} is above 1")
+    } else {
+        format!("{value} is not above 0")
+    };
+    CycleError::invalid(field, problem, "expected a fraction in (0, 1]")
+}
+
+#[inline]
 fn loss(field: &'static str, value: f64) -> Result<(), CycleError> {
     if (0.0..1.0).contains(&value) {
         Ok(())
     } else {
-        Err(CycleError::invalid(
-            field,
-            format!("{value} is outside [0, 1)"),
-            "expected a fraction ≥ 0 and < 1",
-        ))
+        Err(not_a_loss(field, value))
     }
+}
+
+#[cold]
+fn not_a_loss(field: &'static str, value: f64) -> CycleError {
+    CycleError::invalid(
+        field,
+        format!("{value} is outside [0, 1)"),
+        "expected a fraction ≥ 0 and < 1",
+    )
 }
 
 #[cfg(test)]

@@ -20,10 +20,12 @@ pub(crate) struct Pressure {
 impl Pressure {
     /// The pressure `kpa`.
     pub fn new(kpa: f64) -> Pressure {
-        Pressure {
-            kpa,
-            ln_rel: (kpa / STANDARD_PRESSURE_KPA).ln(),
-        }
+        let ln_rel = if kpa == STANDARD_PRESSURE_KPA {
+            0.0
+        } else {
+            (kpa / STANDARD_PRESSURE_KPA).ln()
+        };
+        Pressure { kpa, ln_rel }
     }
 
     /// This pressure times a ratio r given with its logarithm.

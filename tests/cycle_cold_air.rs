@@ -7,7 +7,7 @@
 
 use brayfin::cycle::{
     solve, EfficiencyBasis, EngineConfig, GasModel, Intercooler, IntercoolerExit, Regenerator,
-    Reheat,
+    Reheat, Sizing,
 };
 use brayfin::fuel::Fuel;
 
@@ -210,5 +210,48 @@ fn shaft_and_combustion_losses_scale_the_efficiency() {
         res.thermal_efficiency,
         ideal * 0.985 * 0.98 * 0.99 * 0.99,
         "efficiency",
+    );
+}
+
+/// Sizing: air flow = rated net output / net electrical work per kg, and
+/// the fuel flow supplies q_in per kg of air at the fuel's LHV (cold-air
+/// closed forms); sizing by that air flow gives back the rated output.
+#[test]
+fn sizing_by_output_and_by_air_flow_agree() {
+    let (k, cp, r, t3) = (1.4_f64, 1.005_f64, 12.0_f64, 1450.0_f64);
+    let fuel = Fuel::methane();
+    let by_output = EngineConfig {
+        compressor_efficiency: 0.87,
+        turbine_efficiency: 0.9,
+        sizing: Some(Sizing::NetOutputKw(50_000.0)),
+        ..EngineConfig::ideal(r, t3)
+    };
+    let res = solve(&by_output, &GasModel::cold_air_standard(), &fuel).unwrap();
+    let e = (k - 1.0) / k;
+    let t1 = 288.15;
+    let t2 = t1 + (t1 * r.powf(e) - t1) / 0.87;
+    let t4 = t3 - 0.9 * (t3 - t3 / r.powf(e));
+    let w_net = cp * ((t3 - t4) - (t2 - t1));
+    let flows = res.flows.expect("sized");
+    close(flows.air_flow_kg_per_s, 50_000.0 / w_net, "air flow");
+    close(
+        flows.fuel_flow_kg_per_s,
+        flows.air_flow_kg_per_s * cp * (t3 - t2) / fuel.lhv_kj_per_kg(),
+        "fuel flow",
+    );
+    close(
+        flows.exhaust_flow_kg_per_s,
+        flows.air_flow_kg_per_s + flows.fuel_flow_kg_per_s,
+        "exhaust flow",
+    );
+    let by_air = EngineConfig {
+        sizing: Some(Sizing::AirFlowKgPerS(flows.air_flow_kg_per_s)),
+        ..by_output
+    };
+    let again = solve(&by_air, &GasModel::cold_air_standard(), &fuel).unwrap();
+    close(
+        again.flows.expect("sized").net_output_kw,
+        50_000.0,
+        "net output",
     );
 }

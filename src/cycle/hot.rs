@@ -135,22 +135,19 @@ impl<C: Combustion> HotSection<'_, C> {
         }
     }
 
-    /// The same hot section for another combustor inlet enthalpy `h_in`,
-    /// when the gas does not depend on the fuel (air-standard models): only
-    /// the main combustor's fuel energy changes; the turbines do not.
-    pub fn rebase(&self, hot: Hot<C::Gas>, h_in: f64) -> Result<Hot<C::Gas>, CycleError> {
+    /// Move `hot` to another combustor inlet enthalpy `h_in`, when the gas
+    /// does not depend on the fuel (air-standard models): only the main
+    /// combustor's fuel energy changes; the turbines do not.
+    pub fn rebase(&self, hot: &mut Hot<C::Gas>, h_in: f64) -> Result<(), CycleError> {
         let c = self.combustion;
         let intake = Stream {
             gas: c.air().clone(),
             fuel_per_kg_air: 0.0,
         };
         let burn = c.burn(&intake, h_in, self.t3_k, "turbine_inlet_temperature_k")?;
-        Ok(Hot {
-            fuel_energy: hot.fuel_energy - hot.burn.fuel_energy_kj_per_kg_air
-                + burn.fuel_energy_kj_per_kg_air,
-            burn,
-            ..hot
-        })
+        hot.fuel_energy += burn.fuel_energy_kj_per_kg_air - hot.burn.fuel_energy_kj_per_kg_air;
+        hot.burn = burn;
+        Ok(())
     }
 
     /// Record states 3, (3as, 3a, 3b), 4s, 4 of `hot`: turbine inlet at

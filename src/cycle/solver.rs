@@ -91,12 +91,12 @@ pub(crate) fn run<C: Combustion>(cfg: &EngineConfig, c: &C) -> Result<Solved, Cy
         basis: cfg.efficiency_basis,
     };
 
-    let (hot, h5) = match &regen {
-        None => (section.run(h2, None)?, None),
-        Some(rg) => {
-            let (hot, h5) = regenerate(&section, rg, air, delivery)?;
-            (hot, Some(h5))
-        }
+    // The hot section with the compressor delivery entering the combustor;
+    // a regenerator then raises the combustor inlet enthalpy to h5.
+    let mut hot = section.run(h2, None)?;
+    let h5 = match &regen {
+        None => None,
+        Some(rg) => Some(regenerate(&section, rg, air, delivery, &mut hot)?),
     };
     if let Some(h5) = h5 {
         let t5 = air
@@ -199,12 +199,14 @@ fn reheat_split(
 /// `h5 = h2 + q(h5)`, where the heat passed q depends on the turbine exit,
 /// which (with `products`) depends on the fuel burned and so on h5. The
 /// air-standard models need one pass; `products` iterates by secant.
+/// `hot` enters solved for h5 = h2 and leaves solved for the returned h5.
 fn regenerate<C: Combustion>(
     section: &HotSection<'_, C>,
     rg: &Regenerator,
     air: &C::Gas,
     delivery: Point,
-) -> Result<(Hot<C::Gas>, f64), CycleError> {
+    hot: &mut Hot<C::Gas>,
+) -> Result<f64, CycleError> {
     let (t2, h2) = (delivery.t_k, delivery.h);
     let heat_passed = |hot: &Hot<C::Gas>| -> Result<f64, CycleError> {
         let t4 = hot.last.actual.t_k;
@@ -221,21 +223,21 @@ fn regenerate<C: Combustion>(
         let air_side = air.enthalpy_kj_per_kg(t4) - h2;
         Ok(rg.effectiveness * air_side.min(gas_side))
     };
-    let first = section.run(h2, None)?;
-    let q0 = heat_passed(&first)?;
+    let q0 = heat_passed(hot)?;
     if !C::COMPOSITION_FOLLOWS_FUEL {
         // The turbine gas does not depend on the fuel: q is final, and only
         // the combustor's fuel energy changes.
         let h5 = h2 + q0;
-        return Ok((section.rebase(first, h5)?, h5));
+        section.rebase(hot, h5)?;
+        return Ok(h5);
     }
     let (mut x0, mut g0) = (h2, q0);
     let mut x1 = h2 + q0;
-    let mut current = section.run(x1, Some(&first))?;
-    let mut g1 = h2 + heat_passed(&current)? - x1;
+    *hot = section.run(x1, Some(hot))?;
+    let mut g1 = h2 + heat_passed(hot)? - x1;
     for _ in 0..60 {
         if g1.abs() <= REGENERATOR_TOLERANCE * x1.abs().max(1.0) {
-            return Ok((current, x1));
+            return Ok(x1);
         }
         let slope = (g1 - g0) / (x1 - x0);
         let next = if slope.is_finite() && slope != 0.0 {
@@ -245,8 +247,8 @@ fn regenerate<C: Combustion>(
         };
         (x0, g0) = (x1, g1);
         x1 = next;
-        current = section.run(x1, Some(&current))?;
-        g1 = h2 + heat_passed(&current)? - x1;
+        *hot = section.run(x1, Some(hot))?;
+        g1 = h2 + heat_passed(hot)? - x1;
     }
     Err(CycleError::NoConvergence { last_change: g1 })
 }

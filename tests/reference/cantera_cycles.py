@@ -10,8 +10,9 @@ Definitions mirrored (and nothing else shared with the Rust code):
 - pressure losses as fractions of the local pressure (inlet, regenerator
   air side, combustor, reheat combustor = combustor's, regenerator gas side,
   exhaust), turbine exit pressure p_amb / ((1 - exhaust)(1 - gas side));
-- isentropic efficiency on enthalpy; polytropic: ds = R (1/eta - 1) dp/p in
-  the compressor and ds = -R (1 - eta) dp/p... i.e. s4 = s3 + (1 - eta) R ln r;
+- isentropic efficiency on enthalpy; polytropic efficiency as the entropy
+  rise s2 = s1 + (1/eta - 1) R ln r in the compressor and
+  s4 = s3 + (1 - eta) R ln r in the turbine (r: the stage's pressure ratio);
 - intercooler split at the given ratio or sqrt(overall), exit at a given
   temperature or T_out = T_in - eps (T_in - T_amb), no pressure loss;
 - reheat split at the given HP ratio or sqrt(overall turbine ratio);

@@ -10,3 +10,6 @@ pub mod sensitivity;
 pub mod warnings;
 
 pub use model::{build_model, ModelOptions};
+pub mod point;
+pub mod risk;
+pub mod sampling;

@@ -7,6 +7,7 @@ pub mod compare;
 pub mod cycle;
 pub mod new;
 pub mod output;
+pub mod progress;
 pub mod report;
 pub mod risk;
 pub mod sweep;

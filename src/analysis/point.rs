@@ -1,0 +1,292 @@
+//! One point of a sweep or one sample of a risk run: a few scenario keys set
+//! to given values, every selected candidate's cycle and `f64` ledger
+//! re-solved, each set against the baseline.
+//!
+//! A [`Workspace`] is one worker's copy of the scenario. Before each point
+//! the sections the keys write to are copied back from the base scenario, so
+//! a point depends on its values alone (never on the points a worker did
+//! before), which keeps parallel results identical to serial ones. A
+//! candidate's cycle is solved again only when its solver inputs differ from
+//! the last solve in this workspace: a sample that moves only economics
+//! reuses the heat rate, which is the same number a new solve would give.
+
+use super::engine::{engine_config_of, fuel_of, gas_model_of};
+use super::evaluate::ledger_inputs;
+use super::operation::annual_operation;
+use crate::cycle::{self, EngineConfig, GasModel};
+use crate::finance::{compare_summaries, summarize_ledger, LedgerSummary};
+use crate::fuel::Fuel;
+use crate::scenario::Scenario;
+
+/// What one candidate's figures are at one point.
+#[derive(Debug, Clone, Copy, PartialEq, Default)]
+pub struct Figures {
+    /// Full-load net heat rate, LHV, kJ/kWh.
+    pub heat_rate_kj_per_kwh: f64,
+    /// Lifecycle cost (present value), scenario currency, `f64` ledger.
+    pub lifecycle_cost: f64,
+    /// Against the baseline; `None` for the baseline itself.
+    pub versus_baseline: Option<Versus>,
+}
+
+/// A candidate against the baseline at one point (scenario currency).
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Versus {
+    /// Baseline lifecycle cost minus this candidate's.
+    pub net_savings: f64,
+    /// Capital premium over the baseline at which net savings are zero;
+    /// `None` when the lifecycle cost does not depend on capital.
+    pub break_even_premium: Option<f64>,
+    /// Capital of this candidate minus the baseline's.
+    pub premium_asked: f64,
+}
+
+/// Why a point could not be evaluated.
+#[derive(Debug, Clone, PartialEq, thiserror::Error)]
+pub enum PointError {
+    /// The scenario refused the value of a key (range or cross-field rule).
+    #[error("{message}")]
+    Refused {
+        /// The key.
+        key: String,
+        /// The value refused, internal unit.
+        value: f64,
+        /// The scenario's reason, naming the key and what is valid.
+        message: String,
+    },
+    /// The fuel, as changed, cannot be modelled.
+    #[error("the fuel cannot be modelled: {0}")]
+    Fuel(String),
+    /// A candidate's cycle cannot be solved.
+    #[error("the cycle of `{candidate}` cannot be solved: {message}")]
+    Cycle {
+        /// Candidate id.
+        candidate: String,
+        /// The solver's reason.
+        message: String,
+    },
+    /// A candidate's ledger cannot be built.
+    #[error("the ledger of `{candidate}` cannot be built: {message}")]
+    Ledger {
+        /// Candidate id.
+        candidate: String,
+        /// The finance layer's reason.
+        message: String,
+    },
+}
+
+/// The part of a scenario a key writes to.
+#[derive(Debug, Clone, Copy, PartialEq)]
+enum Section {
+    Site,
+    Fuel,
+    Economics,
+    Operation,
+    Candidate(usize),
+    Candidates,
+}
+
+fn section_of(scenario: &Scenario, key: &str) -> Section {
+    let candidate = key
+        .strip_prefix("candidate[")
+        .and_then(|rest| rest.split_once("]."))
+        .and_then(|(id, _)| scenario.candidates.iter().position(|c| c.id == id));
+    match (key.split('.').next(), candidate) {
+        (_, Some(index)) => Section::Candidate(index),
+        (Some("site"), _) => Section::Site,
+        (Some("fuel"), _) => Section::Fuel,
+        (Some("economics"), _) => Section::Economics,
+        (Some("operation"), _) => Section::Operation,
+        _ => Section::Candidates,
+    }
+}
+
+/// The fixed part of a run of points: the base scenario, the keys that
+/// vary, which candidates are evaluated.
+#[derive(Debug, Clone)]
+pub struct PointModel<'s> {
+    base: &'s Scenario,
+    base_fuel: Fuel,
+    baseline: usize,
+    keys: Vec<String>,
+    sections: Vec<Section>,
+    evaluated: Vec<bool>,
+}
+
+#[derive(Debug, Clone)]
+struct CachedCycle {
+    config: EngineConfig,
+    gas: GasModel,
+    fuel_is_base: bool,
+    heat_rate_kj_per_kwh: f64,
+}
+
+/// One worker's scratch copy of the scenario and its cycle cache.
+#[derive(Debug, Clone)]
+pub struct Workspace {
+    scenario: Scenario,
+    cycles: Vec<Option<CachedCycle>>,
+    summaries: Vec<Option<LedgerSummary<f64>>>,
+}
+
+impl<'s> PointModel<'s> {
+    /// Points of `base` that set `keys` (already checked to exist), with
+    /// `base_fuel` its solved fuel and `baseline` the index of its baseline.
+    /// `evaluated[i]` says whether candidate `i` is solved at each point (the
+    /// baseline always is).
+    pub fn new(
+        base: &'s Scenario,
+        base_fuel: Fuel,
+        baseline: usize,
+        keys: Vec<String>,
+        mut evaluated: Vec<bool>,
+    ) -> PointModel<'s> {
+        evaluated.resize(base.candidates.len(), false);
+        if let Some(b) = evaluated.get_mut(baseline) {
+            *b = true;
+        }
+        let mut sections: Vec<Section> = Vec::new();
+        for key in &keys {
+            let section = section_of(base, key);
+            if !sections.contains(&section) {
+                sections.push(section);
+            }
+        }
+        PointModel {
+            base,
+            base_fuel,
+            baseline,
+            keys,
+            sections,
+            evaluated,
+        }
+    }
+
+    /// The keys set at each point, in the order values are given.
+    pub fn keys(&self) -> &[String] {
+        &self.keys
+    }
+
+    /// Number of candidates (the length of every figures slice).
+    pub fn candidate_count(&self) -> usize {
+        self.base.candidates.len()
+    }
+
+    /// A fresh workspace for one worker.
+    pub fn workspace(&self) -> Workspace {
+        let n = self.base.candidates.len();
+        Workspace {
+            scenario: self.base.clone(),
+            cycles: vec![None; n],
+            summaries: vec![None; n],
+        }
+    }
+
+    fn restore(&self, scenario: &mut Scenario) {
+        let base = self.base;
+        for section in &self.sections {
+            match *section {
+                Section::Site => scenario.site.clone_from(&base.site),
+                Section::Fuel => scenario.fuel.clone_from(&base.fuel),
+                Section::Economics => scenario.economics.clone_from(&base.economics),
+                Section::Operation => scenario.operation.clone_from(&base.operation),
+                Section::Candidate(i) => scenario.candidates[i].clone_from(&base.candidates[i]),
+                Section::Candidates => scenario.candidates.clone_from(&base.candidates),
+            }
+        }
+    }
+
+    /// Evaluate the point where the keys take `values` (internal units, one
+    /// per key). `out[i]` receives candidate `i`'s figures for every
+    /// evaluated candidate; the others are left as they were.
+    pub fn evaluate(
+        &self,
+        ws: &mut Workspace,
+        values: &[f64],
+        out: &mut [Figures],
+    ) -> Result<(), PointError> {
+        self.restore(&mut ws.scenario);
+        for (key, &value) in self.keys.iter().zip(values) {
+            ws.scenario
+                .set_numeric(key, value)
+                .map_err(|e| PointError::Refused {
+                    key: key.clone(),
+                    value,
+                    message: e.to_string(),
+                })?;
+        }
+        let scenario = &ws.scenario;
+        let own_fuel;
+        let fuel_is_base = scenario.fuel.composition == self.base.fuel.composition;
+        let fuel = if fuel_is_base {
+            &self.base_fuel
+        } else {
+            own_fuel = fuel_of(&scenario.fuel).map_err(PointError::Fuel)?;
+            &own_fuel
+        };
+        for (i, candidate) in scenario.candidates.iter().enumerate() {
+            if !self.evaluated[i] {
+                continue;
+            }
+            let config = engine_config_of(candidate, &scenario.site);
+            let gas = gas_model_of(&candidate.gas_model);
+            let heat_rate = match &ws.cycles[i] {
+                // Only solves with the scenario's own fuel are reused.
+                Some(c) if fuel_is_base && c.fuel_is_base && c.config == config && c.gas == gas => {
+                    c.heat_rate_kj_per_kwh
+                }
+                _ => {
+                    let solved =
+                        cycle::solve(&config, &gas, fuel).map_err(|e| PointError::Cycle {
+                            candidate: candidate.id.clone(),
+                            message: e.to_string(),
+                        })?;
+                    let heat_rate = solved.heat_rate_kj_per_kwh;
+                    ws.cycles[i] = Some(CachedCycle {
+                        config,
+                        gas,
+                        fuel_is_base,
+                        heat_rate_kj_per_kwh: heat_rate,
+                    });
+                    heat_rate
+                }
+            };
+            let year = annual_operation(&scenario.operation, candidate.net_output_kw, heat_rate);
+            let ledger_error = |e: crate::finance::FinanceError| PointError::Ledger {
+                candidate: candidate.id.clone(),
+                message: e.to_string(),
+            };
+            let inputs = ledger_inputs(scenario, candidate, fuel, &year)
+                .map_err(ledger_error)?
+                .to_f64();
+            let summary = summarize_ledger(&inputs).map_err(ledger_error)?;
+            ws.summaries[i] = Some(summary);
+            out[i] = Figures {
+                heat_rate_kj_per_kwh: heat_rate,
+                lifecycle_cost: summary.lifecycle_cost,
+                versus_baseline: None,
+            };
+        }
+        let Some(base) = ws.summaries[self.baseline] else {
+            return Ok(());
+        };
+        for (i, candidate) in scenario.candidates.iter().enumerate() {
+            if i == self.baseline || !self.evaluated[i] {
+                continue;
+            }
+            if let Some(summary) = &ws.summaries[i] {
+                let savings =
+                    compare_summaries(summary, &base).map_err(|e| PointError::Ledger {
+                        candidate: candidate.id.clone(),
+                        message: e.to_string(),
+                    })?;
+                out[i].versus_baseline = Some(Versus {
+                    net_savings: savings.net_savings,
+                    break_even_premium: savings.break_even_premium,
+                    premium_asked: savings.premium_asked,
+                });
+            }
+        }
+        Ok(())
+    }
+}

@@ -1,0 +1,349 @@
+//! Monte Carlo over the scenario's `[[uncertainty]]` distributions: each
+//! sample draws every uncertain input, re-solves every candidate's cycle and
+//! `f64` ledger, and records each candidate's net savings and break-even
+//! premium against the baseline.
+//!
+//! - Draws: sample `i` takes its numbers from stream `i` of the seed (see
+//!   [`super::sampling`]), so results are bit-identical for a seed whatever
+//!   the number of threads; statistics are taken in sample order.
+//! - A draw the scenario refuses (a value outside its key's range, e.g. a
+//!   normal efficiency above 1, or a cross-field rule) or at which a cycle or
+//!   ledger cannot be solved is redrawn from the same sample's stream, up to
+//!   [`MAX_DRAWS_PER_SAMPLE`] times. Every sample counted is valid; the
+//!   results are those of the distributions conditional on a valid
+//!   scenario, and the number of redraws is reported.
+//! - Memory: two `f64` per sample and non-baseline candidate, nothing more
+//!   per sample (no ledger is kept).
+
+pub mod statistics;
+
+use super::compare::study_fuel;
+use super::point::{Figures, PointModel};
+use super::sampling::{Sampler, Streams};
+use crate::finance::{round_for_presentation, DEFAULT_MINOR_UNIT_DECIMALS};
+use crate::report::model::{Histogram, Percentiles, RiskCandidate, RiskView};
+use crate::scenario::LoadedScenario;
+use crate::Error;
+use rayon::prelude::*;
+use rust_decimal::prelude::FromPrimitive;
+use rust_decimal::Decimal;
+use statistics::{histogram, statistics, Bins, Statistics};
+
+/// Most samples a run may ask for (memory stays below about 350 MB with
+/// three candidates).
+pub const MAX_SAMPLES: usize = 10_000_000;
+
+/// Draws tried for one sample before the run is refused.
+pub const MAX_DRAWS_PER_SAMPLE: u32 = 100;
+
+/// Samples computed between two progress reports.
+const BLOCK: usize = 4096;
+
+/// The uncertain inputs that have a distribution, ready to draw.
+#[derive(Debug, Clone)]
+pub struct Draws {
+    /// Dotted scenario keys, in `[[uncertainty]]` order.
+    pub keys: Vec<String>,
+    /// One sampler per key.
+    pub samplers: Vec<Sampler>,
+}
+
+/// The distributions of `loaded`'s `[[uncertainty]]` entries; an input
+/// error at the entry when one cannot be sampled, or when none has a
+/// distribution.
+pub fn draws_of(loaded: &LoadedScenario) -> crate::Result<Draws> {
+    let mut draws = Draws {
+        keys: Vec::new(),
+        samplers: Vec::new(),
+    };
+    for (i, input) in loaded.scenario.uncertainty.iter().enumerate() {
+        let Some(distribution) = input.distribution else {
+            continue;
+        };
+        let sampler = Sampler::new(distribution, input.truncate).map_err(|e| {
+            loaded.error_at(
+                &format!("uncertainty[{}]", i + 1),
+                &format!("the distribution of `{}` cannot be sampled: {e}", input.key),
+            )
+        })?;
+        draws.keys.push(input.key.clone());
+        draws.samplers.push(sampler);
+    }
+    if draws.keys.is_empty() {
+        return Err(loaded.error_at(
+            "uncertainty",
+            "no [[uncertainty]] entry has a distribution; risk needs at least one, e.g. \
+             key = \"fuel.price\", distribution = \"triangular\", low, mode, high",
+        ));
+    }
+    Ok(draws)
+}
+
+/// Monte Carlo results of one non-baseline candidate.
+#[derive(Debug, Clone, PartialEq)]
+pub struct CandidateRisk {
+    /// Candidate id.
+    pub candidate_id: String,
+    /// Net savings against the baseline (scenario currency).
+    pub net_savings: Statistics,
+    /// Break-even premium over the baseline's capital (scenario currency).
+    pub break_even_premium: Statistics,
+    /// Share of samples (0 to 1) with positive net savings: the candidate,
+    /// at the premium it asks, costs less over the life than the baseline.
+    pub probability_beats_baseline: f64,
+    /// Histogram of net savings.
+    pub histogram: Bins,
+}
+
+/// A whole Monte Carlo run.
+#[derive(Debug, Clone, PartialEq)]
+pub struct RiskRun {
+    /// Samples counted (as asked).
+    pub samples: usize,
+    /// Seed of the streams.
+    pub seed: u64,
+    /// The keys drawn, in order.
+    pub keys: Vec<String>,
+    /// Baseline candidate id.
+    pub baseline_id: String,
+    /// Draws refused and redrawn, over all samples.
+    pub redraws: u64,
+    /// Why the first redrawn draw (lowest sample) was refused.
+    pub first_redraw_reason: Option<String>,
+    /// One entry per non-baseline candidate, in scenario order.
+    pub candidates: Vec<CandidateRisk>,
+}
+
+/// What one sample's draws came to.
+#[derive(Debug, Clone, Default)]
+struct Tally {
+    redraws: u64,
+    /// (sample, reason) of the lowest sample with a redraw.
+    first_reason: Option<(usize, String)>,
+    /// (sample, reason) of the lowest sample with no valid draw.
+    failed: Option<(usize, String)>,
+}
+
+fn lowest(a: Option<(usize, String)>, b: Option<(usize, String)>) -> Option<(usize, String)> {
+    match (a, b) {
+        (Some(x), Some(y)) => Some(if y.0 < x.0 { y } else { x }),
+        (x, y) => x.or(y),
+    }
+}
+
+impl Tally {
+    fn merge(self, other: Tally) -> Tally {
+        Tally {
+            redraws: self.redraws + other.redraws,
+            first_reason: lowest(self.first_reason, other.first_reason),
+            failed: lowest(self.failed, other.failed),
+        }
+    }
+}
+
+/// Run `samples` Monte Carlo samples of `loaded` with `seed`. `progress`
+/// is called from the calling thread with (samples done, samples asked)
+/// after each block of samples.
+pub fn run_risk(
+    loaded: &LoadedScenario,
+    samples: usize,
+    seed: u64,
+    progress: &mut dyn FnMut(usize, usize),
+) -> crate::Result<RiskRun> {
+    if samples == 0 || samples > MAX_SAMPLES {
+        return Err(Error::Input(format!(
+            "--samples {samples}: expected 1 to {MAX_SAMPLES} samples"
+        )));
+    }
+    let scenario = &loaded.scenario;
+    let draws = draws_of(loaded)?;
+    let fuel = study_fuel(loaded)?;
+    let baseline = scenario
+        .candidates
+        .iter()
+        .position(|c| c.id == scenario.meta.baseline)
+        .ok_or_else(|| loaded.error_at("scenario.baseline", "no candidate has this id"))?;
+    let others: Vec<usize> = (0..scenario.candidates.len())
+        .filter(|&i| i != baseline)
+        .collect();
+    if others.is_empty() {
+        return Err(loaded.error_at(
+            "candidate",
+            "risk sets candidates against the baseline; expected at least one candidate besides it",
+        ));
+    }
+    let n = scenario.candidates.len();
+    let model = PointModel::new(scenario, fuel, baseline, draws.keys.clone(), vec![true; n]);
+    let streams = Streams::new(seed);
+    // Per sample: (net savings, break-even premium) of each other candidate.
+    let stride = 2 * others.len();
+    let mut values = vec![0.0f64; samples * stride];
+    let mut tally = Tally::default();
+    let mut done = 0;
+    for block in values.chunks_mut(BLOCK * stride) {
+        let first = done;
+        let block_tally = block
+            .par_chunks_mut(stride)
+            .enumerate()
+            .map_init(
+                || {
+                    (
+                        model.workspace(),
+                        vec![Figures::default(); n],
+                        vec![0.0; draws.samplers.len()],
+                    )
+                },
+                |(ws, figures, drawn), (j, out)| {
+                    let index = first + j;
+                    let mut stream = streams.sample(index as u64);
+                    let mut tally = Tally::default();
+                    for _ in 0..MAX_DRAWS_PER_SAMPLE {
+                        for (value, sampler) in drawn.iter_mut().zip(&draws.samplers) {
+                            *value = sampler.quantile(stream.next_unit());
+                        }
+                        let outcome = model
+                            .evaluate(ws, drawn, figures)
+                            .map_err(|e| e.to_string())
+                            .and_then(|()| record(figures, &others, scenario, out));
+                        match outcome {
+                            Ok(()) => return tally,
+                            Err(reason) => {
+                                tally.redraws += 1;
+                                if tally.first_reason.is_none() {
+                                    tally.first_reason = Some((index, reason));
+                                }
+                            }
+                        }
+                    }
+                    tally.failed = tally.first_reason.clone();
+                    tally
+                },
+            )
+            .reduce(Tally::default, Tally::merge);
+        tally = tally.merge(block_tally);
+        done += block.len() / stride;
+        progress(done.min(samples), samples);
+    }
+    if let Some((index, reason)) = tally.failed {
+        return Err(Error::Input(format!(
+            "{}: sample {index}: no valid draw in {MAX_DRAWS_PER_SAMPLE} tries (first refusal: \
+             {reason}); narrow or truncate the [[uncertainty]] distributions so that the values \
+             they give are valid",
+            loaded.file_label
+        )));
+    }
+    let candidates = others
+        .iter()
+        .enumerate()
+        .map(|(k, &i)| summarize(&values, stride, k, &scenario.candidates[i].id))
+        .collect::<Option<Vec<_>>>()
+        .ok_or_else(|| Error::Internal("risk statistics of an empty run".into()))?;
+    Ok(RiskRun {
+        samples,
+        seed,
+        keys: draws.keys,
+        baseline_id: scenario.meta.baseline.clone(),
+        redraws: tally.redraws,
+        first_redraw_reason: tally.first_reason.map(|(_, reason)| reason),
+        candidates,
+    })
+}
+
+/// Copy each other candidate's figures into `out`; a missing break-even
+/// premium refuses the draw.
+fn record(
+    figures: &[Figures],
+    others: &[usize],
+    scenario: &crate::scenario::Scenario,
+    out: &mut [f64],
+) -> Result<(), String> {
+    for (k, &i) in others.iter().enumerate() {
+        let versus = figures[i].versus_baseline.ok_or_else(|| {
+            format!(
+                "`{}` was not set against the baseline",
+                scenario.candidates[i].id
+            )
+        })?;
+        let premium = versus.break_even_premium.ok_or_else(|| {
+            format!(
+                "the lifecycle cost of `{}` does not depend on its capital, so it has no \
+                 break-even premium",
+                scenario.candidates[i].id
+            )
+        })?;
+        out[2 * k] = versus.net_savings;
+        out[2 * k + 1] = premium;
+    }
+    Ok(())
+}
+
+fn summarize(values: &[f64], stride: usize, k: usize, id: &str) -> Option<CandidateRisk> {
+    let column = |offset: usize| -> Vec<f64> {
+        values
+            .chunks(stride)
+            .map(|sample| sample[2 * k + offset])
+            .collect()
+    };
+    let mut savings = column(0);
+    let mut premiums = column(1);
+    let beats = savings.iter().filter(|s| **s > 0.0).count();
+    let probability_beats_baseline = beats as f64 / savings.len() as f64;
+    let net_savings = statistics(&mut savings)?;
+    let break_even_premium = statistics(&mut premiums)?;
+    Some(CandidateRisk {
+        candidate_id: id.to_string(),
+        net_savings,
+        break_even_premium,
+        probability_beats_baseline,
+        histogram: histogram(&savings),
+    })
+}
+
+/// Money for the report model: rounded half-to-even to the minor unit,
+/// always with its two decimals.
+fn money(value: f64) -> Decimal {
+    let mut rounded = round_for_presentation(
+        Decimal::from_f64(value).unwrap_or_default(),
+        DEFAULT_MINOR_UNIT_DECIMALS,
+    );
+    rounded.rescale(DEFAULT_MINOR_UNIT_DECIMALS);
+    rounded
+}
+
+fn percentiles(s: &Statistics) -> Percentiles {
+    Percentiles {
+        mean: money(s.mean),
+        p10: money(s.p10),
+        p50: money(s.p50),
+        p90: money(s.p90),
+    }
+}
+
+/// The report model's view of a run: money rounded to the minor unit.
+pub fn view_of(run: &RiskRun) -> RiskView {
+    RiskView {
+        samples: run.samples,
+        seed: run.seed,
+        candidates: run
+            .candidates
+            .iter()
+            .map(|c| RiskCandidate {
+                candidate_id: c.candidate_id.clone(),
+                net_savings: percentiles(&c.net_savings),
+                break_even_premium: percentiles(&c.break_even_premium),
+                probability_beats_baseline: c.probability_beats_baseline,
+                histogram: Histogram {
+                    low: money(c.histogram.low),
+                    bin_width: money(c.histogram.bin_width),
+                    counts: c.histogram.counts.clone(),
+                },
+            })
+            .collect(),
+    }
+}
+
+/// The risk section of a report: `samples` samples with `seed`, no
+/// progress shown.
+pub fn risk_view(loaded: &LoadedScenario, samples: usize, seed: u64) -> crate::Result<RiskView> {
+    run_risk(loaded, samples, seed, &mut |_, _| {}).map(|run| view_of(&run))
+}

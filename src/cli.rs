@@ -80,6 +80,7 @@ pub enum Command {
 /// (bare number: K); pressures `kPa`, `Pa`, `bar`, `psia` (bare: kPa);
 /// power `kW`, `MW` (bare: kW); fractions `0.86` or `86 %`.
 #[derive(Debug, Args)]
+#[command(allow_negative_numbers = true)]
 pub struct CycleArgs {
     /// Compressor pressure ratio (> 1).
     #[arg(long)]

@@ -355,3 +355,24 @@ fn impossible_intercooling_reheat_and_combustion() {
         "< 1",
     );
 }
+
+/// A negative efficiency is the program's input error (exit 1, naming the
+/// flag), not a command-line parsing failure.
+#[test]
+fn negative_efficiency_is_an_input_error_naming_the_flag() {
+    let output = assert_cmd::Command::cargo_bin("brayfin")
+        .unwrap()
+        .args([
+            "cycle",
+            "--pressure-ratio",
+            "10",
+            "--turbine-inlet-temperature",
+            "1400 K",
+            "--turbine-efficiency",
+            "-5",
+        ])
+        .output()
+        .unwrap();
+    assert_eq!(output.status.code(), Some(1));
+    assert!(String::from_utf8_lossy(&output.stderr).contains("--turbine-efficiency"));
+}

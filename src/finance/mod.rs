@@ -41,7 +41,7 @@ pub use inputs::{
 pub use ledger::{Analysis, Ledger, LedgerRow, LedgerSummary, RowKind, StreamTotals};
 pub use money::{
     convert_physics_to_money, round_for_presentation, Money, DEFAULT_MINOR_UNIT_DECIMALS,
-    FACTOR_DECIMALS, MIDPOINT_RULE, PHYSICS_DECIMALS,
+    MIDPOINT_RULE, SIGNIFICANT_DIGITS,
 };
 pub use payback::{payback, Payback, PaybackKind};
 pub use rate_of_return::{internal_rate_of_return, rate_of_return};

@@ -6,10 +6,12 @@
 //! of 1e-15 is immaterial.
 //!
 //! Two kinds of `f64` enter money arithmetic, each at one named function:
-//! - physical quantities (GJ, MWh, tonnes, kW-years) at
-//!   [`convert_physics_to_money`], rounded to [`PHYSICS_DECIMALS`] places;
-//! - dimensionless discount and escalation factors at [`Money::from_factor`],
-//!   rounded to [`FACTOR_DECIMALS`] places.
+//! - physical quantities (GJ, MWh, tonnes, kW-years, overhaul counts), each
+//!   already multiplied by its dimensionless escalation factor, at
+//!   [`convert_physics_to_money`];
+//! - dimensionless discount factors and fractions at [`Money::from_factor`].
+//!
+//! Both round to [`SIGNIFICANT_DIGITS`] significant digits for `Decimal`.
 //!
 //! Money itself is never rounded inside the ledger; [`round_for_presentation`]
 //! rounds once, for display.
@@ -21,17 +23,13 @@ use rust_decimal::{Decimal, RoundingStrategy};
 
 use super::FinanceError;
 
-/// Decimal places kept when a physical quantity becomes a `Decimal`
-/// (a nano-unit: 1 J of a GJ, 1 mWh of a MWh, 1 µg of a tonne). Far below
-/// any metering precision, yet few enough digits that a quantity times a
-/// price stays within the 96-bit `Decimal` mantissa and is exact.
-pub const PHYSICS_DECIMALS: u32 = 9;
-
-/// Decimal places kept when a discount or escalation factor becomes a
-/// `Decimal`. The money error this introduces is at most 5e-17 of the amount
-/// the factor multiplies: the precision of the `f64` the factor is computed
-/// in, and far below a minor currency unit for any plant-sized amount.
-pub const FACTOR_DECIMALS: u32 = 16;
+/// Significant decimal digits kept when an `f64` (a physical quantity or a
+/// dimensionless factor) becomes a `Decimal`: 15, the digits an `f64` is
+/// guaranteed to carry (the C standard's `DBL_DIG`), so the conversion adds
+/// no error beyond what the `f64` already had (at most 5e-15 relative). A
+/// 15-digit quantity times a price of up to 13 digits fits the 96-bit
+/// `Decimal` mantissa, so quantity × price is exact.
+pub const SIGNIFICANT_DIGITS: i32 = 15;
 
 /// A number type the ledger can keep money in.
 ///
@@ -57,9 +55,8 @@ pub trait Money: Copy + PartialEq + PartialOrd + Debug + Display + Send + Sync +
     /// finite or out of range.
     fn from_physics(value: f64) -> Option<Self>;
     /// A dimensionless factor or ratio (discount factor, escalation factor,
-    /// fraction), rounded half-to-even to [`FACTOR_DECIMALS`] places for
-    /// `Decimal` (fewer only for factors beyond 7.9e10).
-    /// `None` if not finite or out of range.
+    /// fraction), rounded half-to-even to [`SIGNIFICANT_DIGITS`] significant
+    /// digits for `Decimal`. `None` if not finite or out of range.
     fn from_factor(value: f64) -> Option<Self>;
     /// This value as `f64`, for rates and root finding, never for money sums.
     fn to_f64(self) -> f64;
@@ -90,15 +87,11 @@ impl Money for Decimal {
     }
 
     fn from_physics(value: f64) -> Option<Self> {
-        scaled_decimal(value, PHYSICS_DECIMALS)
+        significant_decimal(value)
     }
 
     fn from_factor(value: f64) -> Option<Self> {
-        // Very large factors (beyond 7.9e10, only from extreme rates) keep as
-        // many decimals as still fit.
-        (0..=FACTOR_DECIMALS)
-            .rev()
-            .find_map(|decimals| scaled_decimal(value, decimals))
+        significant_decimal(value)
     }
 
     fn to_f64(self) -> f64 {
@@ -153,23 +146,58 @@ fn finite(value: f64) -> Option<f64> {
     value.is_finite().then_some(value)
 }
 
-/// `value` rounded half-to-even to `decimals` places, if it fits a `Decimal`.
-fn scaled_decimal(value: f64, decimals: u32) -> Option<Decimal> {
-    let scaled = (value * 10f64.powi(decimals as i32)).round_ties_even();
+/// `value` rounded half-to-even to [`SIGNIFICANT_DIGITS`] significant digits
+/// (at most 28 decimal places), if finite and within the `Decimal` range.
+fn significant_decimal(value: f64) -> Option<Decimal> {
+    if value == 0.0 {
+        return Some(Decimal::ZERO);
+    }
+    if !value.is_finite() {
+        return None;
+    }
+    let decimals = (SIGNIFICANT_DIGITS - 1 - decimal_exponent(value.abs())).clamp(0, 28);
+    let scaled = (value * power_of_ten(decimals)).round_ties_even();
     // 2^96: the largest mantissa a Decimal holds.
     if !scaled.is_finite() || scaled.abs() >= 79_228_162_514_264_337_593_543_950_336.0 {
         return None;
     }
-    Decimal::try_from_i128_with_scale(scaled as i128, decimals).ok()
+    Decimal::try_from_i128_with_scale(scaled as i128, decimals as u32).ok()
+}
+
+/// Powers of ten from 1e-30 to 1e30 (exact in `f64` from 1e0 to 1e22).
+const POWERS_OF_TEN: [f64; 61] = [
+    1e-30, 1e-29, 1e-28, 1e-27, 1e-26, 1e-25, 1e-24, 1e-23, 1e-22, 1e-21, 1e-20, 1e-19, 1e-18,
+    1e-17, 1e-16, 1e-15, 1e-14, 1e-13, 1e-12, 1e-11, 1e-10, 1e-9, 1e-8, 1e-7, 1e-6, 1e-5, 1e-4,
+    1e-3, 1e-2, 1e-1, 1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13,
+    1e14, 1e15, 1e16, 1e17, 1e18, 1e19, 1e20, 1e21, 1e22, 1e23, 1e24, 1e25, 1e26, 1e27, 1e28, 1e29,
+    1e30,
+];
+
+/// `10^exponent` for `exponent` in -30..=30.
+fn power_of_ten(exponent: i32) -> f64 {
+    POWERS_OF_TEN[(exponent.clamp(-30, 30) + 30) as usize]
+}
+
+/// `floor(log10(x))` for finite `x > 0`, clamped to -30..=30: estimated from
+/// the binary exponent (`1233 / 4096` ≈ log10 2, exact over the f64 range)
+/// and corrected by one comparison; much cheaper than `log10`.
+fn decimal_exponent(x: f64) -> i32 {
+    let binary_exponent = ((x.to_bits() >> 52) & 0x7ff) as i32 - 1023;
+    let estimate = ((binary_exponent * 1233) >> 12).clamp(-30, 29);
+    if x >= power_of_ten(estimate + 1) {
+        estimate + 1
+    } else {
+        estimate
+    }
 }
 
 /// The one crossing point where a physical quantity (`f64`: GJ of fuel, MWh,
 /// tonnes of CO2, kW-years) becomes a money-type number to meet a price.
 ///
-/// For `Decimal` the value is rounded half-to-even to [`PHYSICS_DECIMALS`]
-/// (9) decimal places of its unit; for `f64` it passes unchanged. `field`
-/// names the quantity for the error. Errors if the value is not finite or
-/// beyond the `Decimal` range (about 7.9e19 units at 9 places).
+/// For `Decimal` the value is rounded half-to-even to [`SIGNIFICANT_DIGITS`]
+/// (15) significant digits, at most 28 decimal places; for `f64` it passes
+/// unchanged. `field` names the quantity for the error. Errors if the value
+/// is not finite or beyond the `Decimal` range (about 7.9e28).
 pub fn convert_physics_to_money<M: Money>(
     value: f64,
     field: &'static str,
@@ -177,7 +205,7 @@ pub fn convert_physics_to_money<M: Money>(
     M::from_physics(value).ok_or(FinanceError::OutOfRange {
         field,
         value,
-        valid: "a finite quantity below 7.9e19",
+        valid: "a finite quantity below 7.9e28",
     })
 }
 

@@ -107,7 +107,7 @@ impl<M: Money> FuelStream<M> {
 /// multiplication by the price is then exact. The stream's present value is
 /// `price × Σ quantity × escalation × discount`, priced once at the end. The
 /// streams' present values add up to the lifecycle cost (the sum of the
-/// rows' `total × discount_factor`) within about 1e-12 relative.
+/// rows' `total × discount_factor`) within about 1e-14 relative.
 struct Stream<M> {
     name: &'static str,
     price: Escalated<M>,

@@ -11,11 +11,11 @@ use super::price_path::resolve_price_path;
 use super::rates::Timing;
 use super::FinanceError;
 
-const FUEL_GJ: &str = "fuel energy (GJ on the price basis)";
-const CO2_TONNES: &str = "CO2 emitted (t)";
-const KW_YEARS: &str = "net output (kW-years)";
-const ENERGY_MWH: &str = "energy (MWh)";
-const OVERHAULS: &str = "overhauls";
+const FUEL_COST: &str = "fuel cost";
+const CARBON_COST: &str = "carbon cost";
+const FIXED_OM: &str = "fixed O&M";
+const VARIABLE_OM: &str = "variable O&M";
+const OVERHAUL_COST: &str = "overhaul cost";
 
 /// Present values accumulated over the operating rows.
 pub(crate) struct OperatingPart<M: Money> {
@@ -82,9 +82,9 @@ impl<M: Money> FuelStream<M> {
                         first: *first_year,
                         last: *first_year + prices.len() as i32 - 1,
                     })?;
-                let cost = priced(price, quantity, FUEL_GJ, year)?;
-                let discounted = mul(cost, discount.1, FUEL_GJ, year)?;
-                *present_value = add(*present_value, discounted, FUEL_GJ, year)?;
+                let cost = priced(price, quantity, FUEL_COST, year)?;
+                let discounted = mul(cost, discount.1, FUEL_COST, year)?;
+                *present_value = add(*present_value, discounted, FUEL_COST, year)?;
                 Ok(cost)
             }
         }
@@ -144,14 +144,17 @@ impl<M: Money> Stream<M> {
     }
 }
 
-/// `price × quantity`, the quantity converted at the one crossing.
+/// `price × quantity`, the quantity converted at the one crossing. Inputs
+/// are validated finite before any row, so a failed conversion here means
+/// the escalated quantity left the representable range.
 fn priced<M: Money>(
     price: M,
     quantity: f64,
     stream: &'static str,
     year: i32,
 ) -> Result<M, FinanceError> {
-    let quantity: M = convert_physics_to_money(quantity, stream)?;
+    let quantity: M = convert_physics_to_money(quantity, stream)
+        .map_err(|_| FinanceError::Overflow { stream, year })?;
     mul(price, quantity, stream, year)
 }
 
@@ -186,7 +189,7 @@ pub(crate) fn operating_rows<M: Money>(
         FuelPrice::Escalating {
             price_per_gj,
             escalation,
-        } => FuelStream::Escalating(Stream::new(FUEL_GJ, *price_per_gj, *escalation)),
+        } => FuelStream::Escalating(Stream::new(FUEL_COST, *price_per_gj, *escalation)),
         FuelPrice::Path(path) => FuelStream::Path {
             first_year,
             prices: resolve_price_path(path, first_year, last_year)?,
@@ -198,11 +201,11 @@ pub(crate) fn operating_rows<M: Money>(
         PriceBasis::Lhv => 1.0,
     };
     let carbon = &inputs.carbon;
-    let mut carbon_cost = Stream::new(CO2_TONNES, carbon.price_per_tonne, carbon.escalation);
-    let mut fixed_om = Stream::new(KW_YEARS, inputs.fixed_om.price, inputs.fixed_om.escalation);
+    let mut carbon_cost = Stream::new(CARBON_COST, carbon.price_per_tonne, carbon.escalation);
+    let mut fixed_om = Stream::new(FIXED_OM, inputs.fixed_om.price, inputs.fixed_om.escalation);
     let variable = &inputs.variable_om;
-    let mut variable_om = Stream::new(ENERGY_MWH, variable.price, variable.escalation);
-    let mut overhauls = overhaul.map(|o| Stream::new(OVERHAULS, o.cost, o.escalation));
+    let mut variable_om = Stream::new(VARIABLE_OM, variable.price, variable.escalation);
+    let mut overhauls = overhaul.map(|o| Stream::new(OVERHAUL_COST, o.cost, o.escalation));
     let mut discount = FactorChain::discount(inputs.rates.discount_rate);
 
     let mut rows_present_value = M::ZERO;

@@ -13,3 +13,4 @@ pub use model::{build_model, ModelOptions};
 pub mod point;
 pub mod risk;
 pub mod sampling;
+pub mod sweep;

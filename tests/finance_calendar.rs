@@ -25,19 +25,35 @@ fn actual_actual_year_fractions() {
 #[test]
 fn mid_year_start_rows_and_proration() {
     let ledger = build_ledger(&busy_inputs()).expect("ledger");
-    let operating: Vec<_> = ledger.rows.iter().filter(|r| r.kind == RowKind::Operation).collect();
+    let operating: Vec<_> = ledger
+        .rows
+        .iter()
+        .filter(|r| r.kind == RowKind::Operation)
+        .collect();
     assert_eq!(operating.len(), 31);
     let first = operating[0];
-    assert_eq!((first.year, first.period_start, first.period_end), (2027, date(2027, 7, 1), date(2027, 12, 31)));
+    assert_eq!(
+        (first.year, first.period_start, first.period_end),
+        (2027, date(2027, 7, 1), date(2027, 12, 31))
+    );
     assert!((first.operating_hours - 6000.0 * 184.0 / 365.0).abs() < 1e-9);
     let leap = operating[1];
     assert_eq!((leap.year, leap.operating_hours), (2028, 6000.0));
     let last = operating[30];
-    assert_eq!((last.year, last.period_start, last.period_end), (2057, date(2057, 1, 1), date(2057, 6, 30)));
+    assert_eq!(
+        (last.year, last.period_start, last.period_end),
+        (2057, date(2057, 1, 1), date(2057, 6, 30))
+    );
     assert!((last.operating_hours - 6000.0 * 181.0 / 365.0).abs() < 1e-9);
-    assert_eq!(ledger.summary.analysis.calendar.end_of_life, date(2057, 7, 1));
+    assert_eq!(
+        ledger.summary.analysis.calendar.end_of_life,
+        date(2057, 7, 1)
+    );
     let residual = ledger.rows.last().unwrap();
-    assert_eq!((residual.kind, residual.period_start), (RowKind::Residual, date(2057, 7, 1)));
+    assert_eq!(
+        (residual.kind, residual.period_start),
+        (RowKind::Residual, date(2057, 7, 1))
+    );
 }
 
 /// A 29 February start has its anniversaries on 28 February (chrono's
@@ -50,7 +66,10 @@ fn leap_day_start_and_life_limits() {
     assert!((first.fraction_of_year - 307.0 / 366.0).abs() < 1e-15);
     assert!(Calendar::new(date(2028, 1, 1), 0).is_err());
     assert!(Calendar::new(date(2028, 1, 1), 61).is_err());
-    assert_eq!(Calendar::new(date(2028, 1, 1), 60).unwrap().period_count(), 60);
+    assert_eq!(
+        Calendar::new(date(2028, 1, 1), 60).unwrap().period_count(),
+        60
+    );
 }
 
 /// Capital paid two and one years before commercial operation is carried
@@ -59,14 +78,27 @@ fn leap_day_start_and_life_limits() {
 fn construction_capital_has_factors_above_one() {
     let mut inputs = empty_inputs(5, 0.07);
     inputs.capital = Capital::Schedule(vec![
-        CapitalPayment { date: date(2024, 1, 1), amount: dec("100.00") },
-        CapitalPayment { date: date(2025, 1, 1), amount: dec("200.00") },
+        CapitalPayment {
+            date: date(2024, 1, 1),
+            amount: dec("100.00"),
+        },
+        CapitalPayment {
+            date: date(2025, 1, 1),
+            amount: dec("200.00"),
+        },
     ]);
     let ledger = build_ledger(&inputs).unwrap();
-    let capital: Vec<_> = ledger.rows.iter().filter(|r| r.kind == RowKind::Capital).collect();
+    let capital: Vec<_> = ledger
+        .rows
+        .iter()
+        .filter(|r| r.kind == RowKind::Capital)
+        .collect();
     assert_eq!(capital[0].discount_factor, dec("1.1449"));
     assert_eq!(capital[1].discount_factor, dec("1.07"));
-    assert_eq!(capital[0].present_value + capital[1].present_value, dec("328.49"));
+    assert_eq!(
+        capital[0].present_value + capital[1].present_value,
+        dec("328.49")
+    );
 }
 
 /// Degradation and overhauls, hand-computed. 8 000 h a year, 1 % heat rate
@@ -81,12 +113,28 @@ fn degradation_and_overhauls_hand_computed() {
     let mut inputs = empty_inputs(4, 0.05);
     inputs.operation.operating_hours = 8000.0;
     inputs.operation.fuel_energy_gj_lhv = 1_000_000.0;
-    inputs.degradation = Degradation { heat_rate_fraction_per_year: 0.01, recoverable_fraction: 0.5 };
-    inputs.overhaul = Some(Overhaul { interval_hours: 16_000.0, cost: dec("500000.00"), escalation: 0.0 });
+    inputs.degradation = Degradation {
+        heat_rate_fraction_per_year: 0.01,
+        recoverable_fraction: 0.5,
+    };
+    inputs.overhaul = Some(Overhaul {
+        interval_hours: 16_000.0,
+        cost: dec("500000.00"),
+        escalation: 0.0,
+    });
     let ledger = build_ledger(&inputs).unwrap();
-    let operating: Vec<_> = ledger.rows.iter().filter(|r| r.kind == RowKind::Operation).collect();
+    let operating: Vec<_> = ledger
+        .rows
+        .iter()
+        .filter(|r| r.kind == RowKind::Operation)
+        .collect();
     for (row, multiplier) in operating.iter().zip([1.005, 1.015, 1.015, 1.025]) {
-        assert!((row.fuel_energy_gj - 1e6 * multiplier).abs() < 1e-6, "{}: {}", row.year, row.fuel_energy_gj);
+        assert!(
+            (row.fuel_energy_gj - 1e6 * multiplier).abs() < 1e-6,
+            "{}: {}",
+            row.year,
+            row.fuel_energy_gj
+        );
     }
     let counts: Vec<u32> = operating.iter().map(|r| r.overhaul_count).collect();
     assert_eq!(counts, [0, 1, 0, 0]);
@@ -95,9 +143,17 @@ fn degradation_and_overhauls_hand_computed() {
     // Without overhauls nothing is recovered: 1 + 0.01 (k − ½).
     inputs.overhaul = None;
     let ledger = build_ledger(&inputs).unwrap();
-    let fuel: Vec<f64> = ledger.rows.iter().filter(|r| r.kind == RowKind::Operation).map(|r| r.fuel_energy_gj).collect();
+    let fuel: Vec<f64> = ledger
+        .rows
+        .iter()
+        .filter(|r| r.kind == RowKind::Operation)
+        .map(|r| r.fuel_energy_gj)
+        .collect();
     for (k, value) in fuel.iter().enumerate() {
         let expected = 1e6 * (1.0 + 0.01 * (k as f64 + 0.5));
-        assert!((value - expected).abs() < 1e-6, "year {k}: {value} vs {expected}");
+        assert!(
+            (value - expected).abs() < 1e-6,
+            "year {k}: {value} vs {expected}"
+        );
     }
 }

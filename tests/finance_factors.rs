@@ -24,7 +24,10 @@ const YEARS: [u32; 4] = [1, 10, 25, 60];
 
 fn assert_close(actual: f64, expected: f64, what: &str) {
     let error = (actual - expected).abs() / expected.abs();
-    assert!(error < 1e-12, "{what}: ledger {actual} vs closed form {expected} (rel {error:e})");
+    assert!(
+        error < 1e-12,
+        "{what}: ledger {actual} vs closed form {expected} (rel {error:e})"
+    );
 }
 
 /// Present value of each stream in both number types, as f64 for comparison.
@@ -32,8 +35,14 @@ fn fixed_and_fuel_pv(inputs: &LedgerInputs) -> [(f64, f64); 2] {
     let decimal = summarize_ledger(inputs).expect("decimal ledger");
     let float = summarize_ledger(&inputs.to_f64()).expect("f64 ledger");
     [
-        (decimal.present_value.fixed_om.to_f64(), float.present_value.fixed_om),
-        (decimal.present_value.fuel_cost.to_f64(), float.present_value.fuel_cost),
+        (
+            decimal.present_value.fixed_om.to_f64(),
+            float.present_value.fixed_om,
+        ),
+        (
+            decimal.present_value.fuel_cost.to_f64(),
+            float.present_value.fuel_cost,
+        ),
     ]
 }
 
@@ -94,7 +103,11 @@ fn single_amount_matches_spv() {
             inputs.fuel.price = FuelPrice::Path(
                 (2026..2086)
                     .map(|year| {
-                        let amount = if year == 2025 + t as i32 { dec("987654.32") } else { Decimal::ZERO };
+                        let amount = if year == 2025 + t as i32 {
+                            dec("987654.32")
+                        } else {
+                            Decimal::ZERO
+                        };
                         (year, amount)
                     })
                     .collect(),

@@ -9,9 +9,7 @@
 
 mod finance_support;
 
-use brayfin::finance::{
-    build_ledger, compare_ledgers, Capital, FuelPrice, LedgerInputs, Money,
-};
+use brayfin::finance::{build_ledger, compare_ledgers, Capital, FuelPrice, LedgerInputs, Money};
 use finance_support::{dec, empty_inputs};
 use rust_decimal::Decimal;
 use serde_json::Value;
@@ -75,8 +73,14 @@ fn lifecycle_cost_matches_numpy_financial_npv() {
         let investment = -case.values[0];
         let inputs = ledger_inputs(case.rate, investment, &case.values[1..]);
         let expected = case.npv + 2.0 * investment.to_f64();
-        let decimal = build_ledger(&inputs).expect("ledger").summary.lifecycle_cost;
-        let float = build_ledger(&inputs.to_f64()).expect("ledger").summary.lifecycle_cost;
+        let decimal = build_ledger(&inputs)
+            .expect("ledger")
+            .summary
+            .lifecycle_cost;
+        let float = build_ledger(&inputs.to_f64())
+            .expect("ledger")
+            .summary
+            .lifecycle_cost;
         for (label, actual) in [("Decimal", Money::to_f64(decimal)), ("f64", float)] {
             assert!(
                 relative_error(actual, expected) < 1e-12,
@@ -113,7 +117,9 @@ fn net_savings_and_irr_match_numpy_financial() {
             case.rate,
             case.npv
         );
-        let irr = comparison.internal_rate_of_return.expect("one sign change: an IRR exists");
+        let irr = comparison
+            .internal_rate_of_return
+            .expect("one sign change: an IRR exists");
         assert!(
             (irr - case.irr).abs() < 1e-9,
             "n {}: irr {irr} vs numpy-financial {}",

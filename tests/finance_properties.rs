@@ -6,6 +6,7 @@
 //! - real and nominal statements of the same cash flows (Fisher relation)
 //!   give the same lifecycle cost;
 //! - the Decimal and f64 ledgers agree to 1e-9 relative.
+//!
 //! Generated ranges are plausible plant inputs (invented, not check values).
 
 mod finance_support;

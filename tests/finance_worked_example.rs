@@ -46,7 +46,11 @@ fn hand_computed_three_year_example_to_the_cent() {
     let ledger = build_ledger(&inputs).expect("ledger");
     let cents = |value| round_for_presentation(value, 2);
 
-    let operating: Vec<_> = ledger.rows.iter().filter(|r| r.kind == RowKind::Operation).collect();
+    let operating: Vec<_> = ledger
+        .rows
+        .iter()
+        .filter(|r| r.kind == RowKind::Operation)
+        .collect();
     assert_eq!(operating.len(), 3);
     let expected = [
         (2026, "40800.00", "50800.00", "49320.39"),

@@ -103,8 +103,8 @@ pub fn bid_factors<M: Money>(
             FinanceError::OutOfRange {
                 value,
                 valid,
-                field,
-            } if field == "fixed_om.escalation" => FinanceError::OutOfRange {
+                field: "fixed_om.escalation",
+            } => FinanceError::OutOfRange {
                 field: "capacity_value.escalation",
                 value,
                 valid,

@@ -150,7 +150,14 @@ pub struct Overhaul<M: Money = Decimal> {
     pub escalation: f64,
 }
 
-/// Heat-rate degradation. See [`super::degradation`] for the model.
+/// Heat-rate degradation.
+///
+/// Model: degradation accrues in proportion to operating hours (`g` per year
+/// of operation at the stated annual hours); each overhaul recovers the
+/// recoverable share of what accrued since the previous overhaul, the rest
+/// accumulates for the life. A row's fuel energy is the new-and-clean fuel
+/// energy times the mean of `1 + degradation` over the row's hours. Output
+/// is held; degradation raises fuel burn only.
 #[derive(Debug, Clone, Copy, PartialEq, Default)]
 pub struct Degradation {
     /// Heat-rate increase per year of operation at the stated annual hours,

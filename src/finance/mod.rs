@@ -10,6 +10,24 @@
 //! Methods follow NIST Handbook 135 and ASTM E917 (life-cycle cost), E964
 //! (savings-to-investment ratio), E1057 (adjusted internal rate of return),
 //! E1074 (net savings) and E1121 (payback).
+//!
+//! Conventions, each documented where it is applied:
+//! - Base date (time zero) is the commercial-operation date; construction
+//!   capital before it is carried forward (discount factor above one).
+//! - Service life is `N` anniversary years; rows are calendar years, the
+//!   first from commercial operation to 31 December, the last to the day
+//!   before the `N`-th anniversary; time runs on the actual/actual (ISDA)
+//!   day count and partial years are prorated by days ([`Calendar`]).
+//! - Prices are stated at the base date on the analysis basis (real or
+//!   nominal, [`RateBasis`]) and escalate to each row's cash time, which is
+//!   the period end or middle ([`Timing`]).
+//! - Overhauls fall at multiples of the interval of accumulated operating
+//!   hours; one falling exactly at the end of life is not charged.
+//! - Residual value is credited on its own row at the end of life.
+//! - `f64` becomes `Decimal` at 15 significant digits, at
+//!   [`convert_physics_to_money`] (quantities) and [`Money::from_factor`]
+//!   (discount factors); money is never rounded inside the ledger and is
+//!   rounded once for display by [`round_for_presentation`] (half-to-even).
 
 mod bid;
 mod calendar;

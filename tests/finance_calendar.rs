@@ -157,3 +157,31 @@ fn degradation_and_overhauls_hand_computed() {
         );
     }
 }
+
+/// Ledger identities on a busy ledger: each row's total is the sum of its
+/// money columns and its present value is total × discount factor, exactly
+/// in Decimal; the lifecycle cost is exactly the sum of the rows' present
+/// values; the streams' present values add up to it within 1e-14 relative.
+#[test]
+fn ledger_identities_hold_exactly() {
+    let ledger = build_ledger(&busy_inputs()).unwrap();
+    let mut sum = rust_decimal::Decimal::ZERO;
+    for row in &ledger.rows {
+        let columns = row.fuel_cost
+            + row.carbon_cost
+            + row.fixed_om
+            + row.variable_om
+            + row.overhaul
+            + row.capital
+            + row.residual;
+        assert_eq!(row.total, columns, "{} {:?}", row.year, row.kind);
+        assert_eq!(row.present_value, row.total * row.discount_factor);
+        sum += row.present_value;
+    }
+    let summary = ledger.summary;
+    assert_eq!(summary.lifecycle_cost, sum);
+    let streams =
+        summary.present_value.operating().unwrap() + summary.present_value.investment().unwrap();
+    let gap = (streams - sum).abs() / sum;
+    assert!(gap < dec("1e-14"), "streams {streams} vs rows {sum}");
+}

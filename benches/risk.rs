@@ -1,0 +1,97 @@
+//! Speed of `risk` and `sweep` on the three-candidate, 30-year demo
+//! scenario `scenarios/corvel-bay-peaker.toml`, all cores.
+//!
+//! Targets (this 2-core machine): risk with 100 000 samples ≤ 2 s; a sweep
+//! of 100 000 points (every candidate's cycle and ledger at each point)
+//! ≤ 0.5 s. The one-point figures give the cost per point to set against a
+//! general-purpose Python script (about 35 µs per point here).
+
+use brayfin::analysis::point::{Figures, PointModel};
+use brayfin::analysis::risk::run_risk;
+use brayfin::analysis::sweep::{plan, run_sweep};
+use brayfin::scenario::{load, LoadedScenario};
+use criterion::{black_box, criterion_group, criterion_main, Criterion};
+use std::path::Path;
+use std::time::Duration;
+
+fn demo() -> LoadedScenario {
+    let path = Path::new(env!("CARGO_MANIFEST_DIR")).join("scenarios/corvel-bay-peaker.toml");
+    match load(&path) {
+        Ok(loaded) => loaded,
+        Err(e) => panic!("the demo scenario must load: {e}"),
+    }
+}
+
+fn sweep_points(loaded: &LoadedScenario, vary: &str) -> usize {
+    let Ok(plan) = plan(loaded, &[vary.to_string()], None) else {
+        panic!("the bench sweep must be valid: {vary}");
+    };
+    let mut rows = 0;
+    match run_sweep(loaded, &plan, &mut |block| {
+        rows += block.len();
+        Ok(())
+    }) {
+        Ok(_) => rows,
+        Err(e) => panic!("the bench sweep must run: {e}"),
+    }
+}
+
+fn bench(c: &mut Criterion) {
+    let loaded = demo();
+    let mut group = c.benchmark_group("monte carlo and sweep");
+    group.sample_size(10);
+    group.measurement_time(Duration::from_secs(12));
+    group.bench_function("risk, 100 000 samples, 3 candidates, 30 years", |b| {
+        b.iter(|| run_risk(black_box(&loaded), 100_000, 1, &mut |_, _| {}))
+    });
+    // Every point changes every candidate's turbine: three cycle solves and
+    // three ledgers per point.
+    group.bench_function(
+        "sweep, 100 000 points of candidate.turbine_efficiency",
+        |b| {
+            b.iter(|| {
+                sweep_points(
+                    black_box(&loaded),
+                    "candidate.turbine_efficiency=0.85:0.949999:0.000001",
+                )
+            })
+        },
+    );
+    // Economics only: the cycles are reused, three ledgers per point.
+    group.bench_function("sweep, 100 000 points of fuel.price", |b| {
+        b.iter(|| sweep_points(black_box(&loaded), "fuel.price=2:6.99995:0.00005"))
+    });
+    group.finish();
+
+    // One point on one thread: what a single evaluation costs.
+    let scenario = &loaded.scenario;
+    let fuel = match brayfin::analysis::compare::study_fuel(&loaded) {
+        Ok(f) => f,
+        Err(e) => panic!("the demo fuel must solve: {e}"),
+    };
+    let n = scenario.candidates.len();
+    let model = PointModel::new(
+        scenario,
+        fuel,
+        0,
+        vec!["candidate.turbine_efficiency".to_string()],
+        vec![true; n],
+    );
+    let mut ws = model.workspace();
+    let mut out = vec![Figures::default(); n];
+    let mut efficiency = 0.85;
+    c.bench_function("one point, 3 candidates, cycles and ledgers", |b| {
+        b.iter(|| {
+            // A new value each time, so no cycle is reused.
+            efficiency = if efficiency > 0.95 {
+                0.85
+            } else {
+                efficiency + 1e-6
+            };
+            model.evaluate(&mut ws, black_box(&[efficiency]), &mut out)
+        })
+    });
+}
+
+criterion_group!(benches, bench);
+criterion_main!(benches);

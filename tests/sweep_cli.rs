@@ -1,0 +1,301 @@
+//! `brayfin sweep` end to end: a sweep point equals a `compare` run of the
+//! scenario file edited to that value; grids in long format, first key
+//! slowest; unsolvable points reported in their rows; bad ranges refused
+//! with exit code 1.
+
+use assert_cmd::Command;
+use serde_json::Value;
+
+const DEMO: &str = "scenarios/corvel-bay-peaker.toml";
+const DEMO_TEXT: &str = include_str!("../scenarios/corvel-bay-peaker.toml");
+
+fn brayfin(args: &[&str]) -> std::process::Output {
+    match Command::cargo_bin("brayfin") {
+        Ok(mut c) => match c.args(args).output() {
+            Ok(o) => o,
+            Err(e) => panic!("brayfin must run: {e}"),
+        },
+        Err(e) => panic!("brayfin must build: {e}"),
+    }
+}
+
+fn json_of(args: &[&str]) -> Value {
+    let output = brayfin(args);
+    assert!(
+        output.status.success(),
+        "{args:?}: {}",
+        String::from_utf8_lossy(&output.stderr)
+    );
+    match serde_json::from_slice(&output.stdout) {
+        Ok(v) => v,
+        Err(e) => panic!("{args:?} must print JSON: {e}"),
+    }
+}
+
+/// Money printed as a decimal string, or a number.
+fn amount(v: &Value) -> f64 {
+    match v {
+        Value::String(s) => s.parse().unwrap_or(f64::NAN),
+        other => other.as_f64().unwrap_or(f64::NAN),
+    }
+}
+
+/// Sweep the demo at one value of `key` and compare every candidate with a
+/// `compare --format json` run of the demo text edited by `edit`.
+fn check_point_against_compare(key: &str, value: &str, from: &str, to: &str) {
+    assert!(DEMO_TEXT.contains(from), "the demo must contain {from}");
+    let edited = DEMO_TEXT.replacen(from, to, 1);
+    let dir = match tempfile::tempdir() {
+        Ok(d) => d,
+        Err(e) => panic!("temporary folder: {e}"),
+    };
+    let path = dir.path().join("edited.toml");
+    if let Err(e) = std::fs::write(&path, edited) {
+        panic!("writing the edited scenario: {e}");
+    }
+    let path_text = path.to_string_lossy().to_string();
+    let compared = json_of(&["compare", &path_text, "--format", "json"]);
+    let vary = format!("{key}={value}:{value}:1");
+    let swept = json_of(&["sweep", DEMO, "--vary", &vary, "--format", "json"]);
+    let rows = swept["rows"].as_array().cloned().unwrap_or_default();
+    let candidates = compared["candidates"]
+        .as_array()
+        .cloned()
+        .unwrap_or_default();
+    assert_eq!(rows.len(), candidates.len());
+    for (row, c) in rows.iter().zip(&candidates) {
+        assert_eq!(row["candidate_id"], c["id"]);
+        assert_eq!(row["error"], Value::Null);
+        // The same cycle solve on the same inputs: the same f64.
+        assert_eq!(
+            row["heat_rate_kj_per_kwh"].as_f64(),
+            c["performance"]["heat_rate_kj_per_kwh"].as_f64(),
+            "{key}: heat rate of {}",
+            c["id"]
+        );
+        // Money: compare's decimal ledger and sweep's f64 ledger, each
+        // rounded to the cent; the ledgers agree to about 1e-8 of a unit,
+        // so the printed cents agree, or differ by one cent when a value
+        // sits on a half-cent boundary.
+        let e = &c["economics"];
+        for (name, swept, compared) in [
+            (
+                "lifecycle cost",
+                &row["lifecycle_cost"],
+                &e["lifecycle_cost"],
+            ),
+            (
+                "net savings",
+                &row["net_savings"],
+                &e["net_savings_vs_baseline"],
+            ),
+            (
+                "break-even premium",
+                &row["break_even_premium"],
+                &e["break_even_premium"],
+            ),
+        ] {
+            if compared.is_null() {
+                assert!(swept.is_null(), "{key}: {name} of {}", c["id"]);
+                continue;
+            }
+            let (s, k) = (amount(swept), amount(compared));
+            assert!(
+                (s - k).abs() <= 0.010_000_1,
+                "{key}: {name} of {}: sweep {s}, compare {k}",
+                c["id"]
+            );
+        }
+    }
+}
+
+#[test]
+fn a_fuel_price_point_equals_compare_of_the_edited_file() {
+    // 5 per GJ, internal unit of fuel.price; the file then says "5 USD/GJ".
+    check_point_against_compare(
+        "fuel.price",
+        "5",
+        "price = \"3.85 USD/MMBtu\"",
+        "price = \"5 USD/GJ\"",
+    );
+}
+
+#[test]
+fn a_turbine_efficiency_point_equals_compare_of_the_edited_file() {
+    // Only the premium bid has 91.5 % as its turbine efficiency line.
+    check_point_against_compare(
+        "candidate[premium].turbine_efficiency",
+        "0.9",
+        "turbine_efficiency = \"91.5 %\"",
+        "turbine_efficiency = 0.9",
+    );
+}
+
+#[test]
+fn an_hours_point_equals_compare_of_the_edited_file() {
+    // Setting hours scales every dispatch block in proportion: 3500 h →
+    // 4200 h is a factor 1.2 (1800, 1100, 600 h → 2160, 1320, 720 h).
+    check_point_against_compare(
+        "operation.hours_per_year",
+        "4200",
+        "{ load = \"100 %\", hours = 1800 },\n  { load = \"80 %\", hours = 1100 },\n  { load = \"60 %\", hours = 600 },",
+        "{ load = \"100 %\", hours = 2160 },\n  { load = \"80 %\", hours = 1320 },\n  { load = \"60 %\", hours = 720 },",
+    );
+}
+
+#[test]
+fn a_grid_is_long_format_with_the_first_key_slowest() {
+    let output = brayfin(&[
+        "sweep",
+        DEMO,
+        "--vary",
+        "fuel.price=3:4:0.5",
+        "--vary",
+        "candidate[premium].turbine_efficiency=0.90:0.91:0.01",
+        "--candidate",
+        "premium",
+        "--format",
+        "csv",
+    ]);
+    assert!(output.status.success());
+    let text = String::from_utf8_lossy(&output.stdout);
+    let lines: Vec<&str> = text.lines().collect();
+    assert_eq!(
+        lines[0],
+        "point,fuel.price,candidate[premium].turbine_efficiency,candidate_id,\
+         heat_rate_kj_per_kwh,lifecycle_cost,net_savings,break_even_premium,error"
+    );
+    // 3 prices × 2 efficiencies, one reported candidate.
+    assert_eq!(lines.len(), 1 + 6);
+    let pairs: Vec<(String, String)> = lines[1..]
+        .iter()
+        .map(|l| {
+            let f: Vec<&str> = l.split(',').collect();
+            assert_eq!(f[3], "premium");
+            assert_eq!(f[8], "", "no error expected: {l}");
+            (f[1].to_string(), f[2].to_string())
+        })
+        .collect();
+    let expected = [
+        ("3", "0.9"),
+        ("3", "0.91"),
+        ("3.5", "0.9"),
+        ("3.5", "0.91"),
+        ("4", "0.9"),
+        ("4", "0.91"),
+    ];
+    for (got, want) in pairs.iter().zip(expected) {
+        assert_eq!((got.0.as_str(), got.1.as_str()), want);
+    }
+}
+
+#[test]
+fn unsolvable_points_are_rows_with_the_reason_not_a_failure() {
+    // 400 K is below the compressor exit temperature at pressure ratio 19.
+    let output = brayfin(&[
+        "sweep",
+        DEMO,
+        "--vary",
+        "candidate.turbine_inlet_temperature=400:1500:1100",
+        "--format",
+        "csv",
+    ]);
+    assert!(output.status.success());
+    let text = String::from_utf8_lossy(&output.stdout);
+    let first = text.lines().nth(1).unwrap_or_default();
+    assert!(first.contains("cannot be solved"), "{first}");
+    let last = text.lines().last().unwrap_or_default();
+    assert!(last.starts_with("1,1500,regenerated,"), "{last}");
+    assert!(
+        last.ends_with(','),
+        "a solved row has an empty error: {last}"
+    );
+    let note = String::from_utf8_lossy(&output.stderr);
+    assert!(note.contains("1 of 2 points could not be solved"), "{note}");
+}
+
+fn refused(args: &[&str], expected: &str) {
+    let output = brayfin(args);
+    assert_eq!(output.status.code(), Some(1), "{args:?}");
+    assert!(output.stdout.is_empty(), "{args:?} printed results");
+    let message = String::from_utf8_lossy(&output.stderr);
+    assert!(message.contains(expected), "{args:?}: {message}");
+}
+
+#[test]
+fn bad_ranges_are_input_errors() {
+    let s = DEMO;
+    refused(
+        &["sweep", s, "--vary", "fuel.prise=3:4:0.5"],
+        "did you mean fuel.price?",
+    );
+    refused(&["sweep", s, "--vary", "fuel.price=3:4:0"], "STEP is zero");
+    refused(
+        &["sweep", s, "--vary", "fuel.price=4:3:0.5"],
+        "points away from TO",
+    );
+    refused(
+        &["sweep", s, "--vary", "fuel.price=0:100:0.00001"],
+        "more than 10000000 points",
+    );
+    refused(
+        &[
+            "sweep",
+            s,
+            "--vary",
+            "fuel.price=0:10:0.001",
+            "--vary",
+            "fuel.escalation=0:0.1:0.0001",
+        ],
+        "the grid has more than 10000000 points",
+    );
+    refused(
+        &[
+            "sweep",
+            s,
+            "--vary",
+            "candidate.turbine_efficiency=0.9:1.1:0.1",
+        ],
+        "above 1",
+    );
+    refused(&["sweep", s, "--vary", "fuel.price=3:4"], "not 3");
+    refused(
+        &["sweep", s, "--vary", "fuel.price=x:4:1"],
+        "not a finite number",
+    );
+    refused(
+        &[
+            "sweep",
+            s,
+            "--vary",
+            "fuel.price=3:4:1",
+            "--candidate",
+            "premiun",
+        ],
+        "expected one of standard, premium, regenerated",
+    );
+    refused(
+        &[
+            "sweep",
+            s,
+            "--vary",
+            "fuel.price=3:4:1",
+            "--vary",
+            "fuel.price=3:4:1",
+        ],
+        "twice",
+    );
+    refused(
+        &[
+            "sweep",
+            s,
+            "--vary",
+            "fuel.price=3:4:1",
+            "--vary",
+            "fuel.escalation=0:0.01:0.01",
+            "--vary",
+            "economics.discount_rate=0.05:0.06:0.01",
+        ],
+        "expected once (a line) or twice (a grid)",
+    );
+}

@@ -121,7 +121,7 @@ pub fn net_savings(scenario: &Scenario, baseline: &str) -> Option<Vec<(String, D
         let inputs = ledger_inputs(scenario, candidate, &fuel, &solved.year).ok()?;
         summaries.push((candidate.id.clone(), summarize_ledger(&inputs).ok()?));
     }
-    let base = summaries.iter().find(|(id, _)| id == baseline)?.1.clone();
+    let base = summaries.iter().find(|(id, _)| id == baseline)?.1;
     summaries
         .iter()
         .filter(|(id, _)| id != baseline)

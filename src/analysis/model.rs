@@ -10,7 +10,9 @@ use crate::finance::{
     DEFAULT_MINOR_UNIT_DECIMALS,
 };
 use crate::report::model::*;
-use crate::scenario::{engineering_warnings, LoadedScenario, PriceBasis, RateBasis, Timing};
+use crate::scenario::{
+    engineering_warnings, LoadedScenario, PriceBasis, RateBasis, Scenario, Timing,
+};
 use rust_decimal::Decimal;
 
 /// What to include in the model.
@@ -251,9 +253,23 @@ fn candidate_view(loaded: &LoadedScenario, study: &Study, index: usize) -> Candi
 
 /// Plain-words name of a scenario key for the briefing page.
 pub fn key_label(key: &str) -> String {
+    const NAMES: [(&str, &str); 9] = [
+        ("fuel.price", "fuel price"),
+        ("fuel.escalation", "fuel price escalation"),
+        ("operation.hours_per_year", "operating hours per year"),
+        ("economics.discount_rate", "discount rate"),
+        ("economics.inflation", "general inflation"),
+        ("economics.carbon_price", "carbon price"),
+        ("economics.carbon_escalation", "carbon price escalation"),
+        ("economics.capacity_value", "capacity value"),
+        ("site.ambient_temperature", "ambient temperature"),
+    ];
+    if let Some((_, name)) = NAMES.iter().find(|(k, _)| *k == key) {
+        return name.to_string();
+    }
     let (who, field) = match key.split_once("].") {
         Some((head, field)) => (head.trim_start_matches("candidate[").to_string(), field),
-        None => (String::new(), key.rsplit('.').next().unwrap_or(key)),
+        None => (String::new(), key.strip_prefix("candidate.").unwrap_or(key)),
     };
     let words = field.replace(['_', '.'], " ");
     if who.is_empty() {
@@ -263,17 +279,32 @@ pub fn key_label(key: &str) -> String {
     }
 }
 
-fn show(key: &str, value: f64) -> String {
+/// A key's value as shown, with its unit (values are in the scenario's
+/// internal units: fractions of one, K, h, currency per GJ / t / kW-yr).
+fn show(key: &str, value: f64, scenario: &Scenario) -> String {
+    let currency = &scenario.meta.currency;
+    let basis = match scenario.fuel.price_basis {
+        PriceBasis::Hhv => "HHV",
+        PriceBasis::Lhv => "LHV",
+    };
     let fraction_like = key.contains("rate")
         || key.contains("escalation")
+        || key.contains("inflation")
         || key.contains("efficiency")
         || key.contains("effectiveness")
         || key.contains("loss")
-        || key.contains("fraction");
+        || key.contains("fraction")
+        || key.contains("degradation");
     if key == "fuel.price" {
-        format!("{value:.3} per GJ")
+        format!("{currency} {value:.3}/GJ {basis}")
+    } else if key == "economics.carbon_price" {
+        format!("{currency} {value:.2}/t CO2")
+    } else if key == "economics.capacity_value" {
+        format!("{currency} {value:.2}/kW-yr")
     } else if key.ends_with("hours_per_year") {
         format!("{value:.0} h")
+    } else if key.ends_with("temperature") {
+        format!("{value:.1} K")
     } else if fraction_like && value.abs() <= 2.0 {
         format!("{:.2} %", value * 100.0)
     } else {
@@ -281,19 +312,28 @@ fn show(key: &str, value: f64) -> String {
     }
 }
 
-fn sensitivity_bars(swings: &[Swing]) -> Vec<SensitivityBar> {
+fn sensitivity_bars(swings: &[Swing], scenario: &Scenario) -> Vec<SensitivityBar> {
     swings
         .iter()
         .flat_map(|s| {
-            s.deltas.iter().map(move |(id, low, high)| SensitivityBar {
-                candidate_id: id.clone(),
-                key: s.key.clone(),
-                low_value: show(&s.key, s.low),
-                high_value: show(&s.key, s.high),
-                default_range: s.source == RangeSource::DefaultTwentyPercent,
-                delta_at_low: money(*low),
-                delta_at_high: money(*high),
-            })
+            s.deltas
+                .iter()
+                // A key that belongs to one candidate moves only that one.
+                .filter(move |(id, _, _)| {
+                    s.key
+                        .strip_prefix("candidate[")
+                        .and_then(|rest| rest.split_once(']'))
+                        .is_none_or(|(owner, _)| owner == id)
+                })
+                .map(move |(id, low, high)| SensitivityBar {
+                    candidate_id: id.clone(),
+                    key: s.key.clone(),
+                    low_value: show(&s.key, s.low, scenario),
+                    high_value: show(&s.key, s.high, scenario),
+                    default_range: s.source == RangeSource::DefaultTwentyPercent,
+                    delta_at_low: money(*low),
+                    delta_at_high: money(*high),
+                })
         })
         .collect()
 }
@@ -326,7 +366,7 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
         .map(|s| KeyAssumption {
             key: s.key.clone(),
             label: key_label(&s.key),
-            base_value: show(&s.key, s.base),
+            base_value: show(&s.key, s.base, scenario),
             swing: money(s.magnitude()),
         })
         .collect();
@@ -398,7 +438,7 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
         },
         fuel_price_curves: fuel_price_curves(loaded, &study),
         sensitivity: if options.sensitivity {
-            sensitivity_bars(&swings)
+            sensitivity_bars(&swings, scenario)
         } else {
             Vec::new()
         },

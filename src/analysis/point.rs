@@ -10,6 +10,8 @@
 //! the last solve in this workspace: a sample that moves only economics
 //! reuses the heat rate, which is the same number a new solve would give.
 
+mod restore;
+
 use super::engine::{engine_config_of, fuel_of, gas_model_of};
 use super::evaluate::ledger_inputs;
 use super::operation::annual_operation;
@@ -186,12 +188,19 @@ impl<'s> PointModel<'s> {
         let base = self.base;
         for section in &self.sections {
             match *section {
-                Section::Site => scenario.site.clone_from(&base.site),
-                Section::Fuel => scenario.fuel.clone_from(&base.fuel),
+                Section::Site => restore::site(&mut scenario.site, &base.site),
+                Section::Fuel => restore::fuel(&mut scenario.fuel, &base.fuel),
+                // Plain values only: a copy allocates nothing.
                 Section::Economics => scenario.economics.clone_from(&base.economics),
-                Section::Operation => scenario.operation.clone_from(&base.operation),
-                Section::Candidate(i) => scenario.candidates[i].clone_from(&base.candidates[i]),
-                Section::Candidates => scenario.candidates.clone_from(&base.candidates),
+                Section::Operation => restore::operation(&mut scenario.operation, &base.operation),
+                Section::Candidate(i) => {
+                    restore::candidate(&mut scenario.candidates[i], &base.candidates[i])
+                }
+                Section::Candidates => {
+                    for (dst, src) in scenario.candidates.iter_mut().zip(&base.candidates) {
+                        restore::candidate(dst, src);
+                    }
+                }
             }
         }
     }

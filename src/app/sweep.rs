@@ -18,6 +18,7 @@ use crate::cli::{Format, SweepArgs};
 use crate::report::format::grouped;
 use crate::scenario::{self, LoadedScenario};
 use crate::{Error, Result};
+use rayon::prelude::*;
 use rust_decimal::prelude::FromPrimitive;
 use rust_decimal::Decimal;
 use serde_json::{json, Value};
@@ -134,30 +135,39 @@ pub fn write_sweep(
             writeln!(out, "{line}").map_err(io)?;
         }
     }
-    let mut first_row = true;
-    let mut values = vec![0.0; plan.axes.len()];
-    let mut write_block = |block: &SweepBlock| -> Result<()> {
-        for j in 0..block.len() {
-            let point = block.first_point + j;
-            plan.fill_values(point, &mut values);
-            for &i in &plan.reported {
-                let row = Row {
-                    point,
-                    values: &values,
-                    candidate_id: &scenario.candidates[i].id,
-                    outcome: block.point(j).map(|f| &f[i]),
-                };
-                let text = match format {
-                    Format::Csv => csv_row(&row),
-                    Format::Json => {
-                        let comma = if first_row { "" } else { "," };
-                        first_row = false;
-                        format!("{comma}\n    {}", json_row(&row, &keys))
-                    }
-                    Format::Table => table_row(&row, &key_widths, id_width),
-                };
-                out.write_all(text.as_bytes()).map_err(io)?;
+    // Rows are formatted in parallel, one string per point, and written
+    // in point order.
+    let point_text = |block: &SweepBlock, j: usize| -> String {
+        let point = block.first_point + j;
+        let mut values = [0.0; 2];
+        let values = &mut values[..plan.axes.len()];
+        plan.fill_values(point, values);
+        let mut text = String::new();
+        for (r, &i) in plan.reported.iter().enumerate() {
+            let row = Row {
+                point,
+                values,
+                candidate_id: &scenario.candidates[i].id,
+                outcome: block.point(j).map(|f| &f[i]),
+            };
+            match format {
+                Format::Csv => text.push_str(&csv_row(&row)),
+                Format::Json => {
+                    let comma = if point == 0 && r == 0 { "" } else { "," };
+                    text.push_str(&format!("{comma}\n    {}", json_row(&row, &keys)));
+                }
+                Format::Table => text.push_str(&table_row(&row, &key_widths, id_width)),
             }
+        }
+        text
+    };
+    let mut write_block = |block: &SweepBlock| -> Result<()> {
+        let texts: Vec<String> = (0..block.len())
+            .into_par_iter()
+            .map(|j| point_text(block, j))
+            .collect();
+        for text in texts {
+            out.write_all(text.as_bytes()).map_err(io)?;
         }
         progress(block.first_point + block.len());
         Ok(())

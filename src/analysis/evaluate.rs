@@ -145,5 +145,6 @@ pub fn ledger_inputs(
             },
             escalation: 0.0,
         },
+        replacement: finance::Replacement::default(),
     })
 }

@@ -9,11 +9,13 @@
 //!   the fixed O&M charged on that kW (ledger rerun with one kW more) and is
 //!   worth the present value of a stated capacity value per kW-year
 //!   (what a kW of shortfall would cost to replace; zero unless given),
-//!   computed by the same ledger as a per-kW-year stream. The factor is the
-//!   worth less the cost.
+//!   computed by the same ledger as the capacity part of the output
+//!   replacement stream ([`Replacement`]) for one kW, so it equals what one
+//!   kW less shortfall saves in a comparison levelled on output. The factor
+//!   is the worth less the cost.
 
 use super::engine::summarize_ledger;
-use super::inputs::{EscalatingPrice, LedgerInputs};
+use super::inputs::{EscalatingPrice, LedgerInputs, Replacement};
 use super::money::Money;
 use super::FinanceError;
 
@@ -89,10 +91,13 @@ pub fn bid_factors<M: Money>(
         .ok_or_else(|| overflow(inputs))?;
 
     let mut capacity = inputs.clone();
-    capacity.operation.net_output_kw = 1.0;
-    capacity.fixed_om = EscalatingPrice {
-        price: capacity_value.per_kw_year,
-        escalation: capacity_value.escalation,
+    capacity.replacement = Replacement {
+        capacity_kw: 1.0,
+        capacity_price: EscalatingPrice {
+            price: capacity_value.per_kw_year,
+            escalation: capacity_value.escalation,
+        },
+        ..Replacement::default()
     };
     let pv_capacity_value_per_kw = summarize_ledger(&capacity)
         .map_err(|error| match error {
@@ -103,7 +108,7 @@ pub fn bid_factors<M: Money>(
             FinanceError::OutOfRange {
                 value,
                 valid,
-                field: "fixed_om.escalation",
+                field: "replacement.capacity_price.escalation",
             } => FinanceError::OutOfRange {
                 field: "capacity_value.escalation",
                 value,
@@ -112,7 +117,7 @@ pub fn bid_factors<M: Money>(
             other => other,
         })?
         .present_value
-        .fixed_om;
+        .replacement;
     let pv_per_kw_net_output = pv_capacity_value_per_kw
         .sub_checked(pv_fixed_om_per_kw)
         .ok_or_else(|| overflow(inputs))?;

@@ -4,8 +4,10 @@
 //!
 //! Cost classes (documented choice): "investment" is capital plus the
 //! (negative) residual credit; "operating" is fuel, carbon, fixed and
-//! variable O&M and overhauls (overhauls count as repair, an OM&R cost in the
-//! terms of NIST Handbook 135, not as capital replacement).
+//! variable O&M, overhauls and output replacement (overhauls count as
+//! repair, an OM&R cost in the terms of NIST Handbook 135, not as capital
+//! replacement; output replacement is energy and capacity bought each year
+//! to make up a shortfall, an operating cost).
 
 use super::inputs::FuelPrice;
 use super::ledger::{Ledger, LedgerSummary};

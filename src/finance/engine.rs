@@ -80,6 +80,7 @@ pub(crate) fn single_date_row<M: Money>(kind: RowKind, date: NaiveDate, time: f6
         fixed_om: M::ZERO,
         variable_om: M::ZERO,
         overhaul: M::ZERO,
+        replacement: M::ZERO,
         capital: M::ZERO,
         residual: M::ZERO,
         total: M::ZERO,

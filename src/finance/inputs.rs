@@ -41,6 +41,9 @@ pub struct LedgerInputs<M: Money = Decimal> {
     pub degradation: Degradation,
     /// Value left at the end of the service life, credited.
     pub residual: Residual<M>,
+    /// Output levelling: the energy and capacity this candidate falls short
+    /// of the reference output and must buy elsewhere (zero: no stream).
+    pub replacement: Replacement<M>,
 }
 
 /// When capital is paid.
@@ -133,6 +136,50 @@ pub struct EscalatingPrice<M: Money = Decimal> {
     pub price: M,
     /// Escalation per year on the analysis basis (0 = constant).
     pub escalation: f64,
+}
+
+/// Output levelling ("replacement") stream: what a candidate that delivers
+/// less than the reference output pays to buy the shortfall elsewhere, so
+/// that candidates of different output are compared on equal deliveries
+/// (common practice in bid evaluation).
+///
+/// Charged in each operating row pro rata like the candidate's own streams:
+/// the energy shortfall by the row's fraction of a year of operation (like
+/// energy and variable O&M), the capacity shortfall by the row's fraction of
+/// a year (like fixed O&M). Both quantities are zero or more; zero
+/// quantities (the default) add nothing to the ledger. The stream is an
+/// operating cost but not the candidate's own generation cost, so the
+/// levelized cost of electricity leaves it out
+/// ([`LedgerSummary::levelized_cost_per_mwh`]).
+///
+/// [`LedgerSummary::levelized_cost_per_mwh`]: super::LedgerSummary::levelized_cost_per_mwh
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Replacement<M: Money = Decimal> {
+    /// Energy to be bought per full year of operation, MWh (≥ 0).
+    pub energy_mwh_per_year: f64,
+    /// Price of that energy per MWh at the base date, and its escalation.
+    pub energy_price: EscalatingPrice<M>,
+    /// Capacity to be bought, kW (≥ 0).
+    pub capacity_kw: f64,
+    /// Price of that capacity per kW-year at the base date, and its
+    /// escalation.
+    pub capacity_price: EscalatingPrice<M>,
+}
+
+impl<M: Money> Default for Replacement<M> {
+    /// No shortfall: zero quantities at zero prices.
+    fn default() -> Self {
+        let zero = EscalatingPrice {
+            price: M::ZERO,
+            escalation: 0.0,
+        };
+        Replacement {
+            energy_mwh_per_year: 0.0,
+            energy_price: zero,
+            capacity_kw: 0.0,
+            capacity_price: zero,
+        }
+    }
 }
 
 /// Major overhauls, triggered by accumulated operating hours.
@@ -309,6 +356,12 @@ impl<M: Money> LedgerInputs<M> {
                     ResidualValue::Amount(amount) => ResidualValue::Amount(convert(amount)),
                 },
                 escalation: self.residual.escalation,
+            },
+            replacement: Replacement {
+                energy_mwh_per_year: self.replacement.energy_mwh_per_year,
+                energy_price: escalating(&self.replacement.energy_price),
+                capacity_kw: self.replacement.capacity_kw,
+                capacity_price: escalating(&self.replacement.capacity_price),
             },
         }
     }

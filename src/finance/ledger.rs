@@ -64,6 +64,9 @@ pub struct LedgerRow<M: Money = Decimal> {
     pub variable_om: M,
     /// Overhaul cost.
     pub overhaul: M,
+    /// Output replacement: the energy and capacity shortfall bought
+    /// elsewhere (see [`Replacement`](super::Replacement)).
+    pub replacement: M,
     /// Capital paid.
     pub capital: M,
     /// Residual value credited (zero or negative).
@@ -89,6 +92,8 @@ pub struct StreamTotals<M: Money = Decimal> {
     pub variable_om: M,
     /// Present value of overhauls.
     pub overhaul: M,
+    /// Present value of output replacement (energy and capacity shortfall).
+    pub replacement: M,
     /// Present value of capital.
     pub capital: M,
     /// Present value of the residual credit (zero or negative).
@@ -103,18 +108,21 @@ impl<M: Money> StreamTotals<M> {
         fixed_om: M::ZERO,
         variable_om: M::ZERO,
         overhaul: M::ZERO,
+        replacement: M::ZERO,
         capital: M::ZERO,
         residual: M::ZERO,
     };
 
     /// Operating, maintenance and repair costs: fuel, carbon, fixed and
-    /// variable O&M and overhauls (everything but capital and residual).
+    /// variable O&M, overhauls and output replacement (everything but
+    /// capital and residual).
     pub fn operating(&self) -> Option<M> {
         self.fuel_cost
             .add_checked(self.carbon_cost)?
             .add_checked(self.fixed_om)?
             .add_checked(self.variable_om)?
-            .add_checked(self.overhaul)
+            .add_checked(self.overhaul)?
+            .add_checked(self.replacement)
     }
 
     /// Investment net of residual value: capital plus the (negative)
@@ -180,11 +188,17 @@ pub struct LedgerSummary<M: Money = Decimal> {
 }
 
 impl<M: Money> LedgerSummary<M> {
-    /// Levelized cost of electricity per MWh: lifecycle cost over the present
-    /// value of energy. `None` when no energy is generated.
+    /// Levelized cost of electricity per MWh: the candidate's own lifecycle
+    /// cost over the present value of the energy it generates. Output
+    /// replacement is left out: it buys energy and capacity the candidate
+    /// does not generate, so it is not a cost of the candidate's MWh (and
+    /// levelized costs of candidates of different output stay comparable).
+    /// `None` when no energy is generated.
     pub fn levelized_cost_per_mwh(&self) -> Option<M> {
         let energy = M::from_physics(self.pv_energy_mwh)?;
-        self.lifecycle_cost.div_checked(energy)
+        self.lifecycle_cost
+            .sub_checked(self.present_value.replacement)?
+            .div_checked(energy)
     }
 }
 

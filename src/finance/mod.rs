@@ -24,6 +24,10 @@
 //! - Overhauls fall at multiples of the interval of accumulated operating
 //!   hours; one falling exactly at the end of life is not charged.
 //! - Residual value is credited on its own row at the end of life.
+//! - Output replacement ([`Replacement`]), the energy and capacity a
+//!   candidate falls short of and buys elsewhere, is an operating cost
+//!   charged pro rata in each operating row; the levelized cost leaves it
+//!   out.
 //! - `f64` becomes `Decimal` at 15 significant digits, at
 //!   [`convert_physics_to_money`] (quantities) and [`Money::from_factor`]
 //!   (discount factors); money is never rounded inside the ledger and is
@@ -54,7 +58,7 @@ pub use engine::{build_ledger, summarize_ledger};
 pub use error::FinanceError;
 pub use inputs::{
     Capital, CapitalPayment, Carbon, Degradation, EscalatingPrice, Fuel, FuelPrice, LedgerInputs,
-    Operation, Overhaul, PriceBasis, Residual, ResidualValue,
+    Operation, Overhaul, PriceBasis, Replacement, Residual, ResidualValue,
 };
 pub use ledger::{Analysis, Ledger, LedgerRow, LedgerSummary, RowKind, StreamTotals};
 pub use money::{

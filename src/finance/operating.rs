@@ -16,6 +16,8 @@ const CARBON_COST: &str = "carbon cost";
 const FIXED_OM: &str = "fixed O&M";
 const VARIABLE_OM: &str = "variable O&M";
 const OVERHAUL_COST: &str = "overhaul cost";
+const REPLACEMENT_ENERGY: &str = "output replacement energy";
+const REPLACEMENT_CAPACITY: &str = "output replacement capacity";
 
 /// Present values accumulated over the operating rows.
 pub(crate) struct OperatingPart<M: Money> {
@@ -144,6 +146,38 @@ impl<M: Money> Stream<M> {
     }
 }
 
+/// A stream that may be off (no overhauls, no output shortfall): then it
+/// costs nothing and leaves the rows exactly as they would be without it.
+struct OptionalStream<M>(Option<Stream<M>>);
+
+impl<M: Money> OptionalStream<M> {
+    fn new(on: bool, name: &'static str, price: M, escalation: f64) -> Self {
+        OptionalStream(on.then(|| Stream::new(name, price, escalation)))
+    }
+
+    /// [`Stream::cost`], or zero when the stream is off.
+    fn cost(
+        &mut self,
+        quantity: f64,
+        step_years: f64,
+        discount: f64,
+        year: i32,
+    ) -> Result<M, FinanceError> {
+        match &mut self.0 {
+            Some(stream) => stream.cost(quantity, step_years, discount, year),
+            None => Ok(M::ZERO),
+        }
+    }
+
+    /// [`Stream::present_value`], or zero when the stream is off.
+    fn present_value(&self, year: i32) -> Result<M, FinanceError> {
+        match &self.0 {
+            Some(stream) => stream.present_value(year),
+            None => Ok(M::ZERO),
+        }
+    }
+}
+
 /// `price × quantity`, the quantity converted at the one crossing. Inputs
 /// are validated finite before any row, so a failed conversion here means
 /// the escalated quantity left the representable range.
@@ -205,7 +239,21 @@ pub(crate) fn operating_rows<M: Money>(
     let mut fixed_om = Stream::new(FIXED_OM, inputs.fixed_om.price, inputs.fixed_om.escalation);
     let variable = &inputs.variable_om;
     let mut variable_om = Stream::new(VARIABLE_OM, variable.price, variable.escalation);
-    let mut overhauls = overhaul.map(|o| Stream::new(OVERHAUL_COST, o.cost, o.escalation));
+    let mut overhauls =
+        OptionalStream(overhaul.map(|o| Stream::new(OVERHAUL_COST, o.cost, o.escalation)));
+    let shortfall = &inputs.replacement;
+    let mut replacement_energy = OptionalStream::new(
+        shortfall.energy_mwh_per_year > 0.0,
+        REPLACEMENT_ENERGY,
+        shortfall.energy_price.price,
+        shortfall.energy_price.escalation,
+    );
+    let mut replacement_capacity = OptionalStream::new(
+        shortfall.capacity_kw > 0.0,
+        REPLACEMENT_CAPACITY,
+        shortfall.capacity_price.price,
+        shortfall.capacity_price.escalation,
+    );
     let mut discount = FactorChain::discount(inputs.rates.discount_rate);
 
     let mut rows_present_value = M::ZERO;
@@ -246,11 +294,28 @@ pub(crate) fn operating_rows<M: Money>(
             year,
         )?;
         let variable_om = variable_om.cost(energy_mwh, step, discount_value, year)?;
-        let overhaul = match &mut overhauls {
-            Some(stream) => stream.cost(f64::from(overhaul_count), step, discount_value, year)?,
-            None => M::ZERO,
-        };
-        let total = [carbon_cost, fixed_om, variable_om, overhaul]
+        let overhaul = overhauls.cost(f64::from(overhaul_count), step, discount_value, year)?;
+        // Output replacement: energy pro rata like energy, capacity like
+        // fixed O&M.
+        let replacement_energy = replacement_energy.cost(
+            shortfall.energy_mwh_per_year * fraction,
+            step,
+            discount_value,
+            year,
+        )?;
+        let replacement_capacity = replacement_capacity.cost(
+            shortfall.capacity_kw * fraction,
+            step,
+            discount_value,
+            year,
+        )?;
+        let replacement = add(
+            replacement_energy,
+            replacement_capacity,
+            "output replacement",
+            year,
+        )?;
+        let total = [carbon_cost, fixed_om, variable_om, overhaul, replacement]
             .into_iter()
             .try_fold(fuel_cost, |sum, x| add(sum, x, "row total", year))?;
         let present_value = mul(total, discount_factor, "present value", year)?;
@@ -274,6 +339,7 @@ pub(crate) fn operating_rows<M: Money>(
             fixed_om,
             variable_om,
             overhaul,
+            replacement,
             capital: M::ZERO,
             residual: M::ZERO,
             total,
@@ -286,10 +352,13 @@ pub(crate) fn operating_rows<M: Money>(
         carbon_cost: carbon_cost.present_value(last_year)?,
         fixed_om: fixed_om.present_value(last_year)?,
         variable_om: variable_om.present_value(last_year)?,
-        overhaul: match &overhauls {
-            Some(stream) => stream.present_value(last_year)?,
-            None => M::ZERO,
-        },
+        overhaul: overhauls.present_value(last_year)?,
+        replacement: add(
+            replacement_energy.present_value(last_year)?,
+            replacement_capacity.present_value(last_year)?,
+            "output replacement",
+            last_year,
+        )?,
         ..StreamTotals::ZERO
     };
     Ok(OperatingPart {

@@ -132,7 +132,42 @@ impl<M: Money> LedgerInputs<M> {
             ResidualValue::Amount(amount) => check_money("residual.amount", amount)?,
         }
         check_rate("residual.escalation", self.residual.escalation)?;
+        self.validate_replacement()?;
         self.validate_capital()
+    }
+
+    fn validate_replacement(&self) -> Result<(), FinanceError> {
+        let replacement = &self.replacement;
+        check_range(
+            "replacement.energy_mwh_per_year",
+            replacement.energy_mwh_per_year,
+            0.0,
+            f64::MAX,
+            NON_NEGATIVE,
+        )?;
+        check_money(
+            "replacement.energy_price.price",
+            replacement.energy_price.price,
+        )?;
+        check_rate(
+            "replacement.energy_price.escalation",
+            replacement.energy_price.escalation,
+        )?;
+        check_range(
+            "replacement.capacity_kw",
+            replacement.capacity_kw,
+            0.0,
+            f64::MAX,
+            NON_NEGATIVE,
+        )?;
+        check_money(
+            "replacement.capacity_price.price",
+            replacement.capacity_price.price,
+        )?;
+        check_rate(
+            "replacement.capacity_price.escalation",
+            replacement.capacity_price.escalation,
+        )
     }
 
     fn validate_capital(&self) -> Result<(), FinanceError> {

@@ -4,7 +4,7 @@
 
 use brayfin::finance::{
     Capital, Carbon, Degradation, EscalatingPrice, Fuel, FuelPrice, LedgerInputs, Operation,
-    PriceBasis, RateBasis, Rates, Residual, ResidualValue, Timing,
+    PriceBasis, RateBasis, Rates, Replacement, Residual, ResidualValue, Timing,
 };
 use chrono::NaiveDate;
 use rust_decimal::Decimal;
@@ -20,8 +20,8 @@ pub fn dec(text: &str) -> Decimal {
 }
 
 /// A ledger with every stream zero: 1 January start, real 3 %, end-of-year,
-/// no capital, no fuel, no carbon, no O&M, no overhauls, no residual. Tests
-/// switch on only what they check.
+/// no capital, no fuel, no carbon, no O&M, no overhauls, no residual, no
+/// output replacement. Tests switch on only what they check.
 pub fn empty_inputs(service_life_years: u32, discount_rate: f64) -> LedgerInputs {
     LedgerInputs {
         commercial_operation: date(2026, 1, 1),
@@ -66,12 +66,14 @@ pub fn empty_inputs(service_life_years: u32, discount_rate: f64) -> LedgerInputs
             value: ResidualValue::Amount(Decimal::ZERO),
             escalation: 0.0,
         },
+        replacement: Replacement::default(),
     }
 }
 
 /// An invented 50 MW-class candidate with every stream active (demo data, not
 /// a check value): mid-year start, construction capital over two years,
-/// HHV-priced escalating gas, carbon, O&M, overhauls, degradation, residual.
+/// HHV-priced escalating gas, carbon, O&M, overhauls, degradation, residual,
+/// and an output shortfall (4 MW, 24 000 MWh a year) bought elsewhere.
 pub fn busy_inputs() -> LedgerInputs {
     use brayfin::finance::{CapitalPayment, Overhaul};
     LedgerInputs {
@@ -136,6 +138,18 @@ pub fn busy_inputs() -> LedgerInputs {
         residual: Residual {
             value: ResidualValue::FractionOfCapital(0.1),
             escalation: 0.0,
+        },
+        replacement: Replacement {
+            energy_mwh_per_year: 24_000.0,
+            energy_price: EscalatingPrice {
+                price: dec("92.00"),
+                escalation: 0.008,
+            },
+            capacity_kw: 4_000.0,
+            capacity_price: EscalatingPrice {
+                price: dec("45.00"),
+                escalation: 0.0,
+            },
         },
     }
 }

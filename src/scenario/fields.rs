@@ -255,6 +255,16 @@ pub(crate) const SCENARIO_FIELDS: &[ScenarioField] = &[
         },
     ),
     field(
+        "economics.energy_value",
+        Kind::PricePerEnergy,
+        Range::NonNegative,
+        |s| Some(money_to_f64(s.economics.energy_value_per_mwh)),
+        |s, v| {
+            s.economics.energy_value_per_mwh = money_from_f64(v)?;
+            Ok(())
+        },
+    ),
+    field(
         "operation.hours_per_year",
         Kind::Duration,
         Range::HoursPerYear,

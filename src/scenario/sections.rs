@@ -155,6 +155,7 @@ pub(crate) fn read_economics(ctx: &mut Context, node: &Node) -> Read<Economics> 
             "carbon_price",
             "carbon_escalation",
             "capacity_value",
+            "energy_value",
         ],
     )?;
     let commercial_operation = required_date(ctx, &r, "commercial_operation")?;
@@ -197,6 +198,8 @@ pub(crate) fn read_economics(ctx: &mut Context, node: &Node) -> Read<Economics> 
         units::price_per_kw_year,
         "/kW-yr",
     )?;
+    let energy_value_per_mwh =
+        money_or_zero(ctx, &r, "energy_value", units::price_per_mwh, "/MWh")?;
     Ok(Economics {
         commercial_operation,
         // Checked above as a whole number from 1 to 60.
@@ -208,5 +211,6 @@ pub(crate) fn read_economics(ctx: &mut Context, node: &Node) -> Read<Economics> 
         carbon_price_per_tonne,
         carbon_escalation,
         capacity_value_per_kw_year,
+        energy_value_per_mwh,
     })
 }

@@ -4,7 +4,8 @@
 //! Internal units: temperatures K, pressures kPa, power kW, durations h,
 //! specific energies kJ/kg, lengths m, fractions as fractions of one (0.86,
 //! not 86), money in the scenario currency (fuel prices per GJ of the stated
-//! heating-value basis, carbon per tonne CO2, capacity per kW-yr).
+//! heating-value basis, carbon per tonne CO2, capacity per kW-yr, energy per
+//! MWh).
 
 pub use super::candidate::{
     Candidate, CandidateCosts, EfficiencyBasis, GasModelSpec, IntercoolerSpec, RegeneratorSpec,
@@ -181,9 +182,16 @@ pub struct Economics {
     pub carbon_price_per_tonne: Decimal,
     /// Yearly carbon price escalation (fraction, > −1).
     pub carbon_escalation: f64,
-    /// Value of one kW of net output for one year (currency per kW-yr);
-    /// 0 when output differences are not valued.
+    /// Value of one kW of net output for one year (currency per kW-yr):
+    /// the price at which a candidate's shortfall in rated output against
+    /// the largest candidate is bought elsewhere; 0 when capacity
+    /// differences are not valued.
     pub capacity_value_per_kw_year: Decimal,
+    /// Value of one MWh of net energy (currency per MWh): the price at which
+    /// a candidate's shortfall in annual energy against the candidate that
+    /// generates most is bought elsewhere; 0 when energy differences are
+    /// not valued.
+    pub energy_value_per_mwh: Decimal,
 }
 
 /// Part of a year's operating hours at one load.

@@ -52,8 +52,16 @@ pub fn engineering_warnings(scenario: &Scenario) -> Vec<String> {
         .candidates
         .windows(2)
         .any(|p| (p[0].net_output_kw - p[1].net_output_kw).abs() > 1e-9);
-    if outputs_differ && economics.capacity_value_per_kw_year.is_zero() {
-        w.push("the candidates differ in net output but economics.capacity_value is 0: extra output is not valued, only its fuel and O&M".into());
+    if outputs_differ {
+        match (
+            economics.energy_value_per_mwh.is_zero(),
+            economics.capacity_value_per_kw_year.is_zero(),
+        ) {
+            (true, true) => w.push("the candidates differ in net output but economics.energy_value and economics.capacity_value are both 0: a candidate's shortfall in output is not valued, so a smaller unit looks cheaper only because it makes less electricity; state what a MWh and a kW-year bought elsewhere would cost".into()),
+            (true, false) => w.push("the candidates differ in net output but economics.energy_value is 0: their shortfall in capacity is valued, their shortfall in energy is not".into()),
+            (false, true) => w.push("the candidates differ in net output but economics.capacity_value is 0: their shortfall in energy is valued, their shortfall in capacity is not".into()),
+            (false, false) => {}
+        }
     }
     for c in &scenario.candidates {
         candidate_warnings(scenario, c, &mut w);

@@ -6,6 +6,8 @@
 //! ≤ 0.5 s. The one-point figures give the cost per point to set against a
 //! general-purpose Python script (about 35 µs per point here).
 
+use brayfin::analysis::engine::{engine_config_of, gas_model_of};
+use brayfin::analysis::evaluate::{ledger_inputs, solve};
 use brayfin::analysis::point::{Figures, PointModel};
 use brayfin::analysis::risk::run_risk;
 use brayfin::analysis::sweep::{plan, run_sweep};
@@ -93,5 +95,53 @@ fn bench(c: &mut Criterion) {
     });
 }
 
-criterion_group!(benches, bench);
+/// The two halves of a point on their own: the three cycle solves, and the
+/// three `f64` ledgers from ready inputs.
+fn parts(c: &mut Criterion) {
+    let loaded = demo();
+    let scenario = &loaded.scenario;
+    let fuel = match brayfin::analysis::compare::study_fuel(&loaded) {
+        Ok(f) => f,
+        Err(e) => panic!("the demo fuel must solve: {e}"),
+    };
+    let engines: Vec<_> = scenario
+        .candidates
+        .iter()
+        .map(|k| {
+            (
+                engine_config_of(k, &scenario.site),
+                gas_model_of(&k.gas_model),
+            )
+        })
+        .collect();
+    c.bench_function("3 cycle solves (products gas)", |b| {
+        b.iter(|| {
+            for (config, gas) in &engines {
+                let _ = black_box(brayfin::cycle::solve(black_box(config), gas, &fuel));
+            }
+        })
+    });
+    let inputs: Vec<_> = scenario
+        .candidates
+        .iter()
+        .map(|k| {
+            let Ok(solved) = solve(scenario, k, &fuel) else {
+                panic!("the demo cycles must solve");
+            };
+            match ledger_inputs(scenario, k, &fuel, &solved.year) {
+                Ok(i) => i.to_f64(),
+                Err(e) => panic!("the demo ledger inputs must build: {e}"),
+            }
+        })
+        .collect();
+    c.bench_function("3 f64 ledgers, 30 years", |b| {
+        b.iter(|| {
+            for i in &inputs {
+                let _ = black_box(brayfin::finance::summarize_ledger(black_box(i)));
+            }
+        })
+    });
+}
+
+criterion_group!(benches, bench, parts);
 criterion_main!(benches);

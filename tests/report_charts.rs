@@ -291,3 +291,50 @@ fn histogram_bars_are_as_tall_as_their_counts() {
         assert!((bar.top_mm() - y.map(*count as f64)).abs() < 1e-3);
     }
 }
+
+/// Labels drawn anywhere in a chart.
+fn label_texts(marks: &[Mark]) -> Vec<String> {
+    marks
+        .iter()
+        .filter_map(|m| match m {
+            Mark::Label { text, .. } => Some(text.clone()),
+            _ => None,
+        })
+        .collect()
+}
+
+#[test]
+fn output_replacement_is_a_category_only_when_charged() {
+    let plain = report_support::model(false, false);
+    let names = labels(&plain);
+    let chart = breakdown_chart(&plain, &names, area()).expect("a chart");
+    assert!(chart.segments.iter().all(|s| s.stream != 6));
+    assert!(!label_texts(&chart.chart.marks).contains(&names.replacement));
+
+    let model = report_support::levelled(false, false);
+    let chart = breakdown_chart(&model, &labels(&model), area()).expect("a chart");
+    assert!(label_texts(&chart.chart.marks).contains(&names.replacement));
+    let y = chart.chart.frame.y;
+    let base = &model.candidates[0];
+    let b = &base.cost_breakdown;
+    let own = [
+        b.capital,
+        b.fuel,
+        b.operation_and_maintenance,
+        b.overhauls,
+        b.carbon,
+    ]
+    .iter()
+    .map(|d| money_f64(*d))
+    .sum::<f64>();
+    let segment = chart
+        .segments
+        .iter()
+        .find(|s| s.candidate_id == base.id && s.stream == 6)
+        .expect("the baseline's replacement is drawn");
+    // Stacked on top of the candidate's own costs, up to own + replacement.
+    assert!((segment.rect.y_mm - y.map(own)).abs() < 1e-2);
+    assert!((segment.rect.top_mm() - y.map(own + money_f64(b.replacement))).abs() < 1e-2);
+    // The others are charged nothing and draw no replacement segment.
+    assert_eq!(chart.segments.iter().filter(|s| s.stream == 6).count(), 1);
+}

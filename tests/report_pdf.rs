@@ -342,3 +342,26 @@ fn many_candidates_and_very_long_texts_stay_on_the_page() {
         assert_eq!(doc.get_pages().len(), pages.len());
     }
 }
+
+/// The ledger's replacement column and the method's levelling paragraph
+/// appear only when some candidate is charged for an output shortfall, and
+/// the landscape ledger with the extra column stays inside the page.
+#[test]
+fn output_replacement_shows_only_when_charged() {
+    let (_, plain) = render(&report_support::model(false, false), Paper::A4);
+    let text = all_text(&plain);
+    assert!(!text.contains("Replacement"), "no replacement column");
+    assert!(!text.contains("levelled on output"));
+
+    let model = report_support::levelled(false, false);
+    let (bytes, doc) = render(&model, Paper::A4);
+    if let Ok(path) = std::env::var("BRAYFIN_LEVELLED_PDF") {
+        std::fs::write(path, &bytes).expect("levelled fixture written");
+    }
+    let text = all_text(&doc);
+    assert!(text.contains("Replacement"), "replacement column header");
+    assert!(text.contains("levelled on output"), "method paragraph");
+    assert!(text.contains("95.00 per MWh"), "energy value as printed");
+    // The replacement figure as printed in the baseline's ledger.
+    assert!(text.contains("900,000"));
+}

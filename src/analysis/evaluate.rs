@@ -8,7 +8,7 @@ use super::operation::{annual_operation, AnnualOperation};
 use crate::cycle::{self, CycleResult};
 use crate::finance::{
     self, Capital, CapitalPayment, Carbon, Degradation, EscalatingPrice, FuelPrice, LedgerInputs,
-    Overhaul, Rates, Residual,
+    Overhaul, Rates, Replacement, Residual,
 };
 use crate::fuel::Fuel;
 use crate::scenario::{
@@ -51,7 +51,66 @@ pub fn solve_at(loaded: &LoadedScenario, index: usize, fuel: &Fuel) -> crate::Re
     solve(scenario, &scenario.candidates[index], fuel).map_err(|e| solve_error(loaded, index, &e))
 }
 
-/// The ledger inputs of a candidate whose year of operation is `year`.
+/// The output every candidate of a scenario is levelled to: the most any
+/// candidate delivers. A candidate that delivers less buys the difference
+/// elsewhere (common practice in bid evaluation), so all are compared on
+/// equal deliveries.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct OutputReference {
+    /// Largest net energy of a full year among the candidates, MWh.
+    pub energy_mwh: f64,
+    /// Largest rated net output among the candidates, kW.
+    pub net_output_kw: f64,
+}
+
+/// The scenario's output reference. A year's energy depends only on the
+/// rated output and the scenario's operation (hours or dispatch profile),
+/// not on the heat rate ([`annual_operation`]), so no cycle is solved:
+/// the reference always follows the scenario as it stands, including any
+/// rating changed by a sweep or a sample.
+pub fn output_reference(scenario: &Scenario) -> OutputReference {
+    scenario.candidates.iter().fold(
+        OutputReference {
+            energy_mwh: 0.0,
+            net_output_kw: 0.0,
+        },
+        |most, c| OutputReference {
+            energy_mwh: most
+                .energy_mwh
+                .max(annual_operation(&scenario.operation, c.net_output_kw, 0.0).energy_mwh),
+            net_output_kw: most.net_output_kw.max(c.net_output_kw),
+        },
+    )
+}
+
+/// A candidate's shortfall against `reference`, priced at the scenario's
+/// `energy_value` and `capacity_value` (constant in the analysis basis's
+/// money, like the candidates' O&M prices). A candidate above the reference
+/// (one set apart from the scenario's list) has no shortfall.
+fn replacement(
+    scenario: &Scenario,
+    candidate: &Candidate,
+    year: &AnnualOperation,
+    reference: &OutputReference,
+) -> Replacement<Decimal> {
+    let e = &scenario.economics;
+    Replacement {
+        energy_mwh_per_year: (reference.energy_mwh - year.energy_mwh).max(0.0),
+        energy_price: EscalatingPrice {
+            price: e.energy_value_per_mwh,
+            escalation: 0.0,
+        },
+        capacity_kw: (reference.net_output_kw - candidate.net_output_kw).max(0.0),
+        capacity_price: EscalatingPrice {
+            price: e.capacity_value_per_kw_year,
+            escalation: 0.0,
+        },
+    }
+}
+
+/// The ledger inputs of a candidate whose year of operation is `year`,
+/// levelled on output to the scenario's [`output_reference`] (an output
+/// replacement stream for its shortfall in energy and capacity).
 pub fn ledger_inputs(
     scenario: &Scenario,
     candidate: &Candidate,
@@ -145,6 +204,6 @@ pub fn ledger_inputs(
             },
             escalation: 0.0,
         },
-        replacement: finance::Replacement::default(),
+        replacement: replacement(scenario, candidate, year, &output_reference(scenario)),
     })
 }

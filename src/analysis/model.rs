@@ -57,6 +57,7 @@ fn ledger_rows(outcome: &CandidateOutcome) -> Vec<LedgerRowView> {
             fixed_om: money(r.fixed_om),
             variable_om: money(r.variable_om),
             overhaul: money(r.overhaul),
+            replacement: money(r.replacement),
             capital: money(r.capital),
             residual: money(r.residual),
             total: money(r.total),
@@ -240,6 +241,7 @@ fn candidate_view(loaded: &LoadedScenario, study: &Study, index: usize) -> Candi
             operation_and_maintenance: money(pv.fixed_om + pv.variable_om),
             overhauls: money(pv.overhaul),
             carbon: money(pv.carbon_cost),
+            replacement: money(pv.replacement),
             residual: money(pv.residual),
         },
         cumulative_savings: if index == study.baseline_index {
@@ -253,7 +255,7 @@ fn candidate_view(loaded: &LoadedScenario, study: &Study, index: usize) -> Candi
 
 /// Plain-words name of a scenario key for the briefing page.
 pub fn key_label(key: &str) -> String {
-    const NAMES: [(&str, &str); 9] = [
+    const NAMES: [(&str, &str); 10] = [
         ("fuel.price", "fuel price"),
         ("fuel.escalation", "fuel price escalation"),
         ("operation.hours_per_year", "operating hours per year"),
@@ -262,6 +264,7 @@ pub fn key_label(key: &str) -> String {
         ("economics.carbon_price", "carbon price"),
         ("economics.carbon_escalation", "carbon price escalation"),
         ("economics.capacity_value", "capacity value"),
+        ("economics.energy_value", "energy value"),
         ("site.ambient_temperature", "ambient temperature"),
     ];
     if let Some((_, name)) = NAMES.iter().find(|(k, _)| *k == key) {
@@ -280,7 +283,8 @@ pub fn key_label(key: &str) -> String {
 }
 
 /// A key's value as shown, with its unit (values are in the scenario's
-/// internal units: fractions of one, K, h, currency per GJ / t / kW-yr).
+/// internal units: fractions of one, K, h, currency per GJ / t / kW-yr /
+/// MWh).
 fn show(key: &str, value: f64, scenario: &Scenario) -> String {
     let currency = &scenario.meta.currency;
     let basis = match scenario.fuel.price_basis {
@@ -301,6 +305,8 @@ fn show(key: &str, value: f64, scenario: &Scenario) -> String {
         format!("{currency} {value:.2}/t CO2")
     } else if key == "economics.capacity_value" {
         format!("{currency} {value:.2}/kW-yr")
+    } else if key == "economics.energy_value" {
+        format!("{currency} {value:.2}/MWh")
     } else if key.ends_with("hours_per_year") {
         format!("{value:.0} h")
     } else if key.ends_with("temperature") {
@@ -435,6 +441,12 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
             rounding: "money rounded once, for presentation, to the minor unit; midpoints to \
                        even (banker's rounding)"
                 .to_string(),
+            levelled: study
+                .outcomes
+                .iter()
+                .any(|o| !o.ledger.summary.present_value.replacement.is_zero()),
+            energy_value_per_mwh: money(e.energy_value_per_mwh),
+            capacity_value_per_kw_year: money(e.capacity_value_per_kw_year),
         },
         fuel_price_curves: fuel_price_curves(loaded, &study),
         sensitivity: if options.sensitivity {

@@ -8,8 +8,9 @@
 //! lognormal: mean ± 1.2816 σ, z(0.90) = 1.281 55 from standard normal
 //! tables), clipped to its truncation; or ±20 % of the base value, stated as
 //! a default. Without an `[uncertainty]` section the fuel price, escalation,
-//! operating hours, discount rate and carbon price are swung ±20 % (those
-//! whose base value is not zero).
+//! operating hours, discount rate, carbon price and energy value (the price
+//! of output bought elsewhere) are swung ±20 % (those whose base value is
+//! not zero).
 
 use super::compare::Study;
 use super::engine::fuel_of;
@@ -22,12 +23,13 @@ use rust_decimal::Decimal;
 const Z_90: f64 = 1.281_551_565_545;
 
 /// Keys swung ±20 % when the scenario has no `[uncertainty]` section.
-pub const DEFAULT_KEYS: [&str; 5] = [
+pub const DEFAULT_KEYS: [&str; 6] = [
     "fuel.price",
     "fuel.escalation",
     "operation.hours_per_year",
     "economics.discount_rate",
     "economics.carbon_price",
+    "economics.energy_value",
 ];
 
 /// Where a swing range came from.

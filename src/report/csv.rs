@@ -9,7 +9,7 @@ use super::Renderer;
 pub struct LedgerCsvRenderer;
 
 /// Column names, in order.
-pub const LEDGER_COLUMNS: [&str; 18] = [
+pub const LEDGER_COLUMNS: [&str; 19] = [
     "candidate_id",
     "year",
     "period_start",
@@ -22,6 +22,7 @@ pub const LEDGER_COLUMNS: [&str; 18] = [
     "fixed_om",
     "variable_om",
     "overhaul",
+    "replacement",
     "capital",
     "residual",
     "total",
@@ -51,6 +52,7 @@ impl Renderer for LedgerCsvRenderer {
                         r.fixed_om.to_string(),
                         r.variable_om.to_string(),
                         r.overhaul.to_string(),
+                        r.replacement.to_string(),
                         r.capital.to_string(),
                         r.residual.to_string(),
                         r.total.to_string(),

@@ -274,6 +274,10 @@ pub struct CostBreakdown {
     pub overhauls: Decimal,
     /// Carbon.
     pub carbon: Decimal,
+    /// Output replacement: the candidate's shortfall in energy and capacity
+    /// against the largest candidate, bought elsewhere (zero for the
+    /// largest, or when the scenario values neither).
+    pub replacement: Decimal,
     /// Residual value (a credit, negative).
     pub residual: Decimal,
 }
@@ -314,6 +318,8 @@ pub struct LedgerRowView {
     pub variable_om: Decimal,
     /// Overhaul.
     pub overhaul: Decimal,
+    /// Output replacement (energy and capacity shortfall bought elsewhere).
+    pub replacement: Decimal,
     /// Capital.
     pub capital: Decimal,
     /// Residual value (a credit, negative).
@@ -382,6 +388,15 @@ pub struct MethodView {
     pub hhv_over_lhv: f64,
     /// Rounding rule for money.
     pub rounding: String,
+    /// Whether any candidate is charged for an output shortfall (the
+    /// candidates differ in output and the scenario values energy or
+    /// capacity).
+    pub levelled: bool,
+    /// Value of one MWh bought elsewhere, per MWh (`economics.energy_value`).
+    pub energy_value_per_mwh: Decimal,
+    /// Value of one kW of capacity bought elsewhere, per kW-year
+    /// (`economics.capacity_value`).
+    pub capacity_value_per_kw_year: Decimal,
 }
 
 /// Break-even premium against fuel price.

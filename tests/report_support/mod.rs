@@ -72,6 +72,7 @@ fn ledger(life: u32, capital: i64, fuel: i64) -> Vec<LedgerRowView> {
                 fixed_om: dec(om / 2),
                 variable_om: dec(om / 2),
                 overhaul: dec(overhaul),
+                replacement: dec(0),
                 capital: dec(cap),
                 residual: dec(residual),
                 total: dec(total),
@@ -181,6 +182,7 @@ fn candidate(
             operation_and_maintenance: dec(11_000_000),
             overhauls: dec(6_000_000),
             carbon: dec(4_500_000),
+            replacement: dec(0),
             residual: dec(-1_500_000),
         },
         cumulative_savings: if baseline {
@@ -193,7 +195,8 @@ fn candidate(
 }
 
 /// The fixture: a baseline and two bids (the last with a long label), with
-/// or without the sensitivity and risk parts.
+/// or without the sensitivity and risk parts. All three have the same net
+/// output, so nothing is charged for output replacement (see [`levelled`]).
 pub fn model(with_sensitivity: bool, with_risk: bool) -> Model {
     let candidates = vec![
         candidate("base", "Base bid: simple cycle", true, 30_000_000, 10_300.0, 0, 0, false),
@@ -348,6 +351,9 @@ pub fn model(with_sensitivity: bool, with_risk: bool) -> Model {
             fuel_price_basis: "HHV".into(),
             hhv_over_lhv: 1.108,
             rounding: "rounded to cents, half away from zero".into(),
+            levelled: false,
+            energy_value_per_mwh: dec(0),
+            capacity_value_per_kw_year: dec(0),
         },
         fuel_price_curves: FuelPriceCurves {
             scenario_price_per_gj: Decimal::new(520, 2),
@@ -365,4 +371,22 @@ pub fn model(with_sensitivity: bool, with_risk: bool) -> Model {
         sensitivity,
         risk,
     }
+}
+
+/// The fixture levelled on output: the baseline is taken as 1.2 MW short
+/// of the others and pays 900 000 a year (invented) for the energy and
+/// capacity it lacks, moved out of its fuel so its lifecycle cost holds.
+pub fn levelled(with_sensitivity: bool, with_risk: bool) -> Model {
+    let mut model = model(with_sensitivity, with_risk);
+    model.method.levelled = true;
+    model.method.energy_value_per_mwh = Decimal::new(9500, 2);
+    model.method.capacity_value_per_kw_year = Decimal::new(4000, 2);
+    let base = &mut model.candidates[0];
+    base.cost_breakdown.replacement = dec(9_000_000);
+    base.cost_breakdown.fuel -= dec(9_000_000);
+    for row in base.ledger.iter_mut().filter(|r| r.operating_hours > 0.0) {
+        row.replacement = dec(900_000);
+        row.fuel_cost -= dec(900_000);
+    }
+    model
 }

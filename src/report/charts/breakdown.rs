@@ -1,5 +1,6 @@
 //! Lifecycle cost of each candidate broken down by stream (present values):
-//! capital, fuel, O&M, overhauls and carbon stacked upward from zero, the
+//! capital, fuel, O&M, overhauls, carbon and (when any candidate is charged
+//! for an output shortfall) output replacement stacked upward from zero, the
 //! residual-value credit below zero, and the lifecycle cost marked.
 
 use super::frame::{category_label, draw_frame, Axis, LegendEntry, Swatch};
@@ -16,7 +17,7 @@ pub struct Segment {
     /// Candidate id.
     pub candidate_id: String,
     /// Stream index (0 capital, 1 fuel, 2 O&M, 3 overhauls, 4 carbon,
-    /// 5 residual).
+    /// 5 residual, 6 output replacement).
     pub stream: usize,
     /// The segment's box on the page.
     pub rect: Rect,
@@ -31,7 +32,11 @@ pub struct BreakdownChart {
     pub segments: Vec<Segment>,
 }
 
-fn streams(b: &CostBreakdown) -> [f64; 6] {
+/// Index of the output-replacement stream.
+const REPLACEMENT: usize = 6;
+
+/// Stream values by index; stacking runs in the order of [`STACK_ORDER`].
+fn streams(b: &CostBreakdown) -> [f64; 7] {
     [
         money_f64(b.capital),
         money_f64(b.fuel),
@@ -39,8 +44,13 @@ fn streams(b: &CostBreakdown) -> [f64; 6] {
         money_f64(b.overhauls),
         money_f64(b.carbon),
         money_f64(b.residual),
+        money_f64(b.replacement),
     ]
 }
+
+/// Order of stacking and of the legend: the candidate's own costs, then
+/// what it buys elsewhere, then the credit.
+const STACK_ORDER: [usize; 7] = [0, 1, 2, 3, 4, REPLACEMENT, 5];
 
 /// The chart inside `area`; `None` if the model has no candidates.
 pub fn breakdown_chart(model: &Model, labels: &Labels, area: Rect) -> Option<BreakdownChart> {
@@ -54,7 +64,12 @@ pub fn breakdown_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Bre
         &labels.overhauls,
         &labels.carbon,
         &labels.residual,
+        &labels.replacement,
     ];
+    let levelled = model
+        .candidates
+        .iter()
+        .any(|c| !c.cost_breakdown.replacement.is_zero());
     let (mut low, mut high) = (0.0f64, 0.0f64);
     for c in &model.candidates {
         let values = streams(&c.cost_breakdown);
@@ -87,13 +102,13 @@ pub fn breakdown_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Bre
             .collect(),
         grid: false,
     };
-    let mut legend: Vec<LegendEntry> = names
+    let mut legend: Vec<LegendEntry> = STACK_ORDER
         .iter()
-        .enumerate()
-        .map(|(i, name)| {
+        .filter(|i| levelled || **i != REPLACEMENT)
+        .map(|&i| {
             let (colour, hatch) = stream_fill(i);
             LegendEntry {
-                label: (*name).clone(),
+                label: names[i].clone(),
                 swatch: Swatch::Fill { colour, hatch },
             }
         })
@@ -120,7 +135,9 @@ pub fn breakdown_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Bre
     for (i, c) in model.candidates.iter().enumerate() {
         let centre = frame.x.map(i as f64 + 0.5);
         let (mut up, mut down) = (0.0f64, 0.0f64);
-        for (stream, value) in streams(&c.cost_breakdown).into_iter().enumerate() {
+        let values = streams(&c.cost_breakdown);
+        for stream in STACK_ORDER {
+            let value = values[stream];
             if value == 0.0 {
                 continue;
             }

@@ -13,6 +13,12 @@ pub fn money(value: Decimal, currency: &str) -> String {
     format::money(value, currency).replacen(' ', "\u{a0}", 1)
 }
 
+/// A unit price (per MWh, per kW-year) to the cent, code and amount on one
+/// line.
+fn unit_price(value: Decimal, currency: &str) -> String {
+    format!("{currency}\u{a0}{}", format::grouped(value, 2))
+}
+
 /// Optional money as the report prints it ("n/a" when absent).
 pub fn money_opt(value: Option<Decimal>, currency: &str) -> String {
     value.map_or_else(|| format::money_opt(None, currency), |v| money(v, currency))
@@ -20,6 +26,7 @@ pub fn money_opt(value: Option<Decimal>, currency: &str) -> String {
 
 fn method(model: &Model) -> Value {
     let m = &model.method;
+    let currency = &model.meta.currency;
     context! {
         gas_models => m.gas_models.clone(),
         rate_basis => m.rate_basis.clone(),
@@ -33,6 +40,9 @@ fn method(model: &Model) -> Value {
         hhv_over_lhv => m.hhv_over_lhv,
         hhv_over_lhv_text => format!("{:.4}", m.hhv_over_lhv),
         rounding => m.rounding.clone(),
+        levelled => m.levelled,
+        energy_value => unit_price(m.energy_value_per_mwh, currency),
+        capacity_value => unit_price(m.capacity_value_per_kw_year, currency),
     }
 }
 

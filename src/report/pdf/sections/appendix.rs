@@ -8,9 +8,10 @@ use crate::report::pdf::document::{Composer, Orientation};
 use crate::report::pdf::fonts::Face;
 use crate::report::pdf::table::{draw_table_continued, Column, TableStyle};
 
-fn row(r: &LedgerRowView) -> Vec<String> {
+/// A row's cells; the replacement column only when `levelled`.
+fn row(r: &LedgerRowView, levelled: bool) -> Vec<String> {
     let m = |v| format::grouped(v, 0);
-    vec![
+    let mut cells = vec![
         r.year.to_string(),
         format::number(r.operating_hours, 0),
         format::number(r.energy_mwh, 0),
@@ -20,18 +21,28 @@ fn row(r: &LedgerRowView) -> Vec<String> {
         m(r.fixed_om),
         m(r.variable_om),
         m(r.overhaul),
+        m(r.replacement),
         m(r.capital),
         m(r.residual),
         m(r.total),
         format!("{:.4}", r.discount_factor),
         m(r.present_value),
-    ]
+    ];
+    if !levelled {
+        cells.remove(REPLACEMENT_COLUMN);
+    }
+    cells
 }
+
+/// Position of the replacement column, shown only when some candidate is
+/// charged for an output shortfall.
+const REPLACEMENT_COLUMN: usize = 9;
 
 /// Lay out the ledger appendix.
 pub fn ledger(ctx: &Ctx, composer: &mut Composer) {
     let l = ctx.labels;
-    let columns = vec![
+    let levelled = ctx.model.method.levelled;
+    let mut columns = vec![
         Column::left(l.ledger_year.clone()),
         Column::right(l.ledger_hours.clone()),
         Column::right(l.ledger_energy.clone()),
@@ -41,12 +52,16 @@ pub fn ledger(ctx: &Ctx, composer: &mut Composer) {
         Column::right(l.ledger_fixed_om.clone()),
         Column::right(l.ledger_variable_om.clone()),
         Column::right(l.ledger_overhaul.clone()),
+        Column::right(l.ledger_replacement.clone()),
         Column::right(l.ledger_capital.clone()),
         Column::right(l.ledger_residual.clone()),
         Column::right(l.ledger_total.clone()),
         Column::right(l.ledger_discount_factor.clone()),
         Column::right(l.ledger_present_value.clone()),
     ];
+    if !levelled {
+        columns.remove(REPLACEMENT_COLUMN);
+    }
     let style = TableStyle {
         size_pt: 7.0,
         max_lines: 2,
@@ -60,7 +75,7 @@ pub fn ledger(ctx: &Ctx, composer: &mut Composer) {
             composer.paragraph(&l.ledger_note, 8.5, Face::Regular, 0.0);
         }
         composer.heading(&c.label, 2, 30.0);
-        let rows: Vec<Vec<String>> = c.ledger.iter().map(row).collect();
+        let rows: Vec<Vec<String>> = c.ledger.iter().map(|r| row(r, levelled)).collect();
         let caption = format!("{} ({})", c.label, l.continued);
         draw_table_continued(composer, &columns, &rows, &style, Some(&caption));
     }

@@ -24,8 +24,8 @@ fn demo() -> LoadedScenario {
     }
 }
 
-fn sweep_points(loaded: &LoadedScenario, vary: &str) -> usize {
-    let Ok(plan) = plan(loaded, &[vary.to_string()], None) else {
+fn sweep_points(loaded: &LoadedScenario, vary: &str, candidate: Option<&str>) -> usize {
+    let Ok(plan) = plan(loaded, &[vary.to_string()], candidate) else {
         panic!("the bench sweep must be valid: {vary}");
     };
     let mut rows = 0;
@@ -55,14 +55,29 @@ fn bench(c: &mut Criterion) {
                 sweep_points(
                     black_box(&loaded),
                     "candidate.turbine_efficiency=0.85:0.949999:0.000001",
+                    None,
                 )
             })
         },
     );
     // Economics only: the cycles are reused, three ledgers per point.
     group.bench_function("sweep, 100 000 points of fuel.price", |b| {
-        b.iter(|| sweep_points(black_box(&loaded), "fuel.price=2:6.99995:0.00005"))
+        b.iter(|| sweep_points(black_box(&loaded), "fuel.price=2:6.99995:0.00005", None))
     });
+    // One bid's figure, that bid reported: its cycle and ledger at each
+    // point; the baseline's inputs are unchanged, so its ledger is reused.
+    group.bench_function(
+        "sweep, 100 000 points of candidate[premium].turbine_efficiency, --candidate premium",
+        |b| {
+            b.iter(|| {
+                sweep_points(
+                    black_box(&loaded),
+                    "candidate[premium].turbine_efficiency=0.85:0.949999:0.000001",
+                    Some("premium"),
+                )
+            })
+        },
+    );
     group.finish();
 
     // One point on one thread: what a single evaluation costs.

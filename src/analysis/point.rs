@@ -9,6 +9,9 @@
 //! candidate's cycle is solved again only when its solver inputs differ from
 //! the last solve in this workspace: a sample that moves only economics
 //! reuses the heat rate, which is the same number a new solve would give.
+//! Likewise a candidate's ledger is summed again only when its ledger
+//! inputs differ from the last ones (a sweep of one bid's figure leaves the
+//! baseline's ledger as it was).
 
 mod restore;
 
@@ -16,7 +19,7 @@ use super::engine::{engine_config_of, fuel_of, gas_model_of};
 use super::evaluate::ledger_inputs;
 use super::operation::annual_operation;
 use crate::cycle::{self, EngineConfig, GasModel};
-use crate::finance::{compare_summaries, summarize_ledger, LedgerSummary};
+use crate::finance::{compare_summaries, summarize_ledger, LedgerInputs, LedgerSummary};
 use crate::fuel::Fuel;
 use crate::scenario::Scenario;
 
@@ -129,6 +132,7 @@ pub struct Workspace {
     scenario: Scenario,
     cycles: Vec<Option<CachedCycle>>,
     summaries: Vec<Option<LedgerSummary<f64>>>,
+    ledgers: Vec<Option<(LedgerInputs<f64>, LedgerSummary<f64>)>>,
 }
 
 impl<'s> PointModel<'s> {
@@ -181,6 +185,7 @@ impl<'s> PointModel<'s> {
             scenario: self.base.clone(),
             cycles: vec![None; n],
             summaries: vec![None; n],
+            ledgers: vec![None; n],
         }
     }
 
@@ -268,7 +273,14 @@ impl<'s> PointModel<'s> {
             let inputs = ledger_inputs(scenario, candidate, fuel, &year)
                 .map_err(ledger_error)?
                 .to_f64();
-            let summary = summarize_ledger(&inputs).map_err(ledger_error)?;
+            let summary = match &ws.ledgers[i] {
+                Some((last, summary)) if *last == inputs => *summary,
+                _ => {
+                    let summary = summarize_ledger(&inputs).map_err(ledger_error)?;
+                    ws.ledgers[i] = Some((inputs, summary));
+                    summary
+                }
+            };
             ws.summaries[i] = Some(summary);
             out[i] = Figures {
                 heat_rate_kj_per_kwh: heat_rate,

@@ -98,7 +98,21 @@ pub fn run(args: &ReportArgs) -> Result<()> {
         units: units(args.units),
         sensitivity: true,
     };
-    let model = crate::analysis::build_model(&loaded, &options)?;
+    let mut model = crate::analysis::build_model(&loaded, &options)?;
+    // The risk section needs distributions; a scenario without any simply
+    // has no such section (the sensitivity ranking is always there).
+    let has_distributions = loaded
+        .scenario
+        .uncertainty
+        .iter()
+        .any(|u| u.distribution.is_some());
+    if args.samples > 0 && has_distributions {
+        model.risk = Some(crate::analysis::risk::risk_view(
+            &loaded,
+            args.samples,
+            args.seed,
+        )?);
+    }
     let written = write_report(&model, paper(args.paper), wording, &output, &args.scenario)?;
     println!("{}", summary(&written));
     Ok(())

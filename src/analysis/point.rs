@@ -168,16 +168,6 @@ impl<'s> PointModel<'s> {
         }
     }
 
-    /// The keys set at each point, in the order values are given.
-    pub fn keys(&self) -> &[String] {
-        &self.keys
-    }
-
-    /// Number of candidates (the length of every figures slice).
-    pub fn candidate_count(&self) -> usize {
-        self.base.candidates.len()
-    }
-
     /// A fresh workspace for one worker.
     pub fn workspace(&self) -> Workspace {
         let n = self.base.candidates.len();

@@ -181,8 +181,11 @@ pub struct ReportArgs {
 pub struct SweepArgs {
     /// Scenario file (TOML).
     pub scenario: PathBuf,
-    /// `KEY=FROM:TO:STEP`, a dotted scenario key such as `fuel.price`;
-    /// give it once or twice (a grid).
+    /// `KEY=FROM:TO:STEP`, a dotted scenario key such as `fuel.price` or
+    /// `candidate[premium].turbine_efficiency`; plain numbers in the key's
+    /// internal unit (fractions as 0.88, K, h, currency per GJ on the
+    /// scenario's price basis; see docs/sweep-and-risk.md). Give it once or
+    /// twice (a grid).
     #[arg(long = "vary", required = true)]
     pub vary: Vec<String>,
     /// Only this candidate (default: all).

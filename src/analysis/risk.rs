@@ -326,6 +326,8 @@ pub fn view_of(run: &RiskRun) -> RiskView {
     RiskView {
         samples: run.samples,
         seed: run.seed,
+        redraws: run.redraws,
+        first_redraw_reason: run.first_redraw_reason.clone(),
         candidates: run
             .candidates
             .iter()

@@ -443,6 +443,11 @@ pub struct RiskView {
     pub samples: usize,
     /// Seed.
     pub seed: u64,
+    /// Draws refused (a value out of its valid range, or a cycle that
+    /// cannot be solved) and redrawn from the same sample's stream.
+    pub redraws: u64,
+    /// Why the first redrawn draw was refused, when any was.
+    pub first_redraw_reason: Option<String>,
     /// One entry per non-baseline candidate.
     pub candidates: Vec<RiskCandidate>,
 }

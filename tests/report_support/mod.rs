@@ -247,6 +247,8 @@ pub fn model(with_sensitivity: bool, with_risk: bool) -> Model {
     let risk = with_risk.then(|| RiskView {
         samples: 2000,
         seed: 1,
+        redraws: 0,
+        first_redraw_reason: None,
         candidates: ["hx", "regen"]
             .iter()
             .map(|id| RiskCandidate {

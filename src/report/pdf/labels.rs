@@ -107,6 +107,7 @@ labels! {
     risk_samples,
     risk_note,
     risk_seed,
+    risk_redraws,
     performance,
     state,
     state_name,

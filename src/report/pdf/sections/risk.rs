@@ -82,6 +82,21 @@ pub fn risk(ctx: &Ctx, composer: &mut Composer) {
         Face::Regular,
         0.0,
     );
+    if risk.redraws > 0 {
+        composer.paragraph(
+            &format!(
+                "{}: {}{}",
+                l.risk_redraws,
+                risk.redraws,
+                risk.first_redraw_reason
+                    .as_deref()
+                    .map_or_else(String::new, |r| format!(" (first: {r})"))
+            ),
+            9.0,
+            Face::Regular,
+            0.0,
+        );
+    }
     composer.paragraph(&l.risk_note, 9.0, Face::Regular, 0.0);
     let columns = vec![
         Column::left(l.candidate.clone()),

@@ -5,7 +5,7 @@
 use super::frame::{draw_frame, Axis, LegendEntry, Swatch, SMALL_PT};
 use super::geometry::{Anchor, Colour, LineStyle, Mark, MarkerShape, Pt, Rect};
 use super::scale::{money_f64, tight_ticks, MoneyScale};
-use super::style::series_style;
+use super::style::{series_marks, series_style};
 use super::Chart;
 use crate::report::model::Model;
 use crate::report::pdf::labels::Labels;
@@ -134,22 +134,7 @@ pub fn fuel_price_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Ch
             .iter()
             .map(|(p, v)| Pt::new(frame.x.map(money_f64(*p)), frame.y.map(money_f64(*v))))
             .collect();
-        marks.push(Mark::Polyline {
-            points: points.clone(),
-            style: style.line,
-            width_pt: 1.3,
-            colour: style.colour,
-        });
-        let every = (points.len() / 8).max(1);
-        for p in points.iter().step_by(every) {
-            marks.push(Mark::Marker {
-                at: *p,
-                shape: style.marker,
-                size_mm: 1.6,
-                colour: style.colour,
-                filled: true,
-            });
-        }
+        marks.extend(series_marks(&points, &style, 8));
     }
     for (i, value) in asked {
         marks.push(Mark::Marker {

@@ -4,7 +4,7 @@
 use super::frame::{draw_frame, Axis, LegendEntry, Swatch, SMALL_PT};
 use super::geometry::{Anchor, Colour, LineStyle, Mark, MarkerShape, Pt, Rect};
 use super::scale::{money_f64, tight_ticks, MoneyScale};
-use super::style::series_style;
+use super::style::{series_marks, series_style};
 use super::Chart;
 use crate::report::format;
 use crate::report::model::{Model, PaybackView};
@@ -124,22 +124,7 @@ pub fn savings_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Savin
                 )
             })
             .collect();
-        marks.push(Mark::Polyline {
-            points: points.clone(),
-            style: style.line,
-            width_pt: 1.3,
-            colour: style.colour,
-        });
-        let every = (points.len() / 10).max(1);
-        for p in points.iter().step_by(every) {
-            marks.push(Mark::Marker {
-                at: *p,
-                shape: style.marker,
-                size_mm: 1.6,
-                colour: style.colour,
-                filled: true,
-            });
-        }
+        marks.extend(series_marks(&points, &style, 10));
         if let PaybackView::Years(years) = candidate.economics.discounted_payback {
             let at = Pt::new(frame.x.map(years), zero_y);
             marks.push(Mark::Marker {

@@ -62,3 +62,29 @@ pub fn stream_fill(index: usize) -> (Colour, bool) {
     ];
     FILLS[index % FILLS.len()]
 }
+
+/// A data series as marks: its polyline, then a marker on about every
+/// `len / max_markers`-th point (all points when there are few), so a series
+/// reads by dash pattern and marker shape as well as colour.
+pub fn series_marks(
+    points: &[super::geometry::Pt],
+    style: &SeriesStyle,
+    max_markers: usize,
+) -> Vec<super::geometry::Mark> {
+    use super::geometry::Mark;
+    let mut marks = vec![Mark::Polyline {
+        points: points.to_vec(),
+        style: style.line,
+        width_pt: 1.3,
+        colour: style.colour,
+    }];
+    let every = (points.len() / max_markers.max(1)).max(1);
+    marks.extend(points.iter().step_by(every).map(|p| Mark::Marker {
+        at: *p,
+        shape: style.marker,
+        size_mm: 1.6,
+        colour: style.colour,
+        filled: true,
+    }));
+    marks
+}

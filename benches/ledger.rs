@@ -19,6 +19,9 @@ fn bench_number_type<M: Money>(
 ) {
     let baseline_ledger = build_ledger(baseline).expect("baseline builds");
     let baseline_summary = baseline_ledger.summary;
+    c.bench_function(&format!("{label}/summary_30y"), |b| {
+        b.iter(|| summarize_ledger(black_box(candidate)))
+    });
     c.bench_function(&format!("{label}/ledger_30y"), |b| {
         b.iter(|| build_ledger(black_box(candidate)))
     });

@@ -26,8 +26,11 @@ use super::FinanceError;
 /// Longest service life accepted, in years.
 pub const MAX_SERVICE_LIFE_YEARS: u32 = 60;
 
+/// Days of calendar `year` in the proleptic Gregorian calendar (chrono's):
+/// 366 in a leap year (divisible by 4, centuries only when divisible by
+/// 400), else 365. Arithmetic, no date is built.
 fn days_in_year(year: i32) -> f64 {
-    if NaiveDate::from_ymd_opt(year, 2, 29).is_some() {
+    if year % 4 == 0 && (year % 100 != 0 || year % 400 == 0) {
         366.0
     } else {
         365.0
@@ -93,7 +96,7 @@ impl Calendar {
         }
         let end_of_life = commercial_operation
             .checked_add_months(Months::new(12 * service_life_years))
-            .ok_or(FinanceError::CalendarOverflow {
+            .ok_or_else(|| FinanceError::CalendarOverflow {
                 commercial_operation,
                 years: service_life_years,
             })?;
@@ -129,25 +132,110 @@ impl Calendar {
     /// The operating periods in order. Times are accumulated from each
     /// period's share so that full years step by exactly 1.
     pub fn periods(&self) -> impl Iterator<Item = Period> + '_ {
-        let (first, last) = self.operating_years();
-        let mut time = 0.0;
-        (first..=last).filter_map(move |year| {
-            let year_start = NaiveDate::from_ymd_opt(year, 1, 1)?;
-            let next_year_start = NaiveDate::from_ymd_opt(year + 1, 1, 1)?;
-            let start = year_start.max(self.commercial_operation);
-            let next_start = next_year_start.min(self.end_of_life);
-            let days = (next_start - start).num_days() as f64;
-            let fraction_of_year = days / days_in_year(year);
-            let time_start_years = time;
-            time += fraction_of_year;
+        self.spans().filter_map(move |span| {
+            let (start, end) = self.period_dates(span.year)?;
             Some(Period {
-                year,
+                year: span.year,
                 start,
-                end: next_start.pred_opt()?,
-                fraction_of_year,
-                time_start_years,
-                time_end_years: time,
+                end,
+                fraction_of_year: span.fraction_of_year,
+                time_start_years: span.time_start_years,
+                time_end_years: span.time_end_years,
             })
         })
+    }
+
+    /// The operating periods' places on the time axis without their dates,
+    /// the same sequence as [`Calendar::periods`]. Only the first and last
+    /// periods take date arithmetic (once, here); every year between them is
+    /// a full calendar year, share exactly 1.
+    pub(crate) fn spans(&self) -> Spans {
+        let (first_year, last_year) = self.operating_years();
+        Spans {
+            next_year: first_year,
+            first_year,
+            last_year,
+            first_fraction: self.edge_fraction(first_year),
+            last_fraction: self.edge_fraction(last_year),
+            time_years: 0.0,
+        }
+    }
+
+    /// First and last day (inclusive) of the period labelled `year`: from
+    /// 1 January or commercial operation, whichever is later, to 31 December
+    /// or the day before the end of life, whichever is earlier. `None` where
+    /// a bound is not a representable date.
+    pub(crate) fn period_dates(&self, year: i32) -> Option<(NaiveDate, NaiveDate)> {
+        let year_start = NaiveDate::from_ymd_opt(year, 1, 1)?;
+        let next_year_start = NaiveDate::from_ymd_opt(year + 1, 1, 1)?;
+        let start = year_start.max(self.commercial_operation);
+        let next_start = next_year_start.min(self.end_of_life);
+        Some((start, next_start.pred_opt()?))
+    }
+
+    /// Share of a full year in the period labelled `year`: its days over the
+    /// days of the calendar year. `None` where the period has no
+    /// representable dates (it is then not a period).
+    fn edge_fraction(&self, year: i32) -> Option<f64> {
+        let (start, end) = self.period_dates(year)?;
+        let days = ((end - start).num_days() + 1) as f64;
+        Some(days / days_in_year(year))
+    }
+}
+
+/// An operating period's place on the time axis: a [`Period`] without its
+/// dates.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct Span {
+    /// Calendar year that labels the period.
+    pub(crate) year: i32,
+    /// Share of a full year of operation (exactly 1 for a full year).
+    pub(crate) fraction_of_year: f64,
+    /// Start of the period in years since commercial operation.
+    pub(crate) time_start_years: f64,
+    /// End of the period in years since commercial operation.
+    pub(crate) time_end_years: f64,
+}
+
+/// The spans of a calendar in order (see [`Calendar::spans`]).
+pub(crate) struct Spans {
+    next_year: i32,
+    first_year: i32,
+    last_year: i32,
+    /// Share of the first year; `None` if that period is not representable.
+    first_fraction: Option<f64>,
+    /// Share of the last year; `None` if that period is not representable.
+    last_fraction: Option<f64>,
+    /// Time reached so far, the sum of the shares before `next_year`.
+    time_years: f64,
+}
+
+impl Iterator for Spans {
+    type Item = Span;
+
+    fn next(&mut self) -> Option<Span> {
+        while self.next_year <= self.last_year {
+            let year = self.next_year;
+            self.next_year += 1;
+            let fraction = if year == self.first_year {
+                self.first_fraction
+            } else if year == self.last_year {
+                self.last_fraction
+            } else {
+                Some(1.0)
+            };
+            let Some(fraction_of_year) = fraction else {
+                continue;
+            };
+            let time_start_years = self.time_years;
+            self.time_years += fraction_of_year;
+            return Some(Span {
+                year,
+                fraction_of_year,
+                time_start_years,
+                time_end_years: self.time_years,
+            });
+        }
+        None
     }
 }

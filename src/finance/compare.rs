@@ -95,17 +95,17 @@ pub fn compare_summaries<M: Money>(
     let net_savings = baseline
         .lifecycle_cost
         .sub_checked(candidate.lifecycle_cost)
-        .ok_or(err("net savings"))?;
+        .ok_or_else(|| err("net savings"))?;
     let operating = |s: &LedgerSummary<M>| s.present_value.operating();
     let investment = |s: &LedgerSummary<M>| s.present_value.investment();
     let operating_savings = operating(baseline)
         .zip(operating(candidate))
         .and_then(|(b, c)| b.sub_checked(c))
-        .ok_or(err("operating savings"))?;
+        .ok_or_else(|| err("operating savings"))?;
     let added_investment = investment(candidate)
         .zip(investment(baseline))
         .and_then(|(c, b)| c.sub_checked(b))
-        .ok_or(err("added investment"))?;
+        .ok_or_else(|| err("added investment"))?;
     let savings_to_investment = if added_investment > M::ZERO {
         operating_savings.div_checked(added_investment)
     } else {
@@ -119,7 +119,7 @@ pub fn compare_summaries<M: Money>(
     let premium_asked = candidate
         .capital_total
         .sub_checked(baseline.capital_total)
-        .ok_or(err("premium asked"))?;
+        .ok_or_else(|| err("premium asked"))?;
     // LCC_c(C) = LCC_c + (C − C_c)·m_c, so net savings vanish at
     // C = C_c + NS/m_c; the premium is that minus the baseline's capital.
     let break_even_premium = net_savings

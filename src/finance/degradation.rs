@@ -21,7 +21,7 @@
 const ON_MULTIPLE_TOLERANCE: f64 = 1e-9;
 
 /// Degradation and overhaul schedule of one candidate over accumulated
-/// operating hours.
+/// operating hours, walked row by row.
 #[derive(Debug, Clone, Copy)]
 pub(crate) struct WearModel {
     /// Degradation per operating hour (fraction of heat rate).
@@ -30,6 +30,27 @@ pub(crate) struct WearModel {
     recoverable: f64,
     /// Operating hours between overhauls, if overhauls are scheduled.
     interval_hours: Option<f64>,
+    /// The hours at the end of the previous row and the whole intervals
+    /// they reach: the next row starts there, so its start needs no second
+    /// computation.
+    reached: Option<(f64, f64)>,
+}
+
+/// Wear of one row: the mean heat-rate multiplier and the overhauls done.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct RowWear {
+    /// Mean of `1 + D(h)` over the row's accumulated hours.
+    pub(crate) heat_rate_multiplier: f64,
+    /// Overhauls triggered in the row.
+    pub(crate) overhaul_count: u32,
+}
+
+/// Whole intervals reached at the start and end of a row.
+#[derive(Debug, Clone, Copy)]
+struct Intervals {
+    interval: f64,
+    before: f64,
+    upto: f64,
 }
 
 impl WearModel {
@@ -50,47 +71,71 @@ impl WearModel {
             rate_per_hour,
             recoverable,
             interval_hours,
+            reached: None,
+        }
+    }
+
+    /// Wear over accumulated hours `from_hours..to_hours`. Overhauls count
+    /// in `(from_hours, to_hours]`, or `(from_hours, to_hours)` when
+    /// `ends_service` (an overhaul exactly at the end of life is not done).
+    /// Rows are expected in order, each starting where the previous ended.
+    pub(crate) fn row(&mut self, from_hours: f64, to_hours: f64, ends_service: bool) -> RowWear {
+        let intervals = self.interval_hours.map(|interval| {
+            let before = match self.reached {
+                Some((hours, multiples)) if hours == from_hours => multiples,
+                _ => multiples_reached(from_hours, interval),
+            };
+            let upto = multiples_reached(to_hours, interval);
+            self.reached = Some((to_hours, upto));
+            Intervals {
+                interval,
+                before,
+                upto,
+            }
+        });
+        RowWear {
+            heat_rate_multiplier: self.mean_heat_rate_multiplier(from_hours, to_hours, intervals),
+            overhaul_count: intervals.map_or(0, |i| overhauls_between(to_hours, i, ends_service)),
         }
     }
 
     /// Mean of `1 + D(h)` over accumulated hours `from_hours..to_hours`;
     /// the value at `from_hours` when the span is empty.
-    pub(crate) fn mean_heat_rate_multiplier(&self, from_hours: f64, to_hours: f64) -> f64 {
+    fn mean_heat_rate_multiplier(
+        &self,
+        from_hours: f64,
+        to_hours: f64,
+        intervals: Option<Intervals>,
+    ) -> f64 {
         if self.rate_per_hour == 0.0 {
             return 1.0;
         }
         let span = to_hours - from_hours;
         let permanent = (1.0 - self.recoverable) * 0.5 * (from_hours + to_hours);
-        let since_overhaul = match self.interval_hours {
-            Some(interval) if span > 0.0 => {
-                (sawtooth_integral(to_hours, interval) - sawtooth_integral(from_hours, interval))
+        let since_overhaul = match intervals {
+            Some(i) if span > 0.0 => {
+                (sawtooth_integral(to_hours, i.upto, i.interval)
+                    - sawtooth_integral(from_hours, i.before, i.interval))
                     / span
             }
-            Some(interval) => from_hours - multiples_reached(from_hours, interval) * interval,
+            Some(i) => from_hours - i.before * i.interval,
             None => 0.5 * (from_hours + to_hours),
         };
         1.0 + self.rate_per_hour * (permanent + self.recoverable * since_overhaul)
     }
+}
 
-    /// Number of overhauls triggered in accumulated hours
-    /// `(from_hours, to_hours]`, or `(from_hours, to_hours)` when
-    /// `ends_service` (an overhaul exactly at the end of life is not done).
-    pub(crate) fn overhauls_between(
-        &self,
-        from_hours: f64,
-        to_hours: f64,
-        ends_service: bool,
-    ) -> u32 {
-        let Some(interval) = self.interval_hours else {
-            return 0;
-        };
-        let before = multiples_reached(from_hours, interval);
-        let mut upto = multiples_reached(to_hours, interval);
-        if ends_service && upto > before && on_multiple(to_hours, interval) {
-            upto -= 1.0;
-        }
-        (upto - before).max(0.0) as u32
+/// Overhauls in a row ending at `to_hours` (see [`WearModel::row`]).
+fn overhauls_between(to_hours: f64, intervals: Intervals, ends_service: bool) -> u32 {
+    let Intervals {
+        interval,
+        before,
+        mut upto,
+    } = intervals;
+    if ends_service && upto > before && on_multiple(to_hours, interval) {
+        upto -= 1.0;
     }
+    (upto - before).max(0.0) as u32
 }
 
 /// Whole multiples of `interval` reached by `hours`, snapping values within
@@ -104,10 +149,9 @@ fn on_multiple(hours: f64, interval: f64) -> bool {
     (ratio - ratio.round()).abs() <= ON_MULTIPLE_TOLERANCE
 }
 
-/// ∫₀ʰ (x mod interval) dx: `k·I²/2 + r²/2` with `k` whole intervals and
-/// remainder `r`.
-fn sawtooth_integral(hours: f64, interval: f64) -> f64 {
-    let whole = multiples_reached(hours, interval);
+/// ∫₀ʰ (x mod interval) dx: `k·I²/2 + r²/2` with `k` whole intervals (the
+/// [`multiples_reached`] by `hours`) and remainder `r`.
+fn sawtooth_integral(hours: f64, whole: f64, interval: f64) -> f64 {
     let remainder = (hours - whole * interval).max(0.0);
     0.5 * (whole * interval * interval + remainder * remainder)
 }

@@ -8,7 +8,7 @@ use chrono::{Datelike, NaiveDate};
 
 use super::calendar::Calendar;
 use super::chain::FactorChain;
-use super::inputs::{LedgerInputs, ResidualValue};
+use super::inputs::{Capital, CapitalPayment, LedgerInputs, ResidualValue};
 use super::ledger::{Analysis, Ledger, LedgerRow, LedgerSummary, RowKind, StreamTotals};
 use super::money::Money;
 use super::operating::operating_rows;
@@ -17,7 +17,7 @@ use super::FinanceError;
 /// Build the full ledger of one candidate.
 pub fn build_ledger<M: Money>(inputs: &LedgerInputs<M>) -> Result<Ledger<M>, FinanceError> {
     let mut rows = Vec::with_capacity(inputs.service_life_years as usize + 4);
-    let summary = run(inputs, |row| rows.push(row))?;
+    let summary = run(inputs, &mut rows)?;
     Ok(Ledger { summary, rows })
 }
 
@@ -26,7 +26,35 @@ pub fn build_ledger<M: Money>(inputs: &LedgerInputs<M>) -> Result<Ledger<M>, Fin
 pub fn summarize_ledger<M: Money>(
     inputs: &LedgerInputs<M>,
 ) -> Result<LedgerSummary<M>, FinanceError> {
-    run(inputs, |_| {})
+    run(inputs, &mut DropRows)
+}
+
+/// Where a ledger's rows go: kept by [`build_ledger`], never built by
+/// [`summarize_ledger`].
+pub(crate) trait RowSink<M: Money> {
+    /// Whether rows are kept. When false the engine skips what only a row
+    /// shows (its dates), and the optimiser drops the rest of the row.
+    const KEEPS_ROWS: bool;
+
+    /// Take one row.
+    fn push(&mut self, row: LedgerRow<M>);
+}
+
+impl<M: Money> RowSink<M> for Vec<LedgerRow<M>> {
+    const KEEPS_ROWS: bool = true;
+
+    fn push(&mut self, row: LedgerRow<M>) {
+        Vec::push(self, row);
+    }
+}
+
+/// The sink of [`summarize_ledger`]: rows are not kept.
+pub(crate) struct DropRows;
+
+impl<M: Money> RowSink<M> for DropRows {
+    const KEEPS_ROWS: bool = false;
+
+    fn push(&mut self, _row: LedgerRow<M>) {}
 }
 
 /// `a * b`, or the overflow error for `stream` in `year`.
@@ -37,7 +65,7 @@ pub(crate) fn mul<M: Money>(
     year: i32,
 ) -> Result<M, FinanceError> {
     a.mul_checked(b)
-        .ok_or(FinanceError::Overflow { stream, year })
+        .ok_or_else(|| FinanceError::Overflow { stream, year })
 }
 
 /// `a + b`, or the overflow error for `stream` in `year`.
@@ -48,7 +76,7 @@ pub(crate) fn add<M: Money>(
     year: i32,
 ) -> Result<M, FinanceError> {
     a.add_checked(b)
-        .ok_or(FinanceError::Overflow { stream, year })
+        .ok_or_else(|| FinanceError::Overflow { stream, year })
 }
 
 /// A factor as money-type, or the overflow error for `stream` in `year`.
@@ -57,7 +85,7 @@ pub(crate) fn factor<M: Money>(
     stream: &'static str,
     year: i32,
 ) -> Result<M, FinanceError> {
-    M::from_factor(value).ok_or(FinanceError::Overflow { stream, year })
+    M::from_factor(value).ok_or_else(|| FinanceError::Overflow { stream, year })
 }
 
 /// A row on a single date (capital payment, residual credit) with no
@@ -101,12 +129,23 @@ fn capital_rows<M: Money>(
     inputs: &LedgerInputs<M>,
     calendar: &Calendar,
     discount: &FactorChain,
-    sink: &mut impl FnMut(LedgerRow<M>),
+    sink: &mut impl RowSink<M>,
 ) -> Result<CapitalPart<M>, FinanceError> {
     let mut total = M::ZERO;
     let mut present_value = M::ZERO;
     let mut last_factor = M::ONE;
-    for payment in inputs.capital.payments(inputs.commercial_operation) {
+    let single;
+    let payments = match &inputs.capital {
+        Capital::AtCommercialOperation(amount) => {
+            single = [CapitalPayment {
+                date: inputs.commercial_operation,
+                amount: *amount,
+            }];
+            &single[..]
+        }
+        Capital::Schedule(payments) => &payments[..],
+    };
+    for payment in payments {
         let time = calendar.time_of(payment.date);
         let mut row = single_date_row::<M>(RowKind::Capital, payment.date, time);
         let year = row.year;
@@ -117,14 +156,14 @@ fn capital_rows<M: Money>(
         total = add(total, payment.amount, "capital", year)?;
         present_value = add(present_value, row.present_value, "capital", year)?;
         last_factor = row.discount_factor;
-        sink(row);
+        sink.push(row);
     }
     let per_unit = if total == M::ZERO {
         last_factor
     } else {
         present_value
             .div_checked(total)
-            .ok_or(FinanceError::Overflow {
+            .ok_or_else(|| FinanceError::Overflow {
                 stream: "capital",
                 year: inputs.commercial_operation.year(),
             })?
@@ -138,14 +177,14 @@ fn capital_rows<M: Money>(
 
 fn run<M: Money>(
     inputs: &LedgerInputs<M>,
-    mut sink: impl FnMut(LedgerRow<M>),
+    sink: &mut impl RowSink<M>,
 ) -> Result<LedgerSummary<M>, FinanceError> {
     inputs.validate()?;
     let calendar = Calendar::new(inputs.commercial_operation, inputs.service_life_years)?;
     let discount = FactorChain::discount(inputs.rates.discount_rate);
 
-    let capital = capital_rows(inputs, &calendar, &discount, &mut sink)?;
-    let operating = operating_rows(inputs, &calendar, &mut sink)?;
+    let capital = capital_rows(inputs, &calendar, &discount, sink)?;
+    let operating = operating_rows(inputs, &calendar, sink)?;
 
     // Residual value, credited at the end of life.
     let end_time = calendar.end_of_life_years();
@@ -173,18 +212,18 @@ fn run<M: Money>(
     let value = mul(value, escalation, stream, year)?;
     row.residual = M::ZERO
         .sub_checked(value)
-        .ok_or(FinanceError::Overflow { stream, year })?;
+        .ok_or_else(|| FinanceError::Overflow { stream, year })?;
     row.total = row.residual;
     row.present_value = mul(row.total, row.discount_factor, stream, year)?;
     let residual_pv = row.present_value;
-    sink(row);
+    sink.push(row);
 
     let present_value = StreamTotals {
         capital: capital.present_value,
         residual: residual_pv,
         ..operating.present_value
     };
-    let overflow = FinanceError::Overflow {
+    let overflow = || FinanceError::Overflow {
         stream: "lifecycle cost",
         year,
     };
@@ -193,11 +232,11 @@ fn run<M: Money>(
         .present_value
         .add_checked(operating.rows_present_value)
         .and_then(|sum| sum.add_checked(residual_pv))
-        .ok_or(overflow.clone())?;
+        .ok_or_else(overflow)?;
     let pv_per_unit_capital = capital
         .per_unit
         .sub_checked(credit_per_unit_capital)
-        .ok_or(overflow)?;
+        .ok_or_else(overflow)?;
     Ok(LedgerSummary {
         analysis: Analysis {
             calendar,

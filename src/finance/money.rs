@@ -202,7 +202,7 @@ pub fn convert_physics_to_money<M: Money>(
     value: f64,
     field: &'static str,
 ) -> Result<M, FinanceError> {
-    M::from_physics(value).ok_or(FinanceError::OutOfRange {
+    M::from_physics(value).ok_or_else(|| FinanceError::OutOfRange {
         field,
         value,
         valid: "a finite quantity below 7.9e28",

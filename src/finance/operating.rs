@@ -1,9 +1,9 @@
 //! The operating rows of a ledger: one per calendar year of service.
 
-use super::calendar::{Calendar, Period};
+use super::calendar::{Calendar, Span};
 use super::chain::FactorChain;
 use super::degradation::WearModel;
-use super::engine::{add, factor, mul};
+use super::engine::{add, factor, mul, RowSink};
 use super::inputs::{FuelPrice, LedgerInputs, PriceBasis};
 use super::ledger::{LedgerRow, RowKind, StreamTotals};
 use super::money::{convert_physics_to_money, Money};
@@ -79,7 +79,7 @@ impl<M: Money> FuelStream<M> {
                 let price = usize::try_from(year - *first_year)
                     .ok()
                     .and_then(|index| prices.get(index).copied())
-                    .ok_or(FinanceError::PricePathMissingYear {
+                    .ok_or_else(|| FinanceError::PricePathMissingYear {
                         year,
                         first: *first_year,
                         last: *first_year + prices.len() as i32 - 1,
@@ -194,7 +194,7 @@ fn priced<M: Money>(
 
 /// Time at which a period's cash is counted, and the step to it from the
 /// previous period's cash time (exactly 1 between full years).
-fn cash_time(timing: Timing, period: &Period, previous_fraction: Option<f64>) -> (f64, f64) {
+fn cash_time(timing: Timing, period: &Span, previous_fraction: Option<f64>) -> (f64, f64) {
     match timing {
         Timing::EndOfYear => (period.time_end_years, period.fraction_of_year),
         Timing::MidYear => (
@@ -205,14 +205,14 @@ fn cash_time(timing: Timing, period: &Period, previous_fraction: Option<f64>) ->
 }
 
 /// Emit one row per operating period into `sink` and return the totals.
-pub(crate) fn operating_rows<M: Money>(
+pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
     inputs: &LedgerInputs<M>,
     calendar: &Calendar,
-    sink: &mut impl FnMut(LedgerRow<M>),
+    sink: &mut S,
 ) -> Result<OperatingPart<M>, FinanceError> {
     let operation = &inputs.operation;
     let overhaul = inputs.overhaul;
-    let wear = WearModel::new(
+    let mut wear = WearModel::new(
         operation.operating_hours,
         inputs.degradation.heat_rate_fraction_per_year,
         inputs.degradation.recoverable_fraction,
@@ -260,7 +260,7 @@ pub(crate) fn operating_rows<M: Money>(
     let mut pv_energy_mwh = 0.0;
     let mut previous_fraction = None;
     let last_index = calendar.period_count().saturating_sub(1);
-    for (index, period) in calendar.periods().enumerate() {
+    for (index, period) in calendar.spans().enumerate() {
         let year = period.year;
         let (cash_time_years, step) = cash_time(inputs.timing, &period, previous_fraction);
         previous_fraction = Some(period.fraction_of_year);
@@ -271,10 +271,9 @@ pub(crate) fn operating_rows<M: Money>(
         let to_hours = operation.operating_hours * period.time_end_years;
         let operating_hours = operation.operating_hours * fraction;
         let energy_mwh = operation.energy_mwh * fraction;
-        let fuel_energy_gj = operation.fuel_energy_gj_lhv
-            * fraction
-            * wear.mean_heat_rate_multiplier(from_hours, to_hours);
-        let overhaul_count = wear.overhauls_between(from_hours, to_hours, index == last_index);
+        let wear = wear.row(from_hours, to_hours, index == last_index);
+        let fuel_energy_gj = operation.fuel_energy_gj_lhv * fraction * wear.heat_rate_multiplier;
+        let overhaul_count = wear.overhaul_count;
 
         // Quantities meet prices.
         let discount_value = discount.advance(step);
@@ -322,11 +321,21 @@ pub(crate) fn operating_rows<M: Money>(
         rows_present_value = add(rows_present_value, present_value, "present value", year)?;
         pv_energy_mwh += energy_mwh * discount_value;
 
-        sink(LedgerRow {
+        if !S::KEEPS_ROWS {
+            continue;
+        }
+        let (period_start, period_end) =
+            calendar
+                .period_dates(year)
+                .ok_or_else(|| FinanceError::CalendarOverflow {
+                    commercial_operation: calendar.commercial_operation,
+                    years: calendar.service_life_years,
+                })?;
+        sink.push(LedgerRow {
             kind: RowKind::Operation,
             year,
-            period_start: period.start,
-            period_end: period.end,
+            period_start,
+            period_end,
             time_start_years: period.time_start_years,
             time_end_years: period.time_end_years,
             cash_time_years,

@@ -1,7 +1,7 @@
 //! A year-by-year fuel price path, checked against the operating years.
 
 use super::money::Money;
-use super::validate::check_money;
+use super::validate::check_money_named;
 use super::FinanceError;
 
 /// Prices indexed by calendar year from `first_year`, one per operating
@@ -17,7 +17,7 @@ pub(crate) fn resolve_price_path<M: Money>(
     let mut prices: Vec<Option<M>> = vec![None; span];
     let mut outside: Vec<i32> = Vec::new();
     for &(year, price) in path {
-        check_money(&format!("fuel.price_path[{year}]"), price)?;
+        check_money_named(price, || format!("fuel.price_path[{year}]"))?;
         let slot = usize::try_from(year - first_year)
             .ok()
             .and_then(|index| prices.get_mut(index));
@@ -34,7 +34,7 @@ pub(crate) fn resolve_price_path<M: Money>(
         .into_iter()
         .zip(first_year..)
         .map(|(price, year)| {
-            price.ok_or(FinanceError::PricePathMissingYear {
+            price.ok_or_else(|| FinanceError::PricePathMissingYear {
                 year,
                 first: first_year,
                 last: last_year,

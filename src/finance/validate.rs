@@ -24,12 +24,21 @@ fn check_range(
 }
 
 /// Error unless `value` is zero or more.
-pub(crate) fn check_money<M: Money>(field: &str, value: M) -> Result<(), FinanceError> {
+fn check_money<M: Money>(field: &'static str, value: M) -> Result<(), FinanceError> {
+    check_money_named(value, || field.to_string())
+}
+
+/// Error unless `value` is zero or more; the field's name is built only
+/// for the error.
+pub(crate) fn check_money_named<M: Money>(
+    value: M,
+    field: impl FnOnce() -> String,
+) -> Result<(), FinanceError> {
     if value >= M::ZERO {
         Ok(())
     } else {
         Err(FinanceError::NegativeMoney {
-            field: field.to_string(),
+            field: field(),
             value: value.to_string(),
         })
     }
@@ -179,7 +188,7 @@ impl<M: Money> LedgerInputs<M> {
             return Err(FinanceError::EmptyCapitalSchedule);
         }
         for (index, payment) in payments.iter().enumerate() {
-            check_money(&format!("capital[{index}].amount"), payment.amount)?;
+            check_money_named(payment.amount, || format!("capital[{index}].amount"))?;
             if payment.date > self.commercial_operation {
                 return Err(FinanceError::CapitalAfterCommercialOperation {
                     index,

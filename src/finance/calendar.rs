@@ -96,7 +96,7 @@ impl Calendar {
         }
         let end_of_life = commercial_operation
             .checked_add_months(Months::new(12 * service_life_years))
-            .ok_or_else(|| FinanceError::CalendarOverflow {
+            .ok_or(FinanceError::CalendarOverflow {
                 commercial_operation,
                 years: service_life_years,
             })?;
@@ -178,7 +178,8 @@ impl Calendar {
     /// representable dates (it is then not a period).
     fn edge_fraction(&self, year: i32) -> Option<f64> {
         let (start, end) = self.period_dates(year)?;
-        let days = ((end - start).num_days() + 1) as f64;
+        // Both dates lie in `year`: their days of the year give the count.
+        let days = (i64::from(end.ordinal()) - i64::from(start.ordinal()) + 1) as f64;
         Some(days / days_in_year(year))
     }
 }

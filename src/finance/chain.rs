@@ -41,7 +41,9 @@ impl FactorChain {
 
     /// The factor `growth^t` at an arbitrary time, without moving the chain.
     pub(crate) fn at(&self, time_years: f64) -> f64 {
-        if time_years == 0.0 {
+        // 1^t is 1 for every t (IEEE 754 `pow`), so a flat chain needs no
+        // power.
+        if time_years == 0.0 || self.growth == 1.0 {
             1.0
         } else {
             self.growth.powf(time_years)

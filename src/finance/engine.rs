@@ -65,7 +65,7 @@ pub(crate) fn mul<M: Money>(
     year: i32,
 ) -> Result<M, FinanceError> {
     a.mul_checked(b)
-        .ok_or_else(|| FinanceError::Overflow { stream, year })
+        .ok_or(FinanceError::Overflow { stream, year })
 }
 
 /// `a + b`, or the overflow error for `stream` in `year`.
@@ -76,7 +76,7 @@ pub(crate) fn add<M: Money>(
     year: i32,
 ) -> Result<M, FinanceError> {
     a.add_checked(b)
-        .ok_or_else(|| FinanceError::Overflow { stream, year })
+        .ok_or(FinanceError::Overflow { stream, year })
 }
 
 /// A factor as money-type, or the overflow error for `stream` in `year`.
@@ -85,7 +85,7 @@ pub(crate) fn factor<M: Money>(
     stream: &'static str,
     year: i32,
 ) -> Result<M, FinanceError> {
-    M::from_factor(value).ok_or_else(|| FinanceError::Overflow { stream, year })
+    M::from_factor(value).ok_or(FinanceError::Overflow { stream, year })
 }
 
 /// A row on a single date (capital payment, residual credit) with no
@@ -212,7 +212,7 @@ fn run<M: Money>(
     let value = mul(value, escalation, stream, year)?;
     row.residual = M::ZERO
         .sub_checked(value)
-        .ok_or_else(|| FinanceError::Overflow { stream, year })?;
+        .ok_or(FinanceError::Overflow { stream, year })?;
     row.total = row.residual;
     row.present_value = mul(row.total, row.discount_factor, stream, year)?;
     let residual_pv = row.present_value;

@@ -126,7 +126,7 @@ impl Money for f64 {
     }
 
     fn from_decimal(value: Decimal) -> Self {
-        ToPrimitive::to_f64(&value).unwrap_or(f64::NAN)
+        decimal_to_f64(value)
     }
 
     fn from_physics(value: f64) -> Option<Self> {
@@ -144,6 +144,40 @@ impl Money for f64 {
 
 fn finite(value: f64) -> Option<f64> {
     value.is_finite().then_some(value)
+}
+
+/// `value` as `f64`: the same number as `rust_decimal`'s `to_f64`, by its
+/// steps (whole part plus fraction, then rounded at the decimal's scale),
+/// taken in 64-bit integers when the mantissa and the power of ten fit them
+/// (every price and amount below 1.8e19 units of its last digit) instead of
+/// 128-bit ones; other values go to `to_f64` itself.
+fn decimal_to_f64(value: Decimal) -> f64 {
+    let scale = value.scale();
+    let Ok(mantissa) = u64::try_from(value.mantissa().unsigned_abs()) else {
+        return ToPrimitive::to_f64(&value).unwrap_or(f64::NAN);
+    };
+    // 10^19 is the largest power of ten below 2^64.
+    if scale > 19 {
+        return ToPrimitive::to_f64(&value).unwrap_or(f64::NAN);
+    }
+    let negative = value.is_sign_negative();
+    let signed = |magnitude: f64| if negative { -magnitude } else { magnitude };
+    if scale == 0 {
+        // A whole number; a negative zero becomes plain zero.
+        return if mantissa == 0 {
+            0.0
+        } else {
+            signed(mantissa as f64)
+        };
+    }
+    let precision = 10u64.pow(scale);
+    let fraction = (mantissa % precision) as f64 / precision as f64;
+    let whole = (mantissa / precision) as f64;
+    if fraction == 0.0 {
+        return signed(whole);
+    }
+    let round_to = 10f64.powi(scale as i32);
+    signed(((whole + fraction) * round_to).round() / round_to)
 }
 
 /// `value` rounded half-to-even to [`SIGNIFICANT_DIGITS`] significant digits
@@ -202,7 +236,7 @@ pub fn convert_physics_to_money<M: Money>(
     value: f64,
     field: &'static str,
 ) -> Result<M, FinanceError> {
-    M::from_physics(value).ok_or_else(|| FinanceError::OutOfRange {
+    M::from_physics(value).ok_or(FinanceError::OutOfRange {
         field,
         value,
         valid: "a finite quantity below 7.9e28",
@@ -226,4 +260,42 @@ pub const DEFAULT_MINOR_UNIT_DECIMALS: u32 = 2;
 /// presented total may differ from the sum of presented rows by a minor unit.
 pub fn round_for_presentation(value: Decimal, minor_unit_decimals: u32) -> Decimal {
     value.round_dp_with_strategy(minor_unit_decimals, MIDPOINT_RULE)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use rand::{Rng, SeedableRng};
+    use rand_chacha::ChaCha8Rng;
+
+    /// The 64-bit conversion gives `rust_decimal`'s `to_f64` bit for bit:
+    /// every scale, both signs, zero, and mantissas from one digit to the
+    /// full 96 bits (those above 64 bits take `to_f64` itself).
+    #[test]
+    fn decimal_to_f64_matches_rust_decimal_bit_for_bit() {
+        let mut rng = ChaCha8Rng::seed_from_u64(7);
+        for _ in 0..200_000 {
+            let bits: u32 = rng.gen_range(0..=96);
+            let mask = if bits == 0 {
+                0
+            } else {
+                u128::MAX >> (128 - bits)
+            };
+            let mantissa = rng.gen::<u128>() & mask;
+            let scale = rng.gen_range(0..=28);
+            let value = Decimal::from_parts(
+                mantissa as u32,
+                (mantissa >> 32) as u32,
+                (mantissa >> 64) as u32,
+                rng.gen(),
+                scale,
+            );
+            let expected = ToPrimitive::to_f64(&value).unwrap_or(f64::NAN);
+            assert_eq!(
+                decimal_to_f64(value).to_bits(),
+                expected.to_bits(),
+                "{value:?} (scale {scale})"
+            );
+        }
+    }
 }

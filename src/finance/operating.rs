@@ -194,6 +194,7 @@ fn priced<M: Money>(
 
 /// Time at which a period's cash is counted, and the step to it from the
 /// previous period's cash time (exactly 1 between full years).
+#[inline]
 fn cash_time(timing: Timing, period: &Span, previous_fraction: Option<f64>) -> (f64, f64) {
     match timing {
         Timing::EndOfYear => (period.time_end_years, period.fraction_of_year),
@@ -322,12 +323,14 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
         pv_energy_mwh += energy_mwh * discount_value;
 
         if !S::KEEPS_ROWS {
+            // A summary keeps no rows: their dates are never looked up.
             continue;
         }
+        // Every span has representable dates (see `Calendar::spans`).
         let (period_start, period_end) =
             calendar
                 .period_dates(year)
-                .ok_or_else(|| FinanceError::CalendarOverflow {
+                .ok_or(FinanceError::CalendarOverflow {
                     commercial_operation: calendar.commercial_operation,
                     years: calendar.service_life_years,
                 })?;

@@ -34,7 +34,7 @@ pub(crate) fn resolve_price_path<M: Money>(
         .into_iter()
         .zip(first_year..)
         .map(|(price, year)| {
-            price.ok_or_else(|| FinanceError::PricePathMissingYear {
+            price.ok_or(FinanceError::PricePathMissingYear {
                 year,
                 first: first_year,
                 last: last_year,

@@ -178,15 +178,29 @@ impl<M: Money> OptionalStream<M> {
     }
 }
 
+/// Positive quantities below this always convert to money (finite, and
+/// within the `Decimal` range at 15 significant digits).
+const ALWAYS_CONVERTIBLE: f64 = 1e28;
+
 /// `price × quantity`, the quantity converted at the one crossing. Inputs
 /// are validated finite before any row, so a failed conversion here means
 /// the escalated quantity left the representable range.
+///
+/// A stream that is off in a row (a quantity of +0, or a zero price with a
+/// quantity that converts) costs `price × 0` without the conversion: the
+/// same value in both money types, since +0 converts to zero and a zero
+/// price times any positive quantity is that zero times +0 (`Decimal`
+/// returns plain zero, `f64` keeps the price's sign of zero).
 fn priced<M: Money>(
     price: M,
     quantity: f64,
     stream: &'static str,
     year: i32,
 ) -> Result<M, FinanceError> {
+    let zero_quantity = quantity.to_bits() == 0;
+    if zero_quantity || (price == M::ZERO && quantity > 0.0 && quantity < ALWAYS_CONVERTIBLE) {
+        return mul(price, M::ZERO, stream, year);
+    }
     let quantity: M = convert_physics_to_money(quantity, stream)
         .map_err(|_| FinanceError::Overflow { stream, year })?;
     mul(price, quantity, stream, year)

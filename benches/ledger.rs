@@ -1,7 +1,8 @@
 //! Speed of the finance layer: a 30-year ledger with every stream active,
-//! alone and with all metrics against a baseline, in `Decimal` (the printed
-//! ledger) and `f64` (sampling and sweeps). Target: ledger plus all metrics
-//! against a baseline ≤ 25 µs median in `Decimal`.
+//! its totals alone (`summary_30y`, what sampling and sweeps run), the full
+//! ledger, and the ledger with all metrics against a baseline, in `Decimal`
+//! (the printed ledger) and `f64` (sampling and sweeps). Target: ledger plus
+//! all metrics against a baseline ≤ 25 µs median in `Decimal`.
 
 use brayfin::finance::{
     build_ledger, compare_ledgers, compare_summaries, summarize_ledger, LedgerInputs, Money,

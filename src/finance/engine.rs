@@ -1,8 +1,9 @@
 //! Builds a ledger row by row, generic over the money type.
 //!
 //! One pass produces every row and the totals; [`build_ledger`] keeps the
-//! rows, [`summarize_ledger`] drops them (no per-row allocation) for sampling
-//! and sweeps. Both run the same code.
+//! rows, [`summarize_ledger`] keeps none, for sampling and sweeps: it
+//! allocates nothing and looks up no row dates. Both run the same code and
+//! give the same totals.
 
 use chrono::{Datelike, NaiveDate};
 

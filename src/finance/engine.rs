@@ -1,9 +1,10 @@
 //! Builds a ledger row by row, generic over the money type.
 //!
 //! One pass produces every row and the totals; [`build_ledger`] keeps the
-//! rows, [`summarize_ledger`] keeps none, for sampling and sweeps: it
-//! allocates nothing and looks up no row dates. Both run the same code and
-//! give the same totals.
+//! rows, [`summarize_ledger`] keeps none, for sampling and sweeps: it looks
+//! up no row dates and allocates nothing (but the resolved fuel price path,
+//! when prices are given year by year). Both run the same code and give the
+//! same totals.
 
 use chrono::{Datelike, NaiveDate};
 

@@ -240,3 +240,59 @@ impl Iterator for Spans {
         None
     }
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use chrono::Days;
+
+    /// Each period by date arithmetic alone, year by year: the reference
+    /// the spans (date arithmetic at the two edges only) must equal.
+    fn periods_by_dates(calendar: &Calendar) -> Vec<Period> {
+        let (first, last) = calendar.operating_years();
+        let mut time = 0.0;
+        (first..=last)
+            .filter_map(|year| {
+                let start = NaiveDate::from_ymd_opt(year, 1, 1)?.max(calendar.commercial_operation);
+                let next_start = NaiveDate::from_ymd_opt(year + 1, 1, 1)?.min(calendar.end_of_life);
+                let leap = NaiveDate::from_ymd_opt(year, 2, 29).is_some();
+                let fraction_of_year =
+                    (next_start - start).num_days() as f64 / if leap { 366.0 } else { 365.0 };
+                let time_start_years = time;
+                time += fraction_of_year;
+                Some(Period {
+                    year,
+                    start,
+                    end: next_start.pred_opt()?,
+                    fraction_of_year,
+                    time_start_years,
+                    time_end_years: time,
+                })
+            })
+            .collect()
+    }
+
+    /// Starts on every fifth day over three years (a leap year among them,
+    /// 1 January and 29 February included), lives from 1 to 60 years, and a
+    /// life ending in the last representable year: the same periods, times
+    /// equal to the bit.
+    #[test]
+    fn periods_equal_date_arithmetic_year_by_year() {
+        let first_day = NaiveDate::from_ymd_opt(2027, 1, 1).unwrap();
+        let mut starts: Vec<NaiveDate> = (0..220).map(|n| first_day + Days::new(5 * n)).collect();
+        starts.push(NaiveDate::from_ymd_opt(2028, 2, 29).unwrap());
+        for start in starts {
+            for life in [1, 2, 3, 7, 30, 59, 60] {
+                let calendar = Calendar::new(start, life).unwrap();
+                let periods: Vec<Period> = calendar.periods().collect();
+                assert_eq!(periods, periods_by_dates(&calendar), "{start} + {life}");
+                assert_eq!(periods.len(), calendar.period_count());
+            }
+        }
+        let last_year = NaiveDate::MAX.year();
+        let near_the_end = NaiveDate::from_ymd_opt(last_year - 10, 6, 1).unwrap();
+        let calendar = Calendar::new(near_the_end, 10).unwrap();
+        let periods: Vec<Period> = calendar.periods().collect();
+        assert_eq!(periods, periods_by_dates(&calendar));
+    }
+}

@@ -150,6 +150,7 @@ impl EngineConfig {
     /// Check every range that needs no thermodynamics. Temperatures against
     /// the gas model's data range, and combinations (turbine inlet above
     /// compressor exit, …), are checked by the solve.
+    #[inline]
     pub fn validate(&self) -> Result<(), CycleError> {
         positive("ambient_temperature_k", self.ambient_temperature_k, "K")?;
         positive("ambient_pressure_kpa", self.ambient_pressure_kpa, "kPa")?;

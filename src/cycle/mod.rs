@@ -50,7 +50,14 @@
 //!   added (fuel LHV energy) minus heat rejected (exhaust enthalpy above
 //!   298.15 K less inlet air's, intercooler heat, and the fuel energy not
 //!   released) within 1e-9 of the heat added, or the solve fails.
+//! - `cold-air` takes a closed-form path (power laws, no inverse solves;
+//!   `cold.rs`) with the same states, works and first-law check. Any cycle
+//!   it does not solve (every input the generic solver refuses among them)
+//!   goes to the generic solver, so errors are reported in one place.
 
+mod cold;
+#[cfg(test)]
+mod cold_tests;
 mod components;
 mod compression;
 mod config;
@@ -68,7 +75,7 @@ use crate::fuel::Fuel;
 use crate::thermo::cold_air::{ColdAir, DEFAULT_CP_KJ_PER_KG_K, DEFAULT_K};
 use crate::thermo::mixture::Mixture;
 use crate::units::KJ_PER_BTU;
-use components::{greater, AirStandard, Combustion, Products};
+use components::{greater, AirStandard, Products};
 use serde::Serialize;
 use std::sync::OnceLock;
 
@@ -190,6 +197,9 @@ pub struct CycleResult {
     pub flows: Option<Flows>,
 }
 
+/// Btu (International Table) per kJ.
+const BTU_PER_KJ: f64 = 1.0 / KJ_PER_BTU;
+
 fn dry_air() -> &'static Mixture {
     static AIR: OnceLock<Mixture> = OnceLock::new();
     AIR.get_or_init(Mixture::dry_air)
@@ -209,29 +219,34 @@ pub fn solve(
     let eta_b = config.combustion_efficiency;
     match *gas {
         GasModel::ColdAir { cp_kj_per_kg_k, k } => {
-            let model = AirStandard::new(ColdAir::new(cp_kj_per_kg_k, k)?, eta_b);
-            finish(config, gas, fuel, &model)
+            let air = ColdAir::new(cp_kj_per_kg_k, k)?;
+            let solved = match cold::run(config, &air, eta_b) {
+                Some(solved) => solved,
+                None => solver::run(config, &AirStandard::new(air, eta_b))?,
+            };
+            finish(config, gas, fuel, solved, false)
         }
-        GasModel::Air => finish(
-            config,
-            gas,
-            fuel,
-            &AirStandard::new(dry_air().clone(), eta_b),
-        ),
+        GasModel::Air => {
+            let solved = solver::run(config, &AirStandard::new(dry_air().clone(), eta_b))?;
+            finish(config, gas, fuel, solved, false)
+        }
         GasModel::Products => {
-            let model = Products::new(dry_air().clone(), fuel, eta_b)?;
-            finish(config, gas, fuel, &model)
+            let solved = solver::run(config, &Products::new(dry_air().clone(), fuel, eta_b)?)?;
+            finish(config, gas, fuel, solved, true)
         }
     }
 }
 
-fn finish<C: Combustion>(
+/// The result of a solved cycle; `burns_fuel` when the model carries the
+/// fuel's mass (then the result states the fuel–air ratio).
+#[inline(always)]
+fn finish(
     config: &EngineConfig,
     gas: &GasModel,
     fuel: &Fuel,
-    model: &C,
+    solved: solver::Solved,
+    burns_fuel: bool,
 ) -> Result<CycleResult, CycleError> {
-    let solved = solver::run(config, model)?;
     let net = solved.turbine_work - solved.compressor_work;
     if !greater(net, 0.0) {
         return Err(CycleError::NoNetWork {
@@ -244,7 +259,9 @@ fn finish<C: Combustion>(
         * config.generator_efficiency
         * (1.0 - config.auxiliary_load_fraction);
     let efficiency = electrical / solved.heat_input;
-    let heat_rate = 3600.0 / efficiency;
+    // From the works, not from the efficiency: the two divisions run side
+    // by side instead of one after the other.
+    let heat_rate = 3600.0 * solved.heat_input / electrical;
     let flows = config.sizing.map(|sizing| {
         let air = match sizing {
             Sizing::NetOutputKw(p) => p / electrical,
@@ -270,10 +287,10 @@ fn finish<C: Combustion>(
         back_work_ratio: solved.compressor_work / solved.turbine_work,
         thermal_efficiency: efficiency,
         heat_rate_kj_per_kwh: heat_rate,
-        heat_rate_btu_per_kwh: heat_rate / KJ_PER_BTU,
+        heat_rate_btu_per_kwh: heat_rate * BTU_PER_KJ,
         heat_rate_basis: "LHV",
         exhaust_temperature_k: solved.exhaust_temperature_k,
-        fuel_air_ratio: C::COMPOSITION_FOLLOWS_FUEL.then_some(solved.fuel_per_kg_air),
+        fuel_air_ratio: burns_fuel.then_some(solved.fuel_per_kg_air),
         co2_kg_per_mwh: Some(heat_rate * 1e-3 * fuel.co2_kg_per_gj_lhv()),
         energy_balance_residual_kj_per_kg: solved.residual,
         flows,

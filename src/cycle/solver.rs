@@ -14,7 +14,7 @@ use super::StatePoint;
 use crate::thermo::{GasProperties, REFERENCE_TEMPERATURE_K};
 
 /// First-law closure tolerance, relative to the heat input.
-const CLOSURE_TOLERANCE: f64 = 1e-9;
+pub(crate) const CLOSURE_TOLERANCE: f64 = 1e-9;
 
 /// Convergence of the regenerator loop: |Δh5| relative to |h5| (or 1 kJ/kg).
 /// The first law closes exactly at any iterate (h5 and the gas-side exit are
@@ -167,7 +167,7 @@ pub(crate) fn run<C: Combustion>(cfg: &EngineConfig, c: &C) -> Result<Solved, Cy
 
 /// Expansion ratios around the reheat combustor, if any, given the
 /// logarithm of the overall turbine expansion ratio.
-fn reheat_split(
+pub(crate) fn reheat_split(
     cfg: &EngineConfig,
     ln_turbine_ratio: f64,
 ) -> Result<Option<ReheatSplit>, CycleError> {

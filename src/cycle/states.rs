@@ -36,12 +36,15 @@ impl Pressure {
         }
     }
 
-    /// The pressure after a loss of the fraction `loss` of this one.
+    /// The pressure after a loss of the fraction `loss` of this one. The
+    /// logarithm is that of the rounded factor `1 − loss` the pressure is
+    /// multiplied by, so the two stay consistent.
     pub fn after_loss(self, loss: f64) -> Pressure {
         if loss == 0.0 {
             self
         } else {
-            self.times(1.0 - loss, (-loss).ln_1p())
+            let factor = 1.0 - loss;
+            self.times(factor, factor.ln())
         }
     }
 
@@ -51,7 +54,11 @@ impl Pressure {
         if loss == 0.0 {
             self
         } else {
-            self.times(1.0 / (1.0 - loss), -(-loss).ln_1p())
+            let factor = 1.0 - loss;
+            Pressure {
+                kpa: self.kpa / factor,
+                ln_rel: self.ln_rel - factor.ln(),
+            }
         }
     }
 }

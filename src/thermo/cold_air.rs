@@ -31,6 +31,7 @@ pub enum ColdAirError {
 pub struct ColdAir {
     cp_kj_per_kg_k: f64,
     gas_constant_kj_per_kg_k: f64,
+    exponent: f64,
 }
 
 impl ColdAir {
@@ -42,10 +43,23 @@ impl ColdAir {
         if !(k.is_finite() && k > 1.0) {
             return Err(ColdAirError::K(k));
         }
+        let exponent = (k - 1.0) / k;
         Ok(ColdAir {
             cp_kj_per_kg_k,
-            gas_constant_kj_per_kg_k: cp_kj_per_kg_k * (k - 1.0) / k,
+            gas_constant_kj_per_kg_k: cp_kj_per_kg_k * exponent,
+            exponent,
         })
+    }
+
+    /// The constant specific heat cp, kJ/(kg·K).
+    pub fn constant_cp_kj_per_kg_k(&self) -> f64 {
+        self.cp_kj_per_kg_k
+    }
+
+    /// The isentropic exponent (k − 1)/k = R/cp: along an isentrope
+    /// `T2/T1 = (p2/p1)^((k−1)/k)`.
+    pub fn isentropic_exponent(&self) -> f64 {
+        self.exponent
     }
 }
 

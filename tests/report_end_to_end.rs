@@ -4,6 +4,8 @@
 //! present exactly when samples are asked for.
 
 use assert_cmd::Command;
+use brayfin::report::format::{self, money};
+use brayfin::report::model::Units;
 use rust_decimal::Decimal;
 use serde_json::Value;
 use std::str::FromStr;
@@ -49,26 +51,6 @@ fn report_pages(extra: &[&str]) -> Vec<String> {
         .collect()
 }
 
-/// Whole currency units with thousands separators, as the page prints money.
-fn grouped(text: &str) -> String {
-    let value = Decimal::from_str(text)
-        .unwrap()
-        .round_dp_with_strategy(0, rust_decimal::RoundingStrategy::MidpointAwayFromZero);
-    let digits = value.abs().to_string();
-    let mut out = String::new();
-    for (i, ch) in digits.chars().enumerate() {
-        if i > 0 && (digits.len() - i) % 3 == 0 {
-            out.push(',');
-        }
-        out.push(ch);
-    }
-    if value.is_sign_negative() && !value.is_zero() {
-        format!("-{out}")
-    } else {
-        out
-    }
-}
-
 #[test]
 fn briefing_key_figures_equal_the_json() {
     let doc = compare_json();
@@ -86,7 +68,8 @@ fn briefing_key_figures_equal_the_json() {
             ]);
         }
         for key in money_keys {
-            let printed = format!("{currency} {}", grouped(e[key].as_str().unwrap()));
+            let amount = Decimal::from_str(e[key].as_str().unwrap()).unwrap();
+            let printed = money(amount, currency);
             assert!(
                 briefing.contains(&printed),
                 "{} {key}: `{printed}` not on page 1",
@@ -94,7 +77,7 @@ fn briefing_key_figures_equal_the_json() {
             );
         }
         let heat_rate = c["performance"]["heat_rate_kj_per_kwh"].as_f64().unwrap();
-        let printed = format!("{} kJ/kWh", grouped(&format!("{heat_rate:.6}")));
+        let printed = format::heat_rate(heat_rate, 0.0, Units::Si);
         assert!(
             briefing.contains(&printed),
             "{}: `{printed}` missing",

@@ -149,7 +149,7 @@ pub fn run_study(loaded: &LoadedScenario) -> crate::Result<Study> {
         per_kw_year: scenario.economics.capacity_value_per_kw_year,
         escalation: 0.0,
     };
-    let mut built = Vec::with_capacity(scenario.candidates.len());
+    let mut outcomes = Vec::with_capacity(scenario.candidates.len());
     for (index, candidate) in scenario.candidates.iter().enumerate() {
         let solved = solve_at(loaded, index, &fuel)?;
         let inputs = ledger_inputs(scenario, candidate, &fuel, &solved.year)
@@ -158,27 +158,29 @@ pub fn run_study(loaded: &LoadedScenario) -> crate::Result<Study> {
         let bid =
             bid_factors(&inputs, &capacity).map_err(|e| finance_error(loaded, candidate, e))?;
         let value_per_point = values_per_point(scenario, candidate, &fuel);
-        built.push((solved, inputs, ledger, bid, value_per_point));
-    }
-    let mut outcomes = Vec::with_capacity(built.len());
-    for (index, (solved, inputs, ledger, bid, value_per_point)) in built.iter().enumerate() {
-        let versus_baseline = if index == baseline_index {
-            None
-        } else {
-            let candidate = &scenario.candidates[index];
-            Some(
-                compare_ledgers(ledger, &built[baseline_index].2)
-                    .map_err(|e| finance_error(loaded, candidate, e))?,
-            )
-        };
         outcomes.push(CandidateOutcome {
-            solved: solved.clone(),
-            inputs: inputs.clone(),
-            ledger: ledger.clone(),
-            versus_baseline,
-            bid: *bid,
-            value_per_point: *value_per_point,
+            solved,
+            inputs,
+            ledger,
+            versus_baseline: None,
+            bid,
+            value_per_point,
         });
+    }
+    // Every ledger is built; now set each against the baseline's.
+    let comparisons = outcomes
+        .iter()
+        .zip(&scenario.candidates)
+        .enumerate()
+        .filter(|(index, _)| *index != baseline_index)
+        .map(|(index, (outcome, candidate))| {
+            compare_ledgers(&outcome.ledger, &outcomes[baseline_index].ledger)
+                .map(|c| (index, c))
+                .map_err(|e| finance_error(loaded, candidate, e))
+        })
+        .collect::<crate::Result<Vec<_>>>()?;
+    for (index, comparison) in comparisons {
+        outcomes[index].versus_baseline = Some(comparison);
     }
     Ok(Study {
         fuel,

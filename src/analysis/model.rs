@@ -6,8 +6,8 @@ use super::compare::{run_study, CandidateOutcome, Study};
 use super::sensitivity::{rank, RangeSource, Swing};
 use super::warnings::cycle_warnings;
 use crate::finance::{
-    compare_summaries, round_for_presentation, summarize_ledger, FuelPrice, Payback, RowKind,
-    DEFAULT_MINOR_UNIT_DECIMALS,
+    compare_summaries, round_for_presentation, summarize_ledger, BreakEvenFuelPrice, Payback,
+    RowKind, DEFAULT_MINOR_UNIT_DECIMALS,
 };
 use crate::report::model::*;
 use crate::scenario::{
@@ -97,22 +97,22 @@ fn cumulative(outcome: &CandidateOutcome, baseline: &CandidateOutcome) -> Vec<Cu
 fn fuel_price_curves(loaded: &LoadedScenario, study: &Study) -> FuelPriceCurves {
     const MULTIPLIERS: [i64; 8] = [25, 50, 75, 100, 125, 150, 175, 200];
     let scenario_price = loaded.scenario.fuel.price_per_gj;
-    let scaled = |price: &FuelPrice<Decimal>, m: Decimal| match price {
-        FuelPrice::Escalating {
-            price_per_gj,
-            escalation,
-        } => FuelPrice::Escalating {
-            price_per_gj: *price_per_gj * m,
-            escalation: *escalation,
-        },
-        FuelPrice::Path(path) => FuelPrice::Path(path.iter().map(|(y, p)| (*y, *p * m)).collect()),
-    };
+    let multipliers: Vec<Decimal> = MULTIPLIERS
+        .iter()
+        .map(|pct| Decimal::new(*pct, 2))
+        .collect();
+    // Every fuel price (base price or whole path) scaled by `m`, through the
+    // finance layer's own scaling of a fuel price.
     let summary_at = |o: &CandidateOutcome, m: Decimal| {
         let mut inputs = o.inputs.clone();
-        inputs.fuel.price = scaled(&inputs.fuel.price, m);
+        inputs.fuel.price = BreakEvenFuelPrice { multiplier: m }.apply(&inputs.fuel.price)?;
         summarize_ledger(&inputs).ok()
     };
     let baseline = &study.outcomes[study.baseline_index];
+    let baseline_at: Vec<_> = multipliers
+        .iter()
+        .map(|m| summary_at(baseline, *m))
+        .collect();
     let series = study
         .outcomes
         .iter()
@@ -120,13 +120,15 @@ fn fuel_price_curves(loaded: &LoadedScenario, study: &Study) -> FuelPriceCurves 
         .filter(|(i, _)| *i != study.baseline_index)
         .map(|(i, o)| FuelPriceSeries {
             candidate_id: loaded.scenario.candidates[i].id.clone(),
-            points: MULTIPLIERS
+            points: multipliers
                 .iter()
-                .filter_map(|pct| {
-                    let m = Decimal::new(*pct, 2);
-                    let (c, b) = (summary_at(o, m)?, summary_at(baseline, m)?);
-                    let premium = compare_summaries(&c, &b).ok()?.break_even_premium?;
-                    Some((money(scenario_price * m), money(premium)))
+                .zip(&baseline_at)
+                .filter_map(|(m, b)| {
+                    let c = summary_at(o, *m)?;
+                    let premium = compare_summaries(&c, b.as_ref()?)
+                        .ok()?
+                        .break_even_premium?;
+                    Some((money(scenario_price * *m), money(premium)))
                 })
                 .collect(),
         })

@@ -12,9 +12,10 @@
 mod finance_support;
 
 use brayfin::finance::{
-    build_ledger, compare_summaries, summarize_ledger, Capital, CapitalPayment, Carbon,
-    Degradation, EscalatingPrice, Fuel, FuelPrice, LedgerInputs, Money, Operation, Overhaul,
-    PriceBasis, RateBasis, Rates, Replacement, Residual, ResidualValue, Timing,
+    build_ledger, compare_summaries, summarize_ledger, AcceptanceSettlement, Capital,
+    CapitalPayment, Carbon, Degradation, EscalatingPrice, Fuel, FuelPrice, LedgerInputs, Money,
+    Operation, Overhaul, PriceBasis, RateBasis, Rates, Replacement, Residual, ResidualValue,
+    Timing,
 };
 use chrono::{Days, Months};
 use finance_support::date;
@@ -103,6 +104,7 @@ prop_compose! {
                 capacity_kw: shortfall.2,
                 capacity_price: EscalatingPrice { price: cents(shortfall.3), escalation: replacement_escalations[1] },
             },
+            acceptance_settlement: AcceptanceSettlement::default(),
         }
     }
 }

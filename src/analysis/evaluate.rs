@@ -205,5 +205,6 @@ pub fn ledger_inputs(
             escalation: 0.0,
         },
         replacement: replacement(scenario, candidate, year, &output_reference(scenario)),
+        acceptance_settlement: finance::AcceptanceSettlement::default(),
     })
 }

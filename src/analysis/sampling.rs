@@ -12,8 +12,14 @@
 //! Streams: sample `i` of seed `s` reads ChaCha8 stream `i` of the key
 //! derived from `s`, so every sample's numbers depend on `(s, i)` alone and
 //! results are bit-identical whatever the number of threads.
+//!
+//! Correlated inputs: [`rank_correlation::RankCorrelation`] holds a target
+//! rank-correlation matrix and [`iman_conover`] reorders independently drawn
+//! columns to carry it.
 
+pub mod iman_conover;
 pub mod normal;
+pub mod rank_correlation;
 
 use crate::scenario::Distribution;
 use rand::{RngCore, SeedableRng};

@@ -3,7 +3,8 @@
 //! the break-even premium and fuel price, solved exactly by linearity.
 //!
 //! Cost classes (documented choice): "investment" is capital plus the
-//! (negative) residual credit; "operating" is fuel, carbon, fixed and
+//! guarantee settlement at the acceptance test (damages received are
+//! negative capital) plus the (negative) residual credit; "operating" is fuel, carbon, fixed and
 //! variable O&M, overhauls and output replacement (overhauls count as
 //! repair, an OM&R cost in the terms of NIST Handbook 135, not as capital
 //! replacement; output replacement is energy and capacity bought each year

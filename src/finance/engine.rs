@@ -112,6 +112,7 @@ pub(crate) fn single_date_row<M: Money>(kind: RowKind, date: NaiveDate, time: f6
         overhaul: M::ZERO,
         replacement: M::ZERO,
         capital: M::ZERO,
+        guarantee_settlement: M::ZERO,
         residual: M::ZERO,
         total: M::ZERO,
         discount_factor: M::ONE,
@@ -177,6 +178,34 @@ fn capital_rows<M: Money>(
     })
 }
 
+/// The acceptance-test settlement row on the commercial-operation date, if
+/// anything is settled; its present value. Nothing settled adds no row.
+fn settlement_row<M: Money>(
+    inputs: &LedgerInputs<M>,
+    calendar: &Calendar,
+    discount: &FactorChain,
+    sink: &mut impl RowSink<M>,
+) -> Result<Option<M>, FinanceError> {
+    let settled = &inputs.acceptance_settlement;
+    if settled.is_zero() {
+        return Ok(None);
+    }
+    let date = inputs.commercial_operation;
+    let time = calendar.time_of(date);
+    let mut row = single_date_row::<M>(RowKind::Settlement, date, time);
+    let year = row.year;
+    let stream = "guarantee settlement";
+    row.guarantee_settlement = settled
+        .net_cost()
+        .ok_or(FinanceError::Overflow { stream, year })?;
+    row.total = row.guarantee_settlement;
+    row.discount_factor = factor(discount.at(time), stream, year)?;
+    row.present_value = mul(row.total, row.discount_factor, stream, year)?;
+    let present_value = row.present_value;
+    sink.push(row);
+    Ok(Some(present_value))
+}
+
 fn run<M: Money>(
     inputs: &LedgerInputs<M>,
     sink: &mut impl RowSink<M>,
@@ -186,6 +215,7 @@ fn run<M: Money>(
     let discount = FactorChain::discount(inputs.rates.discount_rate);
 
     let capital = capital_rows(inputs, &calendar, &discount, sink)?;
+    let settlement = settlement_row(inputs, &calendar, &discount, sink)?;
     let operating = operating_rows(inputs, &calendar, sink)?;
 
     // Residual value, credited at the end of life.
@@ -222,6 +252,7 @@ fn run<M: Money>(
 
     let present_value = StreamTotals {
         capital: capital.present_value,
+        guarantee_settlement: settlement.unwrap_or(M::ZERO),
         residual: residual_pv,
         ..operating.present_value
     };
@@ -230,11 +261,13 @@ fn run<M: Money>(
         year,
     };
     // The sum of every row's present value, in row order.
-    let lifecycle_cost = capital
-        .present_value
-        .add_checked(operating.rows_present_value)
-        .and_then(|sum| sum.add_checked(residual_pv))
-        .ok_or_else(overflow)?;
+    let lifecycle_cost = match settlement {
+        Some(settlement) => capital.present_value.add_checked(settlement),
+        None => Some(capital.present_value),
+    }
+    .and_then(|sum| sum.add_checked(operating.rows_present_value))
+    .and_then(|sum| sum.add_checked(residual_pv))
+    .ok_or_else(overflow)?;
     let pv_per_unit_capital = capital
         .per_unit
         .sub_checked(credit_per_unit_capital)

@@ -106,6 +106,15 @@ pub enum FinanceError {
         /// The calendar year of the row.
         year: i32,
     },
+    /// A guarantee settlement amount left the representable range.
+    #[error(
+        "{stream} is beyond the representable money range (about 7.9e28): check \
+         the guarantee's rates, the contract price and the measured values"
+    )]
+    SettlementOverflow {
+        /// The amount being computed, e.g. `guarantee damages`.
+        stream: &'static str,
+    },
     /// Two ledgers that cannot be compared because their analyses differ.
     #[error(
         "candidate and baseline differ in {what}: both must share commercial \

@@ -9,6 +9,7 @@
 use chrono::NaiveDate;
 use rust_decimal::Decimal;
 
+use super::guarantee::AcceptanceSettlement;
 use super::money::Money;
 use super::rates::{Rates, Timing};
 
@@ -44,6 +45,9 @@ pub struct LedgerInputs<M: Money = Decimal> {
     /// Output levelling: the energy and capacity this candidate falls short
     /// of the reference output and must buy elsewhere (zero: no stream).
     pub replacement: Replacement<M>,
+    /// Damages and bonus settled at the acceptance test, paid once on the
+    /// commercial-operation date (zero, the default: no row).
+    pub acceptance_settlement: AcceptanceSettlement<M>,
 }
 
 /// When capital is paid.
@@ -362,6 +366,10 @@ impl<M: Money> LedgerInputs<M> {
                 energy_price: escalating(&self.replacement.energy_price),
                 capacity_kw: self.replacement.capacity_kw,
                 capacity_price: escalating(&self.replacement.capacity_price),
+            },
+            acceptance_settlement: AcceptanceSettlement {
+                damages: convert(self.acceptance_settlement.damages),
+                bonus: convert(self.acceptance_settlement.bonus),
             },
         }
     }

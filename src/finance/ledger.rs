@@ -1,9 +1,10 @@
 //! The ledger of one candidate: a row per cash event, with its discount
 //! factor and present value, and the totals the metrics are made of.
 //!
-//! Row order: capital payments (their own rows, dated, time ≤ 0), then one
-//! operating row per calendar year, then the residual-value credit at the end
-//! of life. Every row satisfies `total` = sum of its money columns and
+//! Row order: capital payments (their own rows, dated, time ≤ 0), then the
+//! acceptance-test settlement of a guarantee if there is one (on the
+//! commercial-operation date), then one operating row per calendar year,
+//! then the residual-value credit at the end of life. Every row satisfies `total` = sum of its money columns and
 //! `present_value` = `total` × `discount_factor`; the lifecycle cost is the
 //! sum of `present_value`.
 
@@ -20,6 +21,9 @@ use super::FinanceError;
 pub enum RowKind {
     /// A capital payment on a single date.
     Capital,
+    /// Guarantee damages received (negative) or bonus paid (positive) at the
+    /// acceptance test, on the commercial-operation date.
+    Settlement,
     /// A period of operation within one calendar year.
     Operation,
     /// The residual-value credit at the end of life.
@@ -69,6 +73,9 @@ pub struct LedgerRow<M: Money = Decimal> {
     pub replacement: M,
     /// Capital paid.
     pub capital: M,
+    /// Guarantee settlement at the acceptance test: bonus paid less damages
+    /// received (see [`AcceptanceSettlement`](super::AcceptanceSettlement)).
+    pub guarantee_settlement: M,
     /// Residual value credited (zero or negative).
     pub residual: M,
     /// Sum of the row's money columns.
@@ -96,6 +103,8 @@ pub struct StreamTotals<M: Money = Decimal> {
     pub replacement: M,
     /// Present value of capital.
     pub capital: M,
+    /// Present value of the guarantee settlement (bonus less damages).
+    pub guarantee_settlement: M,
     /// Present value of the residual credit (zero or negative).
     pub residual: M,
 }
@@ -110,6 +119,7 @@ impl<M: Money> StreamTotals<M> {
         overhaul: M::ZERO,
         replacement: M::ZERO,
         capital: M::ZERO,
+        guarantee_settlement: M::ZERO,
         residual: M::ZERO,
     };
 
@@ -125,10 +135,16 @@ impl<M: Money> StreamTotals<M> {
             .add_checked(self.replacement)
     }
 
-    /// Investment net of residual value: capital plus the (negative)
+    /// Investment net of residual value: capital plus the guarantee
+    /// settlement (damages received are negative) plus the (negative)
     /// residual credit.
     pub fn investment(&self) -> Option<M> {
-        self.capital.add_checked(self.residual)
+        let investment = self.capital.add_checked(self.residual)?;
+        if self.guarantee_settlement == M::ZERO {
+            // No settlement: exactly the sum without one (an `f64` −0 stays −0).
+            return Some(investment);
+        }
+        investment.add_checked(self.guarantee_settlement)
     }
 }
 

@@ -28,6 +28,10 @@
 //!   candidate falls short of and buys elsewhere, is an operating cost
 //!   charged pro rata in each operating row; the levelized cost leaves it
 //!   out.
+//! - A guarantee's settlement at the acceptance test ([`settle`],
+//!   [`AcceptanceSettlement`]) is one row on the commercial-operation date
+//!   with its own column: damages received are negative capital, a bonus
+//!   paid is capital; both count as investment.
 //! - `f64` becomes `Decimal` at 15 significant digits, at
 //!   [`convert_physics_to_money`] (quantities) and [`Money::from_factor`]
 //!   (discount factors); money is never rounded inside the ledger and is
@@ -41,6 +45,7 @@ mod degradation;
 mod engine;
 mod error;
 pub mod factors;
+mod guarantee;
 mod inputs;
 mod ledger;
 mod money;
@@ -56,6 +61,10 @@ pub use calendar::{years_between, Calendar, Period, MAX_SERVICE_LIFE_YEARS};
 pub use compare::{compare_ledgers, compare_summaries, BreakEvenFuelPrice, Comparison, Savings};
 pub use engine::{build_ledger, summarize_ledger};
 pub use error::FinanceError;
+pub use guarantee::{
+    settle, AcceptanceSettlement, Guarantee, HeatRateRate, MeasuredPerformance, Settlement,
+    SettlementRates, TestTolerance, ToleranceRule,
+};
 pub use inputs::{
     Capital, CapitalPayment, Carbon, Degradation, EscalatingPrice, Fuel, FuelPrice, LedgerInputs,
     Operation, Overhaul, PriceBasis, Replacement, Residual, ResidualValue,

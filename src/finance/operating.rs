@@ -367,6 +367,7 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
             overhaul,
             replacement,
             capital: M::ZERO,
+            guarantee_settlement: M::ZERO,
             residual: M::ZERO,
             total,
             discount_factor,

@@ -3,7 +3,8 @@
 //! Payback is the time from commercial operation until the cumulative
 //! savings of the candidate over the baseline first recover the added
 //! investment. Added investment is the difference in capital (all paid on or
-//! before commercial operation); savings are the differences in operating
+//! before commercial operation) plus the difference in guarantee settlement
+//! at the acceptance test (damages received reduce it); savings are the differences in operating
 //! rows' totals, assumed to accrue evenly through each row, so the crossing
 //! year is interpolated linearly (common practice). The residual value is
 //! not counted (it is not a saving of any year of operation). Simple payback
@@ -63,6 +64,7 @@ pub fn payback<M: Money>(
     };
     let capital = |ledger| {
         rows_of(ledger, RowKind::Capital)
+            .chain(rows_of(ledger, RowKind::Settlement))
             .try_fold(M::ZERO, |sum, row| sum.add_checked(amount(row, kind)))
     };
     let added_investment = capital(candidate)

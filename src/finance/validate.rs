@@ -142,6 +142,14 @@ impl<M: Money> LedgerInputs<M> {
         }
         check_rate("residual.escalation", self.residual.escalation)?;
         self.validate_replacement()?;
+        check_money(
+            "acceptance_settlement.damages",
+            self.acceptance_settlement.damages,
+        )?;
+        check_money(
+            "acceptance_settlement.bonus",
+            self.acceptance_settlement.bonus,
+        )?;
         self.validate_capital()
     }
 

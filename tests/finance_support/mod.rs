@@ -3,8 +3,9 @@
 #![allow(dead_code)]
 
 use brayfin::finance::{
-    Capital, Carbon, Degradation, EscalatingPrice, Fuel, FuelPrice, LedgerInputs, Operation,
-    PriceBasis, RateBasis, Rates, Replacement, Residual, ResidualValue, Timing,
+    AcceptanceSettlement, Capital, Carbon, Degradation, EscalatingPrice, Fuel, FuelPrice,
+    LedgerInputs, Operation, PriceBasis, RateBasis, Rates, Replacement, Residual, ResidualValue,
+    Timing,
 };
 use chrono::NaiveDate;
 use rust_decimal::Decimal;
@@ -67,6 +68,7 @@ pub fn empty_inputs(service_life_years: u32, discount_rate: f64) -> LedgerInputs
             escalation: 0.0,
         },
         replacement: Replacement::default(),
+        acceptance_settlement: AcceptanceSettlement::default(),
     }
 }
 
@@ -151,6 +153,7 @@ pub fn busy_inputs() -> LedgerInputs {
                 escalation: 0.0,
             },
         },
+        acceptance_settlement: AcceptanceSettlement::default(),
     }
 }
 

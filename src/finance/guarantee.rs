@@ -26,7 +26,9 @@
 //! the guarantee"); damages jump at the band's edge. Both readings occur in
 //! practice (common practice, from memory); the first is the default because
 //! it is the one that follows from treating the tolerance as measurement
-//! uncertainty. A shortfall exactly at the band's edge is within it.
+//! uncertainty. A shortfall exactly at the band's edge is within it (to
+//! 1e-9 percentage points, so that floating-point rounding of the
+//! percentage never charges an edge result).
 //!
 //! The bonus is settled by the same rule, mirrored: only betterment beyond
 //! the band (or all of it once beyond) counts.
@@ -297,11 +299,18 @@ impl<M: Money> Guarantee<M> {
     }
 }
 
+/// A deviation this close (in percentage points) beyond the band's edge
+/// counts as at the edge: the percentage is computed in floating point, and
+/// a measured value exactly at the edge (e.g. 9 595 against 9 500 kJ/kWh
+/// with 1 %) must never be charged, least of all in full by
+/// [`ToleranceRule::WholeOnceBeyond`].
+const EDGE_SLACK_PERCENT: f64 = 1e-9;
+
 /// The counted deviation, in percent of the guarantee, of a `deviation`
 /// (percent, positive in the direction being settled) against a tolerance
 /// band of `tolerance` percent.
 fn counted_percent(deviation: f64, tolerance: f64, rule: ToleranceRule) -> f64 {
-    if deviation <= tolerance {
+    if deviation <= tolerance + EDGE_SLACK_PERCENT {
         return 0.0;
     }
     match rule {

@@ -27,7 +27,7 @@ const SEED: u64 = 20_261_203;
 /// sd 15 (a model stated here; no data).
 fn independent_columns(n: usize) -> Vec<Vec<f64>> {
     let streams = Streams::new(SEED);
-    let mut columns = vec![Vec::with_capacity(n); 4];
+    let mut columns: Vec<Vec<f64>> = (0..4).map(|_| Vec::with_capacity(n)).collect();
     for i in 0..n {
         let mut stream = streams.sample(i as u64);
         let u: Vec<f64> = (0..4).map(|_| stream.next_unit()).collect();

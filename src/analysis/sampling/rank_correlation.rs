@@ -7,13 +7,20 @@
 //! perfectly correlated pair is allowed). When it fails, the error names the
 //! pair that needs the smallest change to make the whole matrix consistent,
 //! with the nearest value that works: that is the edit most likely to keep
-//! what the user meant. When no single pair can fix the matrix, it names the
-//! largest correlation of the input at the failing pivot (the first input
-//! whose correlations with the inputs before it cannot hold together).
+//! what the user meant (ties: the larger correlation, then the first pair).
+//! Only pairs among the inputs up to the failing pivot (the first input
+//! whose correlations with the inputs before it cannot hold together) can
+//! fix it, so only those are searched. When no single pair can fix the
+//! matrix, or the failing block has more than 24 inputs, it names the
+//! largest correlation of the input at the failing pivot.
 
 /// Pivots within this of zero count as zero (a singular but consistent
 /// matrix); below minus this the matrix is not positive semi-definite.
 const PIVOT_TOLERANCE: f64 = 1e-10;
+
+/// Largest leading block (inputs) searched for the single pair to change;
+/// beyond it the largest correlation at the failing pivot is named.
+const SEARCHED_INPUTS: usize = 24;
 
 /// Why a correlation target or a set of samples cannot be used.
 #[derive(Debug, Clone, PartialEq, thiserror::Error)]
@@ -204,7 +211,16 @@ impl RankCorrelation {
     /// `pivot`.
     pub(crate) fn diagnose(&self, pivot: usize) -> CorrelationError {
         let mut best: Option<(usize, usize, f64)> = None;
-        for i in 0..self.size {
+        // Only a pair within the leading block up to the pivot can fix it:
+        // that block is not positive semi-definite whatever lies outside.
+        // Searched up to a block of SEARCHED_INPUTS (the search costs about
+        // 400 factorizations per pair).
+        let searched = if pivot < SEARCHED_INPUTS {
+            pivot + 1
+        } else {
+            0
+        };
+        for i in 0..searched {
             for j in 0..i {
                 if let Some(nearest) = self.nearest_consistent(i, j) {
                     let change = (nearest - self.get(i, j)).abs();

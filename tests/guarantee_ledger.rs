@@ -212,3 +212,40 @@ fn negative_settlement_is_refused() {
         );
     }
 }
+
+/// From the settlement to the ledger: a heat rate 3 % worse than a
+/// 9 500 kJ/kWh guarantee with a 1 % tolerance and 250 000 per counted %
+/// settles 500 000 of damages (2 % beyond the band); the ledger's
+/// lifecycle cost falls by exactly that.
+#[test]
+fn settled_damages_flow_into_the_ledger() {
+    use brayfin::finance::{
+        settle, Guarantee, HeatRateRate, MeasuredPerformance, SettlementRates, TestTolerance,
+        ToleranceRule,
+    };
+    let guarantee = Guarantee {
+        net_output_kw: 100_000.0,
+        heat_rate_kj_per_kwh: 9_500.0,
+        tolerance: TestTolerance::uniform(1.0),
+        rule: ToleranceRule::BeyondBand,
+        damages: SettlementRates {
+            heat_rate: HeatRateRate::PerPercent(dec("250000")),
+            output_per_kw: Decimal::ZERO,
+            cap_fraction_of_price: Some(0.1),
+        },
+        bonus: SettlementRates::NONE,
+    };
+    let measured = MeasuredPerformance {
+        net_output_kw: 100_000.0,
+        heat_rate_kj_per_kwh: 9_785.0,
+    };
+    let inputs = busy_inputs();
+    let price = inputs.capital.total().unwrap();
+    let settlement = settle(&guarantee, price, &measured).unwrap();
+    assert_eq!(settlement.damages, dec("500000"));
+    let mut settled = inputs.clone();
+    settled.acceptance_settlement = settlement.to_ledger();
+    let with = summarize_ledger(&settled).unwrap().lifecycle_cost;
+    let without = summarize_ledger(&inputs).unwrap().lifecycle_cost;
+    assert_eq!(with, without - dec("500000"));
+}

@@ -157,7 +157,15 @@ proptest! {
             *price_per_gj += Decimal::new(1, 2);
         }
         prop_assert!(summarize_ledger(&dearer).unwrap().lifecycle_cost > lcc);
-        let mut longer = inputs.clone();
+        // More hours bring hour-driven overhauls earlier; with escalation
+        // above the discount rate an earlier overhaul can cost less, enough
+        // to offset the extra fuel (a found case: 0 % discount, overhaul
+        // every 8 000 h escalating 3.66 %/yr). The property holds for the
+        // streams that scale with hours, so compare without overhauls.
+        let mut base = inputs.clone();
+        base.overhaul = None;
+        let lcc = summarize_ledger(&base).unwrap().lifecycle_cost;
+        let mut longer = base.clone();
         let op = &mut longer.operation;
         let scale = more.min(8784.0 / op.operating_hours);
         // min: the scaled hours may round one ulp above 8784.

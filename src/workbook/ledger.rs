@@ -560,7 +560,6 @@ impl LedgerSheet<'_> {
             outcome.ledger.summary.present_value.capital
                 - base_outcome.ledger.summary.present_value.capital,
         );
-        let (mut crossed_simple, mut crossed_pv) = (false, false);
         for (i, (c, b)) in mine.iter().zip(&theirs).enumerate() {
             let r = this.operating.0 + i as u32;
             let rb = base.operating.0 + i as u32;
@@ -586,20 +585,23 @@ impl LedgerSheet<'_> {
                 };
                 let here = at(r, saving_col);
                 let text = format!(
-                    "=IF(AND({here}>0,{here}>={before}),{}+{before}/{here}*{},\"\")",
+                    "=IF(AND({before}>0,{here}>0,{here}>={before}),{}+{before}/{here}*{},\"\")",
                     at(r, col::TIME),
                     at(r, col::FRACTION)
                 );
-                let (outstanding, crossed) = if simple {
-                    (&mut outstanding_simple, &mut crossed_simple)
+                let outstanding = if simple {
+                    &mut outstanding_simple
                 } else {
-                    (&mut outstanding_pv, &mut crossed_pv)
+                    &mut outstanding_pv
                 };
-                let value = (saving > Decimal::ZERO && saving >= *outstanding).then(|| {
+                // Only the first crossing: afterwards nothing is outstanding.
+                let crossing = *outstanding > Decimal::ZERO
+                    && saving > Decimal::ZERO
+                    && saving >= *outstanding;
+                let value = crossing.then(|| {
                     let share = (*outstanding / saving).to_f64();
                     c.time_start_years + share * (c.time_end_years - c.time_start_years)
                 });
-                let _ = crossed;
                 let cached_text = value.map_or(String::new(), cached);
                 let formula = Formula::new(text).set_result(cached_text);
                 cells
@@ -609,7 +611,6 @@ impl LedgerSheet<'_> {
                 *outstanding -= saving;
             }
         }
-        let _ = (crossed_simple, crossed_pv);
         Ok(())
     }
 }

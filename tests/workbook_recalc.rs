@@ -17,7 +17,8 @@ use std::path::{Path, PathBuf};
 use std::process::Command;
 use std::sync::Mutex;
 use workbook_support::{
-    check_ledgers, check_summary, compare_json, json_money, write_workbook, DEMOS,
+    assert_no_error_cells, check_ledgers, check_summary, compare_json, json_money, write_workbook,
+    DEMOS,
 };
 
 /// One LibreOffice process at a time.
@@ -92,6 +93,7 @@ fn libreoffice_recalculates_both_demos_to_the_cent() {
         write_workbook(scenario, &book);
         let recalculated = recalculate(&book, dir.path());
         let json = compare_json(scenario);
+        assert_no_error_cells(&recalculated, demo);
         check_summary(&recalculated, &json, &format!("{demo} recalculated"));
         check_ledgers(&recalculated, &json, &format!("{demo} recalculated"));
     }

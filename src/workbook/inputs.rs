@@ -171,6 +171,8 @@ pub(crate) fn write(
     let currency = &scenario.meta.currency;
     let sheet = workbook.add_worksheet();
     sheet.set_name(SHEET).map_err(xlsx_error)?;
+    // Printed landscape, one page wide.
+    sheet.set_landscape().set_print_fit_to_pages(1, 0);
     for (col, width) in [(0u16, 44.0), (1, 30.0), (2, 20.0), (3, 18.0), (4, 90.0)] {
         sheet.set_column_width(col, width).map_err(xlsx_error)?;
     }

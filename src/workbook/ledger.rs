@@ -203,10 +203,15 @@ impl LedgerSheet<'_> {
         let layout = &self.layouts[self.index];
         let sheet = workbook.add_worksheet();
         sheet.set_name(&layout.sheet).map_err(xlsx_error)?;
-        sheet.set_column_width(0, 34.0).map_err(xlsx_error)?;
+        // Printed landscape, one page wide.
+        sheet.set_landscape().set_print_fit_to_pages(1, 0);
         sheet
-            .set_column_range_width(1, 26, 15.0)
+            .set_column_range_width(1, 26, 16.0)
             .map_err(xlsx_error)?;
+        // Column B also holds the totals above the table.
+        sheet.set_column_width(1, 20.0).map_err(xlsx_error)?;
+        sheet.set_column_width(0, 58.0).map_err(xlsx_error)?;
+        sheet.set_row_height(HEADER_ROW, 58).map_err(xlsx_error)?;
         sheet
             .set_freeze_panes(HEADER_ROW + 1, 2)
             .map_err(xlsx_error)?;

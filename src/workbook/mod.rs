@@ -128,7 +128,7 @@ pub fn build_workbook(loaded: &LoadedScenario, study: &Study) -> Result<Vec<u8>>
         &DocProperties::new()
             .set_title(&scenario.meta.title)
             .set_subject("Lifecycle-cost audit workbook")
-            .set_comment(&format!("scenario SHA-256 {}", loaded.sha256_hex)),
+            .set_comment(format!("scenario SHA-256 {}", loaded.sha256_hex)),
     );
     inputs::write(&mut workbook, loaded, study, &names, &styles)?;
     for (index, candidate) in scenario.candidates.iter().enumerate() {

@@ -126,14 +126,19 @@ pub(crate) fn write_sheet(
 ) -> Result<()> {
     let sheet = workbook.add_worksheet();
     sheet.set_name(SHEET).map_err(xlsx_error)?;
+    // Printed landscape, one page wide.
+    sheet.set_landscape().set_print_fit_to_pages(1, 0);
     sheet.set_column_width(0, 16.0).map_err(xlsx_error)?;
     sheet.set_column_width(1, 40.0).map_err(xlsx_error)?;
     sheet
         .set_column_range_width(2, 14, 18.0)
         .map_err(xlsx_error)?;
     sheet
-        .write_string_with_format(0, 0, &format!("Summary: {}", loaded.scenario.meta.title), &styles.heading)
+        .write_string_with_format(0, 0, format!("Summary: {}", loaded.scenario.meta.title), &styles.heading)
         .and_then(|s| s.write_string_with_format(1, 0, "Every figure is a formula of the ledger sheets; change an input on the Inputs sheet and they follow. Screening-level estimates; see the cautions on the Inputs sheet.", &styles.note))
+        .map_err(xlsx_error)?;
+    sheet
+        .set_row_height(FIRST_ROW - 1, 32)
         .map_err(xlsx_error)?;
     for (c, h) in HEADERS.iter().enumerate() {
         sheet
@@ -343,12 +348,11 @@ pub(crate) fn write_sheet(
         "Payback (ASTM E1121): years from commercial operation until cumulative savings recover the added capital, linear within a year; residual value not counted.",
         "Break-even fuel price: the price (on the scenario's price basis, per GJ; every price of a price path scaled alike) at which the two lifecycle costs are equal.",
     ];
-    let mut row = FIRST_ROW + study.outcomes.len() as u32 + 1;
-    for note in notes.iter().chain(super::CAUTIONS) {
+    let first_note = FIRST_ROW + study.outcomes.len() as u32 + 1;
+    for (row, note) in (first_note..).zip(notes.iter().chain(super::CAUTIONS)) {
         sheet
             .write_string_with_format(row, 0, *note, &styles.note)
             .map_err(xlsx_error)?;
-        row += 1;
     }
     Ok(())
 }

@@ -230,3 +230,18 @@ pub fn check_ledgers(workbook: &Path, json: &Value, label: &str) {
         );
     }
 }
+
+/// No cell of any sheet holds a spreadsheet error (`#NAME?`, `#DIV/0!`, …):
+/// after recalculation every formula, checked figure or not, evaluated.
+pub fn assert_no_error_cells(workbook: &Path, label: &str) {
+    let mut book: Xlsx<_> = calamine::open_workbook(workbook).expect("the workbook opens");
+    for name in book.sheet_names() {
+        let range = book.worksheet_range(&name).expect("sheet");
+        for (row, col, cell) in range.used_cells() {
+            assert!(
+                !matches!(cell, Data::Error(_)),
+                "{label}: sheet {name}, row {row}, column {col} holds {cell:?}"
+            );
+        }
+    }
+}

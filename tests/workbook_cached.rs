@@ -6,7 +6,9 @@
 mod workbook_support;
 
 use std::path::Path;
-use workbook_support::{check_ledgers, check_summary, compare_json, write_workbook, DEMOS};
+use workbook_support::{
+    check_ledgers, check_summary, compare_json, price_path_variant, write_workbook, DEMOS,
+};
 
 #[test]
 fn cached_values_equal_compare_on_both_demos() {
@@ -19,6 +21,18 @@ fn cached_values_equal_compare_on_both_demos() {
         check_summary(&out, &json, demo);
         check_ledgers(&out, &json, demo);
     }
+}
+
+/// The same with the fuel price given year by year (a price path).
+#[test]
+fn cached_values_equal_compare_with_a_price_path() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let scenario = price_path_variant(dir.path());
+    let out = dir.path().join("book.xlsx");
+    write_workbook(&scenario, &out);
+    let json = compare_json(&scenario);
+    check_summary(&out, &json, "price path");
+    check_ledgers(&out, &json, "price path");
 }
 
 /// The Inputs sheet names the scenario by its SHA-256, as `compare` does.

@@ -17,8 +17,8 @@ use std::path::{Path, PathBuf};
 use std::process::Command;
 use std::sync::Mutex;
 use workbook_support::{
-    assert_no_error_cells, check_ledgers, check_summary, compare_json, json_money, write_workbook,
-    DEMOS,
+    assert_no_error_cells, check_ledgers, check_summary, compare_json, json_money,
+    price_path_variant, write_workbook, DEMOS,
 };
 
 /// One LibreOffice process at a time.
@@ -97,6 +97,24 @@ fn libreoffice_recalculates_both_demos_to_the_cent() {
         check_summary(&recalculated, &json, &format!("{demo} recalculated"));
         check_ledgers(&recalculated, &json, &format!("{demo} recalculated"));
     }
+}
+
+/// A fuel price given year by year: each ledger row looks its price up in
+/// the path on the Inputs sheet.
+#[test]
+fn libreoffice_recalculates_a_price_path_to_the_cent() {
+    if skipped() {
+        return;
+    }
+    let dir = tempfile::tempdir().expect("temp dir");
+    let scenario = price_path_variant(dir.path());
+    let book = dir.path().join("book.xlsx");
+    write_workbook(&scenario, &book);
+    let recalculated = recalculate(&book, dir.path());
+    let json = compare_json(&scenario);
+    assert_no_error_cells(&recalculated, "price path");
+    check_summary(&recalculated, &json, "price path recalculated");
+    check_ledgers(&recalculated, &json, "price path recalculated");
 }
 
 /// The scenario text with its fuel price line replaced.

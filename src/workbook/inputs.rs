@@ -141,6 +141,58 @@ impl Writer<'_> {
     }
 }
 
+/// The candidate's operating points of the year (dispatch blocks, or all
+/// hours at full load): output and heat rate from brayfin's cycle model and
+/// the scenario's part-load table, as computed constants.
+fn bins(
+    w: &mut Writer,
+    scenario: &crate::scenario::Scenario,
+    net_output_kw: f64,
+    heat_rate: f64,
+) -> Result<()> {
+    let operation = &scenario.operation;
+    let points: Vec<(f64, f64)> = if operation.dispatch.is_empty() {
+        vec![(1.0, operation.hours_per_year)]
+    } else {
+        operation
+            .dispatch
+            .iter()
+            .map(|b| (b.load_fraction, b.hours))
+            .collect()
+    };
+    let s = w.styles;
+    let header = [
+        "Load",
+        "Net output, kW",
+        "Heat rate, kJ/kWh LHV",
+        "Hours per year",
+    ];
+    w.sheet
+        .write_string_with_format(w.row, 0, "Operating points of the year (computed)", &s.text)
+        .map_err(xlsx_error)?;
+    for (k, text) in header.iter().enumerate() {
+        w.sheet
+            .write_string_with_format(w.row, 1 + k as u16, *text, &s.header)
+            .map_err(xlsx_error)?;
+    }
+    w.row += 1;
+    for (load, hours) in points {
+        let ratio = crate::analysis::operation::heat_rate_ratio(&operation.part_load, load);
+        w.sheet
+            .write_number_with_format(w.row, 1, load, &s.percent.computed)
+            .and_then(|x| {
+                x.write_number_with_format(w.row, 2, load * net_output_kw, &s.number.computed)
+            })
+            .and_then(|x| {
+                x.write_number_with_format(w.row, 3, heat_rate * ratio, &s.number.computed)
+            })
+            .and_then(|x| x.write_number_with_format(w.row, 4, hours, &s.number.computed))
+            .map_err(xlsx_error)?;
+        w.row += 1;
+    }
+    Ok(())
+}
+
 /// Where a scenario key's value came from: as written and its stated
 /// source, or the default brayfin applied.
 fn source_of(loaded: &LoadedScenario, key: &str) -> String {
@@ -546,6 +598,12 @@ pub(crate) fn write(
             "GJ LHV",
             &format!("{COMPUTED_NOTE}; dispatch × part-load heat rate"),
             Origin::Computed,
+        )?;
+        bins(
+            &mut w,
+            scenario,
+            inputs.operation.net_output_kw,
+            cycle.heat_rate_kj_per_kwh,
         )?;
         let energies = names.all("AnnualEnergy");
         let outputs = names.all("NetOutputKw");

@@ -245,3 +245,33 @@ pub fn assert_no_error_cells(workbook: &Path, label: &str) {
         }
     }
 }
+
+/// The first demo with its fuel price given year by year instead of
+/// escalating: an invented path (a ramp of 0.05 USD/MMBtu a year from the
+/// demo's 3.85, every fourth year 0.30 lower), written into `dir`. It
+/// exercises the workbook's price-path formulas.
+pub fn price_path_variant(dir: &Path) -> std::path::PathBuf {
+    let text = std::fs::read_to_string(DEMOS[0]).expect("demo");
+    let entries: Vec<String> = (2027..=2057)
+        .map(|year| {
+            let ramp = 3.85 + 0.05 * f64::from(year - 2027);
+            let price = if year % 4 == 0 { ramp - 0.30 } else { ramp };
+            format!("{year} = \"{price:.2} USD/MMBtu\"")
+        })
+        .collect();
+    let line = format!("price_path = {{ {} }}", entries.join(", "));
+    let replaced: Vec<String> = text
+        .lines()
+        .map(|l| {
+            if l.starts_with("price = ") {
+                line.clone()
+            } else {
+                l.to_string()
+            }
+        })
+        .collect();
+    assert!(replaced.contains(&line), "the demo has a fuel price line");
+    let path = dir.join("corvel-price-path.toml");
+    std::fs::write(&path, replaced.join("\n") + "\n").expect("variant written");
+    path
+}

@@ -19,14 +19,14 @@
 //! below 1e11). Calendar times, overhaul counts and the degradation
 //! multipliers are constants computed by brayfin.
 
-use super::style::{cached, literal, quoted_sheet, Styles};
+use super::cells::{at, f, Cells};
+use super::style::{literal, Styles};
 use super::{xlsx_error, CandidateNames, Names};
 use crate::analysis::compare::{CandidateOutcome, Study};
-use crate::finance::{FuelPrice, LedgerRow, Money, RowKind};
+use crate::finance::{FuelPrice, LedgerRow, RowKind};
 use crate::Result;
-use chrono::Datelike;
 use rust_decimal::Decimal;
-use rust_xlsxwriter::{ExcelDateTime, Format, Formula, Workbook, Worksheet};
+use rust_xlsxwriter::Workbook;
 
 /// Columns of a ledger sheet (zero-based).
 pub(crate) mod col {
@@ -125,64 +125,6 @@ pub(crate) fn layout(sheet: String, outcome: &CandidateOutcome) -> Layout {
     }
 }
 
-fn f(value: Decimal) -> f64 {
-    value.to_f64()
-}
-
-/// `A1`-style relative address.
-fn at(row: u32, col: u16) -> String {
-    rust_xlsxwriter::utility::row_col_to_cell(row, col)
-}
-
-struct Cells<'a> {
-    sheet: &'a mut Worksheet,
-}
-
-impl Cells<'_> {
-    fn formula(
-        &mut self,
-        row: u32,
-        col: u16,
-        text: &str,
-        value: f64,
-        format: &Format,
-    ) -> Result<()> {
-        let formula = Formula::new(text).set_result(cached(value));
-        self.sheet
-            .write_formula_with_format(row, col, formula, format)
-            .map_err(xlsx_error)?;
-        Ok(())
-    }
-
-    fn number(&mut self, row: u32, col: u16, value: f64, format: &Format) -> Result<()> {
-        self.sheet
-            .write_number_with_format(row, col, value, format)
-            .map_err(xlsx_error)?;
-        Ok(())
-    }
-
-    fn text(&mut self, row: u32, col: u16, value: &str, format: &Format) -> Result<()> {
-        self.sheet
-            .write_string_with_format(row, col, value, format)
-            .map_err(xlsx_error)?;
-        Ok(())
-    }
-
-    fn date(&mut self, row: u32, col: u16, date: chrono::NaiveDate, format: &Format) -> Result<()> {
-        let excel = u16::try_from(date.year())
-            .ok()
-            .and_then(|y| ExcelDateTime::from_ymd(y, date.month() as u8, date.day() as u8).ok());
-        match excel {
-            Some(d) => self
-                .sheet
-                .write_date_with_format(row, col, &d, format)
-                .map(|_| ())
-                .map_err(xlsx_error),
-            None => self.text(row, col, &date.to_string(), format),
-        }
-    }
-}
-
 /// Everything one ledger sheet needs.
 pub(crate) struct LedgerSheet<'a> {
     /// The study.
@@ -277,7 +219,7 @@ impl LedgerSheet<'_> {
         }
         self.totals(&mut cells, last_capital_row)?;
         if self.index != self.study.baseline_index {
-            self.payback_columns(&mut cells)?;
+            super::payback::payback_columns(self, &mut cells)?;
         }
         Ok(())
     }
@@ -523,98 +465,6 @@ impl LedgerSheet<'_> {
                 &s.money.formula
             };
             cells.formula(row, 1, &formula, f(value), format)?;
-        }
-        Ok(())
-    }
-
-    /// Saving against the baseline in each operating row, and where the
-    /// cumulative saving first covers the added capital (ASTM E1121, as
-    /// `finance::payback`: linear within the row).
-    fn payback_columns(&self, cells: &mut Cells) -> Result<()> {
-        let s = self.styles;
-        let this = &self.layouts[self.index];
-        let base = &self.layouts[self.study.baseline_index];
-        let base_sheet = quoted_sheet(&base.sheet);
-        let outcome = &self.study.outcomes[self.index];
-        let base_outcome = &self.study.outcomes[self.study.baseline_index];
-        let ops = |o: &CandidateOutcome| -> Vec<LedgerRow> {
-            o.ledger
-                .rows
-                .iter()
-                .filter(|r| r.kind == RowKind::Operation)
-                .copied()
-                .collect()
-        };
-        let (mine, theirs) = (ops(outcome), ops(base_outcome));
-        let columns = [
-            (
-                col::SAVING,
-                col::SIMPLE_CROSSING,
-                col::TOTAL,
-                total::CAPITAL_PAID,
-            ),
-            (
-                col::PV_SAVING,
-                col::DISCOUNTED_CROSSING,
-                col::PV,
-                total::PV_CAPITAL,
-            ),
-        ];
-        let (mut outstanding_simple, mut outstanding_pv) = (
-            outcome.ledger.summary.capital_total - base_outcome.ledger.summary.capital_total,
-            outcome.ledger.summary.present_value.capital
-                - base_outcome.ledger.summary.present_value.capital,
-        );
-        for (i, (c, b)) in mine.iter().zip(&theirs).enumerate() {
-            let r = this.operating.0 + i as u32;
-            let rb = base.operating.0 + i as u32;
-            for (saving_col, crossing_col, amount_col, added_row) in columns {
-                let simple = saving_col == col::SAVING;
-                let saving = if simple {
-                    b.total - c.total
-                } else {
-                    b.present_value - c.present_value
-                };
-                let saving_text =
-                    format!("={base_sheet}!{}-{}", at(rb, amount_col), at(r, amount_col));
-                cells.formula(r, saving_col, &saving_text, f(saving), &s.money.formula)?;
-                let added = format!("({}-{base_sheet}!{})", at(added_row, 1), at(added_row, 1));
-                let before = if r == this.operating.0 {
-                    added
-                } else {
-                    format!(
-                        "({added}-SUM({}:{}))",
-                        at(this.operating.0, saving_col),
-                        at(r - 1, saving_col)
-                    )
-                };
-                let here = at(r, saving_col);
-                let text = format!(
-                    "=IF(AND({before}>0,{here}>0,{here}>={before}),{}+{before}/{here}*{},\"\")",
-                    at(r, col::TIME),
-                    at(r, col::FRACTION)
-                );
-                let outstanding = if simple {
-                    &mut outstanding_simple
-                } else {
-                    &mut outstanding_pv
-                };
-                // Only the first crossing: afterwards nothing is outstanding.
-                let crossing = *outstanding > Decimal::ZERO
-                    && saving > Decimal::ZERO
-                    && saving >= *outstanding;
-                let value = crossing.then(|| {
-                    let share = (*outstanding / saving).to_f64();
-                    c.time_start_years + share * (c.time_end_years - c.time_start_years)
-                });
-                let cached_text = value.map_or(String::new(), cached);
-                let formula = Formula::new(text).set_result(cached_text);
-                cells
-                    .sheet
-                    .write_formula_with_format(r, crossing_col, formula, &s.factor.formula)
-                    .map_err(xlsx_error)?;
-                *outstanding -= saving;
-            }
         }
         Ok(())
     }

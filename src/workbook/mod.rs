@@ -14,13 +14,15 @@
 //! (`finance::build_ledger`) and its comparison, so that a reader that does
 //! not recalculate shows the same figures as `compare`. A spreadsheet
 //! application recalculating the formulas in double precision reproduces
-//! them to well under a cent (see [`ledger`](self) module notes).
+//! them to well under a cent (see the notes of `src/workbook/ledger.rs`).
 //!
 //! The workbook is built from the analysis layer's [`Study`] rather than the
 //! rounded report model: formulas need the unrounded quantities.
 
+mod cells;
 mod inputs;
 mod ledger;
+mod payback;
 mod style;
 pub mod summary;
 

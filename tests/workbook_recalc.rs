@@ -180,3 +180,55 @@ fn a_changed_fuel_price_recalculates_to_compare_at_that_price() {
         check_ledgers(&recalculated, &json, &format!("{demo} at {new_price}"));
     }
 }
+
+/// Change the discount-rate cell and recalculate: every discount factor,
+/// present value, metric and verdict follows, and equals `compare` on the
+/// scenario at that rate, to the cent (the rate does not touch the
+/// physics). The cached values are those of the original rate; at 9.25 %
+/// the regenerated bid's verdict turns, so the verdict formula is tried.
+#[test]
+fn a_changed_discount_rate_recalculates_to_compare_at_that_rate() {
+    if skipped() {
+        return;
+    }
+    let (demo, from, to) = (
+        DEMOS[0],
+        "discount_rate = \"6.5 %\"",
+        "discount_rate = \"9.25 %\"",
+    );
+    let dir = tempfile::tempdir().expect("temp dir");
+    let original = brayfin::scenario::load(Path::new(demo)).expect("demo loads");
+    let study = run_study(&original).expect("demo runs");
+    assert_eq!(
+        original.source_text.matches(from).count(),
+        1,
+        "one discount rate line"
+    );
+    let changed_path = dir.path().join("changed.toml");
+    std::fs::write(&changed_path, original.source_text.replace(from, to)).expect("written");
+    let changed = brayfin::scenario::load(&changed_path).expect("changed scenario loads");
+
+    // The original workbook with only the discount-rate input cell changed.
+    let mut edited = original.clone();
+    edited.scenario.economics.discount_rate = changed.scenario.economics.discount_rate;
+    let book = dir.path().join("edited.xlsx");
+    std::fs::write(&book, build_workbook(&edited, &study).expect("workbook")).expect("written");
+
+    let json = compare_json(&changed_path);
+    let verdicts = |j: &serde_json::Value| -> Vec<String> {
+        j["candidates"]
+            .as_array()
+            .expect("candidates")
+            .iter()
+            .map(|c| c["verdict"]["kind"].to_string())
+            .collect()
+    };
+    assert_ne!(
+        verdicts(&json),
+        verdicts(&compare_json(Path::new(demo))),
+        "a verdict turns at 9.25 %"
+    );
+    let recalculated = recalculate(&book, dir.path());
+    check_summary(&recalculated, &json, &format!("{demo} at 9.25 %"));
+    check_ledgers(&recalculated, &json, &format!("{demo} at 9.25 %"));
+}

@@ -93,7 +93,7 @@ pub(crate) fn write(
     w.named(
         "Discount rate",
         "DiscountRate",
-        Shown::Percent(first.rates.discount_rate),
+        Shown::Percent(e.discount_rate),
         "per year",
         &source_of(loaded, "economics.discount_rate"),
         Origin::Input,

@@ -157,3 +157,39 @@ pub fn build_workbook(loaded: &LoadedScenario, study: &Study) -> Result<Vec<u8>>
     )?;
     workbook.save_to_buffer().map_err(xlsx_error)
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    /// Ids that reduce alike (`as-is`, `as_is`) get distinct names; every
+    /// name is letters, digits and underscores, starting with a letter.
+    #[test]
+    fn candidate_names_are_valid_and_distinct() {
+        let names = Names::new(&["as-is", "as_is", "2030-upgrade"]);
+        let all: Vec<String> = (0..3)
+            .map(|i| names.candidate(i).name("CapitalCost"))
+            .collect();
+        assert_eq!(
+            all,
+            [
+                "bid_as_is_CapitalCost",
+                "bid_as_is_2_CapitalCost",
+                "bid_2030_upgrade_CapitalCost"
+            ]
+        );
+        for name in &all {
+            assert!(name.chars().all(|c| c.is_ascii_alphanumeric() || c == '_'));
+        }
+    }
+
+    /// Sheet names stay within 31 characters and distinct, ignoring case.
+    #[test]
+    fn ledger_sheet_names_fit_and_differ() {
+        let long = "a-very-long-candidate-identifier-indeed";
+        let names = ledger_sheet_names(&[long, &long.to_uppercase(), "b"]);
+        assert_eq!(names[2], "Ledger b");
+        assert!(names.iter().all(|n| n.chars().count() <= 31), "{names:?}");
+        assert!(!names[0].eq_ignore_ascii_case(&names[1]), "{names:?}");
+    }
+}

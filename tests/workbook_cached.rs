@@ -7,7 +7,8 @@ mod workbook_support;
 
 use std::path::Path;
 use workbook_support::{
-    check_ledgers, check_summary, compare_json, price_path_variant, write_workbook, DEMOS,
+    check_ledgers, check_summary, compare_json, nominal_variant, price_path_variant,
+    write_workbook, DEMOS,
 };
 
 #[test]
@@ -23,16 +24,21 @@ fn cached_values_equal_compare_on_both_demos() {
     }
 }
 
-/// The same with the fuel price given year by year (a price path).
+/// The same with the fuel price given year by year (a price path), and on
+/// a nominal basis without overhauls for the baseline.
 #[test]
-fn cached_values_equal_compare_with_a_price_path() {
+fn cached_values_equal_compare_on_the_variants() {
     let dir = tempfile::tempdir().expect("temp dir");
-    let scenario = price_path_variant(dir.path());
-    let out = dir.path().join("book.xlsx");
-    write_workbook(&scenario, &out);
-    let json = compare_json(&scenario);
-    check_summary(&out, &json, "price path");
-    check_ledgers(&out, &json, "price path");
+    for (scenario, label) in [
+        (price_path_variant(dir.path()), "price path"),
+        (nominal_variant(dir.path()), "nominal"),
+    ] {
+        let out = dir.path().join("book.xlsx");
+        write_workbook(&scenario, &out);
+        let json = compare_json(&scenario);
+        check_summary(&out, &json, label);
+        check_ledgers(&out, &json, label);
+    }
 }
 
 /// The Inputs sheet names the scenario by its SHA-256, as `compare` does.

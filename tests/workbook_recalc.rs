@@ -17,7 +17,7 @@ use std::path::{Path, PathBuf};
 use std::process::Command;
 use std::sync::Mutex;
 use workbook_support::{
-    assert_no_error_cells, check_ledgers, check_summary, compare_json, json_money,
+    assert_no_error_cells, check_ledgers, check_summary, compare_json, json_money, nominal_variant,
     price_path_variant, write_workbook, DEMOS,
 };
 
@@ -99,22 +99,27 @@ fn libreoffice_recalculates_both_demos_to_the_cent() {
     }
 }
 
-/// A fuel price given year by year: each ledger row looks its price up in
-/// the path on the Inputs sheet.
+/// A fuel price given year by year (each ledger row looks its price up in
+/// the path on the Inputs sheet), and a nominal analysis whose baseline has
+/// no overhauls, a payback never reached and a negative SIR.
 #[test]
-fn libreoffice_recalculates_a_price_path_to_the_cent() {
+fn libreoffice_recalculates_the_variants_to_the_cent() {
     if skipped() {
         return;
     }
     let dir = tempfile::tempdir().expect("temp dir");
-    let scenario = price_path_variant(dir.path());
-    let book = dir.path().join("book.xlsx");
-    write_workbook(&scenario, &book);
-    let recalculated = recalculate(&book, dir.path());
-    let json = compare_json(&scenario);
-    assert_no_error_cells(&recalculated, "price path");
-    check_summary(&recalculated, &json, "price path recalculated");
-    check_ledgers(&recalculated, &json, "price path recalculated");
+    for (scenario, label) in [
+        (price_path_variant(dir.path()), "price path"),
+        (nominal_variant(dir.path()), "nominal"),
+    ] {
+        let book = dir.path().join("book.xlsx");
+        write_workbook(&scenario, &book);
+        let recalculated = recalculate(&book, dir.path());
+        let json = compare_json(&scenario);
+        assert_no_error_cells(&recalculated, label);
+        check_summary(&recalculated, &json, &format!("{label} recalculated"));
+        check_ledgers(&recalculated, &json, &format!("{label} recalculated"));
+    }
 }
 
 /// The scenario text with its fuel price line replaced.

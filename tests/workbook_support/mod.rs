@@ -275,3 +275,26 @@ pub fn price_path_variant(dir: &Path) -> std::path::PathBuf {
     std::fs::write(&path, replaced.join("\n") + "\n").expect("variant written");
     path
 }
+
+/// The second demo stated on a nominal basis (10.16 % ≈ 8 % real with 2 %
+/// inflation by the Fisher relation, rounded; escalation rates left as
+/// they are) and with no overhauls for the baseline, written into `dir`.
+/// It exercises a ledger without overhauls, a payback never reached and a
+/// negative savings-to-investment ratio.
+pub fn nominal_variant(dir: &Path) -> std::path::PathBuf {
+    let mut text = std::fs::read_to_string(DEMOS[1]).expect("demo");
+    for (from, to) in [
+        ("rate_basis = \"real\"", "rate_basis = \"nominal\""),
+        ("discount_rate = \"8 %\"", "discount_rate = \"10.16 %\""),
+        (
+            "overhaul_interval = \"32000 h\"\noverhaul_cost = \"2600000 EUR\"\n",
+            "",
+        ),
+    ] {
+        assert!(text.contains(from), "the demo has {from}");
+        text = text.replacen(from, to, 1);
+    }
+    let path = dir.join("kestrel-nominal.toml");
+    std::fs::write(&path, text).expect("variant written");
+    path
+}

@@ -74,6 +74,8 @@ pub enum Command {
     Check(CheckArgs),
     /// Write a starter scenario file from a template.
     New(NewArgs),
+    /// Write the audit workbook (.xlsx): the ledgers as live formulas.
+    Workbook(WorkbookArgs),
 }
 
 /// Flags of `brayfin cycle`. Temperatures take `K`, `degC`, `degF`, `degR`
@@ -228,4 +230,15 @@ pub struct NewArgs {
     /// Starter template name (see `templates/`).
     #[arg(long, default_value = "bid-evaluation")]
     pub template: String,
+}
+
+/// Flags of `brayfin workbook`.
+#[derive(Debug, Args)]
+pub struct WorkbookArgs {
+    /// Scenario file (TOML).
+    pub scenario: PathBuf,
+    /// Output workbook path, ending in .xlsx (default: the scenario path
+    /// with `.xlsx`).
+    #[arg(short = 'o', long = "output")]
+    pub output: Option<PathBuf>,
 }

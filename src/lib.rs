@@ -16,5 +16,6 @@ pub mod report;
 pub mod scenario;
 pub mod thermo;
 pub mod units;
+pub mod workbook;
 
 pub use error::{Error, Result};

@@ -15,6 +15,7 @@ fn main() {
         Command::Risk(args) => app::risk::run(&args),
         Command::Check(args) => app::check::run(&args),
         Command::New(args) => app::new::run(&args),
+        Command::Workbook(args) => app::workbook::run(&args),
     };
     if let Err(error) = outcome {
         eprintln!("error: {error}");

@@ -11,3 +11,4 @@ pub mod progress;
 pub mod report;
 pub mod risk;
 pub mod sweep;
+pub mod workbook;

@@ -1,0 +1,275 @@
+//! A candidate's block of the Inputs sheet: its costs as named inputs, its
+//! figures from brayfin's cycle model and operating year as computed
+//! constants, its operating points, and its output shortfall as formulas.
+
+use super::super::{xlsx_error, Names};
+use super::writer::{source_of, Origin, Shown, Writer};
+use crate::analysis::compare::Study;
+use crate::finance::{Capital, ResidualValue};
+use crate::scenario::LoadedScenario;
+use crate::Result;
+use rust_decimal::Decimal;
+
+const COMPUTED_NOTE: &str = "computed by brayfin's cycle model and operating year (a constant: it does not follow edits of other cells)";
+
+/// Write the block of candidate `index`.
+pub(super) fn write(
+    w: &mut Writer,
+    loaded: &LoadedScenario,
+    study: &Study,
+    names: &Names,
+    index: usize,
+) -> Result<()> {
+    let scenario = &loaded.scenario;
+    let currency = &scenario.meta.currency;
+    let outcome = &study.outcomes[index];
+    let candidate = &scenario.candidates[index];
+    let n = names.candidate(index);
+    let key = |field: &str| format!("candidate[{}].{field}", candidate.id);
+    let inputs = &outcome.inputs;
+    let role = if index == study.baseline_index {
+        " (baseline)"
+    } else {
+        ""
+    };
+    w.heading(&format!(
+        "Candidate `{}`{role}: {}",
+        candidate.id, candidate.label
+    ))?;
+    w.named(
+        "Capital cost",
+        &n.name("CapitalCost"),
+        Shown::Money(candidate.capital_cost),
+        currency,
+        &source_of(loaded, &key("capital_cost")),
+        Origin::Input,
+    )?;
+    match &inputs.capital {
+        Capital::AtCommercialOperation(_) => {
+            w.named(
+                "Share of capital paid at commercial operation",
+                &n.name("Share1"),
+                Shown::Percent(1.0),
+                "of capital cost",
+                "no construction schedule: all paid at commercial operation",
+                Origin::Input,
+            )?;
+        }
+        Capital::Schedule(_) => {
+            for (k, (date, fraction)) in candidate.costs.construction_schedule.iter().enumerate() {
+                w.named(
+                    &format!("Share of capital paid {date}"),
+                    &n.name(&format!("Share{}", k + 1)),
+                    Shown::Percent(*fraction),
+                    "of capital cost",
+                    &source_of(loaded, &key("costs.construction")),
+                    Origin::Input,
+                )?;
+            }
+        }
+    }
+    w.named(
+        "Fixed O&M",
+        &n.name("FixedOm"),
+        Shown::Money(inputs.fixed_om.price),
+        &format!("{currency}/kW-yr"),
+        &source_of(loaded, &key("costs.fixed_om")),
+        Origin::Input,
+    )?;
+    w.named(
+        "Variable O&M",
+        &n.name("VariableOm"),
+        Shown::Money(inputs.variable_om.price),
+        &format!("{currency}/MWh"),
+        &source_of(loaded, &key("costs.variable_om")),
+        Origin::Input,
+    )?;
+    let (interval, cost) = inputs
+        .overhaul
+        .map_or((0.0, Decimal::ZERO), |o| (o.interval_hours, o.cost));
+    w.named(
+        "Overhaul cost (each)",
+        &n.name("OverhaulCost"),
+        Shown::Money(cost),
+        currency,
+        &source_of(loaded, &key("costs.overhaul_cost")),
+        Origin::Input,
+    )?;
+    w.named(
+        "Overhaul interval",
+        &n.name("OverhaulInterval"),
+        Shown::Number(interval),
+        "operating hours",
+        &format!(
+            "{}; sets the overhaul counts in the ledger (computed constants)",
+            source_of(loaded, &key("costs.overhaul_interval"))
+        ),
+        Origin::Input,
+    )?;
+    w.named(
+        "Heat-rate degradation",
+        &n.name("Degradation"),
+        Shown::Percent(inputs.degradation.heat_rate_fraction_per_year),
+        "per year of operation",
+        &format!(
+            "{}; enters the ledger through the heat-rate multipliers (computed constants)",
+            source_of(loaded, &key("costs.degradation_per_year"))
+        ),
+        Origin::Input,
+    )?;
+    w.named(
+        "Degradation recovered at overhaul",
+        &n.name("Recoverable"),
+        Shown::Percent(inputs.degradation.recoverable_fraction),
+        "of degradation",
+        &source_of(loaded, &key("costs.recoverable_fraction")),
+        Origin::Input,
+    )?;
+    let (fraction, amount) = match inputs.residual.value {
+        ResidualValue::FractionOfCapital(f) => (f, Decimal::ZERO),
+        ResidualValue::Amount(a) => (0.0, a),
+    };
+    w.named(
+        "Residual value, share of capital",
+        &n.name("ResidualShare"),
+        Shown::Percent(fraction),
+        "of capital paid",
+        &source_of(loaded, &key("costs.residual_value")),
+        Origin::Input,
+    )?;
+    w.named(
+        "Residual value, amount",
+        &n.name("ResidualAmount"),
+        Shown::Money(amount),
+        currency,
+        "used when the residual value is stated as an amount (else 0)",
+        Origin::Input,
+    )?;
+    w.named(
+        "Rated net output",
+        &n.name("NetOutputKw"),
+        Shown::Number(inputs.operation.net_output_kw),
+        "kW",
+        &source_of(loaded, &key("net_output")),
+        Origin::Input,
+    )?;
+    let cycle = &outcome.solved.cycle;
+    w.named(
+        "Heat rate at site rating (LHV)",
+        &n.name("HeatRate"),
+        Shown::Number(cycle.heat_rate_kj_per_kwh),
+        "kJ/kWh",
+        COMPUTED_NOTE,
+        Origin::Computed,
+    )?;
+    w.named(
+        "Thermal efficiency at site rating (LHV)",
+        &n.name("Efficiency"),
+        Shown::Percent(cycle.thermal_efficiency),
+        "",
+        COMPUTED_NOTE,
+        Origin::Computed,
+    )?;
+    let op = &inputs.operation;
+    w.named(
+        "Operating hours per full year",
+        &n.name("AnnualHours"),
+        Shown::Number(op.operating_hours),
+        "h",
+        COMPUTED_NOTE,
+        Origin::Computed,
+    )?;
+    w.named(
+        "Net energy per full year",
+        &n.name("AnnualEnergy"),
+        Shown::Number(op.energy_mwh),
+        "MWh",
+        COMPUTED_NOTE,
+        Origin::Computed,
+    )?;
+    w.named(
+        "Fuel energy per full year, new and clean",
+        &n.name("AnnualFuelGj"),
+        Shown::Number(op.fuel_energy_gj_lhv),
+        "GJ LHV",
+        &format!("{COMPUTED_NOTE}; dispatch × part-load heat rate"),
+        Origin::Computed,
+    )?;
+    bins(
+        w,
+        scenario,
+        inputs.operation.net_output_kw,
+        cycle.heat_rate_kj_per_kwh,
+    )?;
+    let energies = names.all("AnnualEnergy");
+    let outputs = names.all("NetOutputKw");
+    w.formula(
+        "Energy shortfall bought elsewhere",
+        &n.name("EnergyShortfall"),
+        &format!("=MAX(0,MAX({energies})-{})", n.name("AnnualEnergy")),
+        inputs.replacement.energy_mwh_per_year,
+        "MWh per full year",
+        "levelling: the most any candidate delivers, less this candidate's",
+    )?;
+    w.formula(
+        "Capacity shortfall bought elsewhere",
+        &n.name("CapacityShortfall"),
+        &format!("=MAX(0,MAX({outputs})-{})", n.name("NetOutputKw")),
+        inputs.replacement.capacity_kw,
+        "kW",
+        "levelling: the largest rated output, less this candidate's",
+    )?;
+    Ok(())
+}
+
+/// The candidate's operating points of the year (dispatch blocks, or all
+/// hours at full load): output and heat rate from brayfin's cycle model and
+/// the scenario's part-load table, as computed constants.
+fn bins(
+    w: &mut Writer,
+    scenario: &crate::scenario::Scenario,
+    net_output_kw: f64,
+    heat_rate: f64,
+) -> Result<()> {
+    let operation = &scenario.operation;
+    let points: Vec<(f64, f64)> = if operation.dispatch.is_empty() {
+        vec![(1.0, operation.hours_per_year)]
+    } else {
+        operation
+            .dispatch
+            .iter()
+            .map(|b| (b.load_fraction, b.hours))
+            .collect()
+    };
+    let s = w.styles;
+    let header = [
+        "Load",
+        "Net output, kW",
+        "Heat rate, kJ/kWh LHV",
+        "Hours per year",
+    ];
+    w.sheet
+        .write_string_with_format(w.row, 0, "Operating points of the year (computed)", &s.text)
+        .map_err(xlsx_error)?;
+    for (k, text) in header.iter().enumerate() {
+        w.sheet
+            .write_string_with_format(w.row, 1 + k as u16, *text, &s.header)
+            .map_err(xlsx_error)?;
+    }
+    w.row += 1;
+    for (load, hours) in points {
+        let ratio = crate::analysis::operation::heat_rate_ratio(&operation.part_load, load);
+        w.sheet
+            .write_number_with_format(w.row, 1, load, &s.percent.computed)
+            .and_then(|x| {
+                x.write_number_with_format(w.row, 2, load * net_output_kw, &s.number.computed)
+            })
+            .and_then(|x| {
+                x.write_number_with_format(w.row, 3, heat_rate * ratio, &s.number.computed)
+            })
+            .and_then(|x| x.write_number_with_format(w.row, 4, hours, &s.number.computed))
+            .map_err(xlsx_error)?;
+        w.row += 1;
+    }
+    Ok(())
+}

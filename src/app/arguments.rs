@@ -27,8 +27,8 @@ pub fn subcommand_of(args: &[std::ffi::OsString]) -> Option<String> {
 }
 
 /// `error: <problem>[; <tip>]` then `hint: ...--help`, from the parser's
-/// rendered text: its first line, any `tip:` lines and the list of
-/// possible values, without the usage block.
+/// rendered text: its first line and continuation lines, any `tip:` lines
+/// and the list of possible values, without the usage block.
 fn message(error: &clap::Error, subcommand: Option<&str>) -> String {
     let rendered = error.render().to_string();
     let mut lines = rendered.lines().map(str::trim).filter(|l| !l.is_empty());
@@ -39,20 +39,22 @@ fn message(error: &clap::Error, subcommand: Option<&str>) -> String {
         .trim()
         .to_string();
     let mut parts = vec![first];
-    let dash_value = match error.get(ContextKind::InvalidArg) {
-        Some(ContextValue::String(arg)) if error.kind() == ErrorKind::UnknownArgument => {
-            arg.starts_with('-')
-        }
-        _ => false,
+    let invalid = match error.get(ContextKind::InvalidArg) {
+        Some(ContextValue::String(arg)) => arg.clone(),
+        _ => String::new(),
     };
+    let lines = lines
+        .take_while(|l| !l.starts_with("Usage:"))
+        .filter(|l| !l.starts_with("For more information"));
     for line in lines {
         if let Some(tip) = line.strip_prefix("tip:") {
-            if dash_value {
-                parts.push(
-                    "if it is the value of an option, write it joined with `=` \
-                     (e.g. --candidate=-x)"
-                        .to_string(),
-                );
+            // clap suggests `-- -x`, which only suits a positional value; a
+            // value starting with "-" given to an option is joined with `=`.
+            if tip.contains("to pass") && invalid.starts_with('-') {
+                parts.push(format!(
+                    "if `{invalid}` is the value of an option, join them with `=` \
+                     (e.g. --candidate={invalid})"
+                ));
             } else {
                 parts.push(tip.trim().to_string());
             }
@@ -62,17 +64,18 @@ fn message(error: &clap::Error, subcommand: Option<&str>) -> String {
                     .trim_end_matches(']')
                     .to_string(),
             );
+        } else if let Some(first) = parts.first_mut() {
+            // A continuation, e.g. the missing `<SCENARIO>`.
+            first.push(' ');
+            first.push_str(line);
         }
     }
     if error.kind() == ErrorKind::DisplayHelpOnMissingArgumentOrSubcommand {
         parts = vec!["no command given".to_string()];
     }
-    let command = match subcommand {
-        Some(name) => format!("brayfin {name}"),
-        None => "brayfin".to_string(),
+    let hint = match subcommand {
+        Some(name) => format!("`brayfin {name} --help` lists its options"),
+        None => "`brayfin --help` lists the commands".to_string(),
     };
-    format!(
-        "error: {}\nhint: `{command} --help` lists the commands and options",
-        parts.join("; ")
-    )
+    format!("error: {}\nhint: {hint}", parts.join("; "))
 }

@@ -149,6 +149,42 @@ fn a_turbine_efficiency_range_in_percent_equals_compare_of_the_edited_file() {
 }
 
 #[test]
+fn a_temperature_range_in_degc_steps_in_degc() {
+    // 1226.85 degC = 1500 K (0 degC = 273.15 K, NIST SP 811): the file's
+    // own value for the first bid, so the sweep equals compare of the
+    // file edited to say it in degC.
+    check_range_against_compare(
+        "candidate[standard].turbine_inlet_temperature",
+        "1226.85 degC:1226.85 degC:10 degC",
+        "turbine_inlet_temperature = \"1500 K\"",
+        "turbine_inlet_temperature = \"1226.85 degC\"",
+    );
+    // A step in degC is a difference: 1200, 1225, 1250 degC.
+    let swept = json_of(&[
+        "sweep",
+        DEMO,
+        "--vary",
+        "candidate.turbine_inlet_temperature=1200 degC:1250 degC:25 degC",
+        "--candidate",
+        "standard",
+        "--format",
+        "json",
+    ]);
+    let values: Vec<f64> = swept["rows"]
+        .as_array()
+        .cloned()
+        .unwrap_or_default()
+        .iter()
+        .filter_map(|r| r["values"]["candidate.turbine_inlet_temperature"].as_f64())
+        .collect();
+    assert_eq!(values, [1200.0, 1225.0, 1250.0]);
+    assert_eq!(
+        swept["units"]["candidate.turbine_inlet_temperature"],
+        "degC"
+    );
+}
+
+#[test]
 fn the_varied_key_prints_with_its_unit() {
     // Bare numbers keep meaning the internal unit (per GJ here) and say so.
     let output = brayfin(&[

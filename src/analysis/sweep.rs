@@ -22,7 +22,7 @@
 use super::compare::study_fuel;
 use super::point::{Figures, PointError, PointModel};
 use crate::scenario::LoadedScenario;
-use crate::units::{self, split_quantity, Kind, Split, UnitError};
+use crate::units::{self, split_quantity, Kind, Split};
 use crate::Error;
 use rayon::prelude::*;
 use rust_decimal::prelude::ToPrimitive;
@@ -78,28 +78,39 @@ impl Axis {
     }
 }
 
-/// The internal value of `text` read as `kind` (a unit of that kind, or a
-/// bare number in the internal unit), with the currency it names if any.
-fn read_as(kind: Kind, text: &str) -> Result<(f64, Option<String>), UnitError> {
-    let plain = |v: f64| (v, None);
-    let priced = |m: units::MoneyValue| (m.amount.to_f64().unwrap_or(f64::NAN), m.currency);
-    Ok(match kind {
-        Kind::Temperature => plain(units::temperature_k(text)?),
-        Kind::Pressure => plain(units::pressure_kpa(text)?),
-        Kind::Power => plain(units::power_kw(text)?),
-        Kind::Fraction => plain(units::fraction(text)?),
-        Kind::Number => plain(units::number(text)?),
-        Kind::HeatRate => plain(units::heat_rate_kj_per_kwh(text)?),
-        Kind::SpecificEnergy => plain(units::specific_energy_kj_per_kg(text)?),
-        Kind::Length => plain(units::length_m(text)?),
-        Kind::Duration => plain(units::duration_h(text)?),
-        Kind::EmissionFactor => plain(units::emission_factor_kg_per_gj(text)?),
-        Kind::Money => priced(units::money(text)?),
-        Kind::FuelPrice => priced(units::price_per_gj(text)?),
-        Kind::PricePerTonne => priced(units::price_per_tonne(text)?),
-        Kind::PricePerEnergy => priced(units::price_per_mwh(text)?),
-        Kind::PricePerCapacity => priced(units::price_per_kw_year(text)?),
-    })
+/// The linear map (scale, offset) of `unit` to its kind's internal unit:
+/// for a physical unit the one [`crate::units`] reads values with; for a
+/// money unit (which must name `currency`) the size of one of it in the
+/// internal unit, read exactly as a decimal.
+fn unit_map(text: &str, unit: &str, currency: &str) -> crate::Result<(f64, f64)> {
+    if let Some((_, scale, offset)) = units::physical_unit_map(unit) {
+        return Ok((scale, offset));
+    }
+    let one = format!("1 {unit}");
+    let read: fn(&str) -> Result<units::MoneyValue, units::UnitError> = match units::kind_of(&one) {
+        Some(Kind::Money) => units::money,
+        Some(Kind::FuelPrice) => units::price_per_gj,
+        Some(Kind::PricePerTonne) => units::price_per_tonne,
+        Some(Kind::PricePerEnergy) => units::price_per_mwh,
+        Some(Kind::PricePerCapacity) => units::price_per_kw_year,
+        _ => {
+            return Err(bad_vary(
+                text,
+                &format!("`{unit}` is not a unit brayfin knows"),
+            ))
+        }
+    };
+    let value = read(&one).map_err(|e| bad_vary(text, &e.to_string()))?;
+    if let Some(named) = value.currency {
+        if named != currency {
+            return Err(bad_vary(
+                text,
+                &format!("the range is in {named} but the scenario's currency is {currency}"),
+            ));
+        }
+    }
+    let scale = value.amount.to_f64().unwrap_or(f64::NAN);
+    Ok((scale, 0.0))
 }
 
 /// The unit the scenario file wrote for `key` (for `candidate.<field>`,
@@ -119,26 +130,6 @@ fn unit_in_file<'l>(loaded: &'l LoadedScenario, key: &str) -> Option<&'l str> {
             None => i.key == key,
         })
         .map(|i| i.unit.as_str())
-}
-
-/// The linear map (scale, offset) of `unit` to its kind's internal unit,
-/// found by reading one and two of it; a money unit must name `currency`.
-fn unit_map(text: &str, unit: &str, currency: &str) -> crate::Result<(f64, f64)> {
-    let kind = units::kind_of(&format!("1 {unit}"))
-        .ok_or_else(|| bad_vary(text, &format!("`{unit}` is not a unit brayfin knows")))?;
-    let read =
-        |n: &str| read_as(kind, &format!("{n} {unit}")).map_err(|e| bad_vary(text, &e.to_string()));
-    let ((one, named), (two, _)) = (read("1")?, read("2")?);
-    if let Some(named) = named {
-        if named != currency {
-            return Err(bad_vary(
-                text,
-                &format!("the range is in {named} but the scenario's currency is {currency}"),
-            ));
-        }
-    }
-    let scale = two - one;
-    Ok((scale, one - scale))
 }
 
 /// A checked sweep: its axes and which candidates it reports.

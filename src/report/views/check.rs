@@ -81,7 +81,7 @@ fn summary(loaded: &LoadedScenario, units: Units) -> String {
     let elevation = site.elevation_m.map_or(String::new(), |z| {
         format!(
             " (ISO 2533 at {})",
-            format::with_unit(Q::Length, z, units, 0)
+            format::with_unit(Q::Length, z, units, 1)
         )
     });
     let _ = writeln!(

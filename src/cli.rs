@@ -28,9 +28,10 @@ pub enum Format {
 /// Unit system for presentation.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
 pub enum UnitSystem {
-    /// kJ/kWh, K, kPa, kg/s.
+    /// SI: K, kPa, kJ/kg, kJ/(kg·K), kg/s, kJ/kWh, currency per GJ.
     Si,
-    /// Btu/kWh, degF, psia, lb/s.
+    /// US customary: °F, psia, Btu/lb, Btu/(lb·°R), lb/h, MMBtu/h, Btu/kWh,
+    /// currency per MMBtu.
     Us,
 }
 
@@ -132,9 +133,12 @@ pub struct CycleArgs {
     /// Rated net electrical output (bare number: kW); gives the flows.
     #[arg(long)]
     pub net_output: Option<String>,
-    /// Output format (table or json).
+    /// Output format (table, json or csv).
     #[arg(long, value_enum, default_value = "table")]
     pub format: Format,
+    /// Unit system of the table and CSV (JSON is always SI, units in the key names).
+    #[arg(long, value_enum, default_value = "si")]
+    pub units: UnitSystem,
 }
 
 /// Flags of `brayfin compare`.
@@ -158,7 +162,8 @@ pub struct CompareArgs {
 pub struct ReportArgs {
     /// Scenario file (TOML).
     pub scenario: PathBuf,
-    /// Output PDF path (default: the scenario path with `.pdf`).
+    /// Output PDF path, ending in `.pdf` (default: the scenario path with
+    /// `.pdf`).
     #[arg(short = 'o', long = "output")]
     pub output: Option<PathBuf>,
     /// Unit system of the tables.
@@ -184,10 +189,11 @@ pub struct SweepArgs {
     /// Scenario file (TOML).
     pub scenario: PathBuf,
     /// `KEY=FROM:TO:STEP`, a dotted scenario key such as `fuel.price` or
-    /// `candidate[premium].turbine_efficiency`; plain numbers in the key's
-    /// internal unit (fractions as 0.88, K, h, currency per GJ on the
-    /// scenario's price basis; see docs/sweep-and-risk.md). Give it once or
-    /// twice (a grid).
+    /// `candidate[premium].turbine_efficiency`. The three numbers may carry
+    /// one unit, the same on each (`2 USD/MMBtu:12 USD/MMBtu:1 USD/MMBtu`,
+    /// `86%:92%:1%`); bare numbers are in the key's internal unit (fractions
+    /// as 0.88, K, h, currency per GJ on the scenario's price basis; see
+    /// docs/sweep-and-risk.md). Give it once or twice (a grid).
     #[arg(long = "vary", required = true)]
     pub vary: Vec<String>,
     /// Only this candidate (default: all).
@@ -196,6 +202,10 @@ pub struct SweepArgs {
     /// Output format.
     #[arg(long, value_enum, default_value = "table")]
     pub format: Format,
+    /// Unit system of the heat rate (the varied keys print in the unit
+    /// their range was written in).
+    #[arg(long, value_enum, default_value = "si")]
+    pub units: UnitSystem,
 }
 
 /// Flags of `brayfin risk`.
@@ -212,6 +222,10 @@ pub struct RiskArgs {
     /// Output format.
     #[arg(long, value_enum, default_value = "table")]
     pub format: Format,
+    /// Unit system (risk prints money only; accepted so that every
+    /// command takes the same option, and echoed in the output).
+    #[arg(long, value_enum, default_value = "si")]
+    pub units: UnitSystem,
 }
 
 /// Flags of `brayfin check`.
@@ -219,6 +233,9 @@ pub struct RiskArgs {
 pub struct CheckArgs {
     /// Scenario file (TOML).
     pub scenario: PathBuf,
+    /// Unit system of the summary.
+    #[arg(long, value_enum, default_value = "si")]
+    pub units: UnitSystem,
 }
 
 /// Flags of `brayfin new`.

@@ -6,7 +6,22 @@ use brayfin::cli::{Cli, Command};
 use clap::Parser;
 
 fn main() {
-    let cli = Cli::parse();
+    let args: Vec<std::ffi::OsString> = std::env::args_os().collect();
+    let cli = match Cli::try_parse_from(&args) {
+        Ok(cli) => cli,
+        Err(error) => {
+            let subcommand = app::arguments::subcommand_of(&args);
+            let (message, code) = app::arguments::refusal(&error, subcommand.as_deref());
+            match message {
+                // `--help` and `--version`: clap prints them (exit 0).
+                None => error.exit(),
+                Some(line) => {
+                    eprintln!("{line}");
+                    std::process::exit(code);
+                }
+            }
+        }
+    };
     let outcome = match cli.command {
         Command::Cycle(args) => app::cycle::run(&args),
         Command::Compare(args) => app::compare::run(&args),

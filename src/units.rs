@@ -256,6 +256,17 @@ pub fn kind_of(text: &str) -> Option<Kind> {
     }
 }
 
+/// The linear map of a physical unit to its kind's internal unit:
+/// `(kind, scale, offset)` with `internal = value * scale + offset`, the
+/// same arithmetic as reading `"value symbol"`. `None` for money units and
+/// unknown symbols.
+pub fn physical_unit_map(symbol: &str) -> Option<(Kind, f64, f64)> {
+    UNITS
+        .iter()
+        .find(|u| u.symbol == symbol)
+        .map(|u| (u.kind, u.scale, u.offset))
+}
+
 fn unit_kind(symbol: &str) -> Option<Kind> {
     UNITS
         .iter()

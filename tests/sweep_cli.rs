@@ -43,6 +43,12 @@ fn amount(v: &Value) -> f64 {
 /// Sweep the demo at one value of `key` and compare every candidate with a
 /// `compare --format json` run of the demo text edited by `edit`.
 fn check_point_against_compare(key: &str, value: &str, from: &str, to: &str) {
+    check_range_against_compare(key, &format!("{value}:{value}:1"), from, to);
+}
+
+/// As [`check_point_against_compare`], with the one-point range written
+/// out (units allowed).
+fn check_range_against_compare(key: &str, range: &str, from: &str, to: &str) {
     assert!(DEMO_TEXT.contains(from), "the demo must contain {from}");
     let edited = DEMO_TEXT.replacen(from, to, 1);
     let dir = match tempfile::tempdir() {
@@ -55,7 +61,7 @@ fn check_point_against_compare(key: &str, value: &str, from: &str, to: &str) {
     }
     let path_text = path.to_string_lossy().to_string();
     let compared = json_of(&["compare", &path_text, "--format", "json"]);
-    let vary = format!("{key}={value}:{value}:1");
+    let vary = format!("{key}={range}");
     let swept = json_of(&["sweep", DEMO, "--vary", &vary, "--format", "json"]);
     let rows = swept["rows"].as_array().cloned().unwrap_or_default();
     let candidates = compared["candidates"]
@@ -121,6 +127,135 @@ fn a_fuel_price_point_equals_compare_of_the_edited_file() {
 }
 
 #[test]
+fn a_fuel_price_range_in_usd_per_mmbtu_equals_compare_of_the_edited_file() {
+    // The range carries the unit the file uses: 5 USD/MMBtu is converted
+    // exactly as the file's own "5 USD/MMBtu" is (1 MMBtu = 1.055056 GJ).
+    check_range_against_compare(
+        "fuel.price",
+        "5 USD/MMBtu:5 USD/MMBtu:1 USD/MMBtu",
+        "price = \"3.85 USD/MMBtu\"",
+        "price = \"5 USD/MMBtu\"",
+    );
+}
+
+#[test]
+fn a_turbine_efficiency_range_in_percent_equals_compare_of_the_edited_file() {
+    check_range_against_compare(
+        "candidate[premium].turbine_efficiency",
+        "90%:90%:1%",
+        "turbine_efficiency = \"91.5 %\"",
+        "turbine_efficiency = \"90 %\"",
+    );
+}
+
+#[test]
+fn a_temperature_range_in_degc_steps_in_degc() {
+    // 1226.85 degC = 1500 K (0 degC = 273.15 K, NIST SP 811): the file's
+    // own value for the first bid, so the sweep equals compare of the
+    // file edited to say it in degC.
+    check_range_against_compare(
+        "candidate[standard].turbine_inlet_temperature",
+        "1226.85 degC:1226.85 degC:10 degC",
+        "turbine_inlet_temperature = \"1500 K\"",
+        "turbine_inlet_temperature = \"1226.85 degC\"",
+    );
+    // A step in degC is a difference: 1200, 1225, 1250 degC.
+    let swept = json_of(&[
+        "sweep",
+        DEMO,
+        "--vary",
+        "candidate.turbine_inlet_temperature=1200 degC:1250 degC:25 degC",
+        "--candidate",
+        "standard",
+        "--format",
+        "json",
+    ]);
+    let values: Vec<f64> = swept["rows"]
+        .as_array()
+        .cloned()
+        .unwrap_or_default()
+        .iter()
+        .filter_map(|r| r["values"]["candidate.turbine_inlet_temperature"].as_f64())
+        .collect();
+    assert_eq!(values, [1200.0, 1225.0, 1250.0]);
+    assert_eq!(
+        swept["units"]["candidate.turbine_inlet_temperature"],
+        "degC"
+    );
+}
+
+#[test]
+fn the_varied_key_prints_with_its_unit() {
+    // Bare numbers keep meaning the internal unit (per GJ here) and say so.
+    let output = brayfin(&[
+        "sweep",
+        DEMO,
+        "--vary",
+        "fuel.price=3:4:1",
+        "--format",
+        "csv",
+    ]);
+    assert!(output.status.success());
+    let text = String::from_utf8_lossy(&output.stdout);
+    assert!(
+        text.starts_with("point,fuel.price (USD/GJ HHV),candidate_id,"),
+        "{text}"
+    );
+    // Written in USD/MMBtu: printed in USD/MMBtu, as written.
+    let swept = json_of(&[
+        "sweep",
+        DEMO,
+        "--vary",
+        "fuel.price=3 USD/MMBtu:4 USD/MMBtu:0.5 USD/MMBtu",
+        "--format",
+        "json",
+    ]);
+    assert_eq!(swept["units"]["fuel.price"], "USD/MMBtu HHV");
+    let last = swept["rows"]
+        .as_array()
+        .and_then(|r| r.last())
+        .cloned()
+        .unwrap_or_default();
+    assert_eq!(last["values"]["fuel.price"].as_f64(), Some(4.0));
+    // The table names the unit under the key and the heat rate's unit.
+    let output = brayfin(&[
+        "sweep",
+        DEMO,
+        "--vary",
+        "candidate.turbine_efficiency=88%:89%:1%",
+        "--units",
+        "us",
+    ]);
+    assert!(output.status.success());
+    let text = String::from_utf8_lossy(&output.stdout);
+    assert!(text.contains("(%)"), "{text}");
+    assert!(text.contains("HR Btu/kWh"), "{text}");
+}
+
+#[test]
+fn a_scenario_check_refuses_prints_nothing_and_exits_1() {
+    // The file loads, but its cycle cannot be solved: `check` refuses it,
+    // so `sweep` must too, before printing any JSON.
+    let bad = "tests/bad_inputs/solve-negative-net-work.toml";
+    let check = brayfin(&["check", bad]);
+    assert_eq!(check.status.code(), Some(1));
+    for format in ["json", "csv", "table"] {
+        let output = brayfin(&[
+            "sweep",
+            bad,
+            "--vary",
+            "economics.discount_rate=0.05:0.06:0.01",
+            "--format",
+            format,
+        ]);
+        assert_eq!(output.status.code(), Some(1), "{format}");
+        assert!(output.stdout.is_empty(), "{format}: printed before failing");
+        let message = String::from_utf8_lossy(&output.stderr);
+        assert!(message.contains("net work"), "{format}: {message}");
+    }
+}
+
+#[test]
 fn a_turbine_efficiency_point_equals_compare_of_the_edited_file() {
     // Only the premium bid has 91.5 % as its turbine efficiency line.
     check_point_against_compare(
@@ -162,8 +297,8 @@ fn a_grid_is_long_format_with_the_first_key_slowest() {
     let lines: Vec<&str> = text.lines().collect();
     assert_eq!(
         lines[0],
-        "point,fuel.price,candidate[premium].turbine_efficiency,candidate_id,\
-         heat_rate_kj_per_kwh,lifecycle_cost,net_savings,break_even_premium,error"
+        "point,fuel.price (USD/GJ HHV),candidate[premium].turbine_efficiency (fraction),\
+         candidate_id,heat_rate_kj_per_kwh,lifecycle_cost,net_savings,break_even_premium,error"
     );
     // 3 prices × 2 efficiencies, one reported candidate.
     assert_eq!(lines.len(), 1 + 6);
@@ -259,6 +394,23 @@ fn bad_ranges_are_input_errors() {
         "above 1",
     );
     refused(&["sweep", s, "--vary", "fuel.price=3:4"], "not 3");
+    refused(
+        &["sweep", s, "--vary", "fuel.price=2 USD/MMBtu:4:1"],
+        "different units",
+    );
+    refused(
+        &["sweep", s, "--vary", "fuel.price=2 K:4 K:1 K"],
+        "is a unit of a temperature",
+    );
+    refused(
+        &[
+            "sweep",
+            s,
+            "--vary",
+            "fuel.price=2 EUR/GJ:4 EUR/GJ:1 EUR/GJ",
+        ],
+        "the scenario's currency is USD",
+    );
     refused(
         &["sweep", s, "--vary", "fuel.price=x:4:1"],
         "not a finite number",

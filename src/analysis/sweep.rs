@@ -2,12 +2,18 @@
 //! each point re-solving the cycle and `f64` ledger of the candidates and
 //! setting each against the baseline.
 //!
-//! A range is `KEY=FROM:TO:STEP` in the key's internal unit (see
-//! `docs/scenario.md`, "Key paths": fractions as 0.88, temperatures in K,
-//! fuel prices per GJ). The numbers are read as exact decimals and each
-//! point's value is FROM + i·STEP computed in decimal, so 0.85:0.95:0.01
-//! gives 0.88, not 0.88000000000000012; TO is included when the steps land
-//! on it. Points are numbered with the first key varying slowest.
+//! A range is `KEY=FROM:TO:STEP`. Bare numbers are in the key's internal
+//! unit (see `docs/scenario.md`, "Key paths": fractions as 0.88,
+//! temperatures in K, fuel prices per GJ); the three numbers may instead
+//! carry one unit, the same on each (`2 USD/MMBtu:12 USD/MMBtu:1 USD/MMBtu`,
+//! `86%:92%:1%`, `1400 degC:1500 degC:25 degC`), and the steps are then
+//! taken in that unit. The numbers are read as exact decimals and each
+//! point's value is FROM + i·STEP computed in decimal in the written unit,
+//! so 0.85:0.95:0.01 gives 0.88, not 0.88000000000000012; TO is included
+//! when the steps land on it. The written value is converted to the
+//! internal unit by the unit's linear map (scale and offset, as
+//! [`crate::units`] reads a single value). Points are numbered with the
+//! first key varying slowest.
 //!
 //! Points run in parallel in blocks; each finished block is handed to the
 //! caller in point order, so output can be written as it comes and memory
@@ -16,6 +22,7 @@
 use super::compare::study_fuel;
 use super::point::{Figures, PointError, PointModel};
 use crate::scenario::LoadedScenario;
+use crate::units::{self, split_quantity, Kind, Split};
 use crate::Error;
 use rayon::prelude::*;
 use rust_decimal::prelude::ToPrimitive;
@@ -33,21 +40,96 @@ const BLOCK: usize = 8192;
 pub struct Axis {
     /// Dotted scenario key.
     pub key: String,
-    /// First value, internal unit.
+    /// First value, in the written unit.
     pub from: Decimal,
-    /// Step between values (non-zero, towards `to`).
+    /// Step between values (non-zero, towards `to`), in the written unit.
     pub step: Decimal,
     /// Number of values, ≥ 1.
     pub count: usize,
+    /// The unit the range was written in (`"USD/MMBtu"`, `"%"`), or `None`
+    /// for bare numbers in the key's internal unit.
+    pub unit: Option<String>,
+    /// Internal value = written value × `scale` + `offset`.
+    scale: f64,
+    /// See `scale`.
+    offset: f64,
+    /// The kind of quantity the key holds, when known: from the range's
+    /// unit, else from the unit the scenario file wrote for the key.
+    pub kind: Option<Kind>,
 }
 
 impl Axis {
-    /// The `i`-th value (0-based), internal unit.
-    pub fn value(&self, i: usize) -> f64 {
+    /// The `i`-th value (0-based) as written: in [`Axis::unit`], or in the
+    /// internal unit when the range had none.
+    pub fn written_value(&self, i: usize) -> f64 {
         (self.from + self.step * Decimal::from(i))
             .to_f64()
             .unwrap_or(f64::NAN)
     }
+
+    /// The `i`-th value (0-based), internal unit.
+    pub fn value(&self, i: usize) -> f64 {
+        let written = self.written_value(i);
+        if self.unit.is_none() {
+            written
+        } else {
+            written * self.scale + self.offset
+        }
+    }
+}
+
+/// The linear map (scale, offset) of `unit` to its kind's internal unit:
+/// for a physical unit the one [`crate::units`] reads values with; for a
+/// money unit (which must name `currency`) the size of one of it in the
+/// internal unit, read exactly as a decimal.
+fn unit_map(text: &str, unit: &str, currency: &str) -> crate::Result<(f64, f64)> {
+    if let Some((_, scale, offset)) = units::physical_unit_map(unit) {
+        return Ok((scale, offset));
+    }
+    let one = format!("1 {unit}");
+    let read: fn(&str) -> Result<units::MoneyValue, units::UnitError> = match units::kind_of(&one) {
+        Some(Kind::Money) => units::money,
+        Some(Kind::FuelPrice) => units::price_per_gj,
+        Some(Kind::PricePerTonne) => units::price_per_tonne,
+        Some(Kind::PricePerEnergy) => units::price_per_mwh,
+        Some(Kind::PricePerCapacity) => units::price_per_kw_year,
+        _ => {
+            return Err(bad_vary(
+                text,
+                &format!("`{unit}` is not a unit brayfin knows"),
+            ))
+        }
+    };
+    let value = read(&one).map_err(|e| bad_vary(text, &e.to_string()))?;
+    if let Some(named) = value.currency {
+        if named != currency {
+            return Err(bad_vary(
+                text,
+                &format!("the range is in {named} but the scenario's currency is {currency}"),
+            ));
+        }
+    }
+    let scale = value.amount.to_f64().unwrap_or(f64::NAN);
+    Ok((scale, 0.0))
+}
+
+/// The unit the scenario file wrote for `key` (for `candidate.<field>`,
+/// that of the first candidate giving the field with a unit), if any.
+fn unit_in_file<'l>(loaded: &'l LoadedScenario, key: &str) -> Option<&'l str> {
+    let field = key.strip_prefix("candidate.");
+    loaded
+        .inputs
+        .iter()
+        .filter(|i| !i.unit.is_empty())
+        .find(|i| match field {
+            Some(field) => i
+                .key
+                .strip_prefix("candidate[")
+                .and_then(|rest| rest.split_once("]."))
+                .is_some_and(|(_, f)| f == field),
+            None => i.key == key,
+        })
+        .map(|i| i.unit.as_str())
 }
 
 /// A checked sweep: its axes and which candidates it reports.
@@ -79,16 +161,26 @@ impl SweepPlan {
 
 fn bad_vary(text: &str, problem: &str) -> Error {
     Error::Input(format!(
-        "--vary {text}: {problem}; expected KEY=FROM:TO:STEP with numbers in the key's internal \
-         unit, e.g. --vary fuel.price=3:6:0.25 or --vary candidate.turbine_efficiency=0.86:0.92:0.01"
+        "--vary {text}: {problem}; expected KEY=FROM:TO:STEP, bare numbers in the key's internal \
+         unit or one unit on all three, e.g. --vary fuel.price=3:6:0.25, \
+         --vary \"fuel.price=2 USD/MMBtu:12 USD/MMBtu:1 USD/MMBtu\" or \
+         --vary candidate.turbine_efficiency=86%:92%:1%"
     ))
 }
 
-fn number(text: &str, part: &str, name: &str) -> crate::Result<Decimal> {
+/// A range part: its exact number and the unit written after it (empty
+/// when bare).
+fn number<'t>(text: &str, part: &'t str, name: &str) -> crate::Result<(Decimal, &'t str)> {
     let trimmed = part.trim();
-    Decimal::from_str(trimmed)
-        .or_else(|_| Decimal::from_scientific(trimmed))
-        .map_err(|_| bad_vary(text, &format!("{name} `{trimmed}` is not a finite number")))
+    let not_a_number = || bad_vary(text, &format!("{name} `{trimmed}` is not a finite number"));
+    let (digits, unit) = match split_quantity(trimmed) {
+        Split::Quantity { number, unit } => (number, unit),
+        Split::NotANumber => return Err(not_a_number()),
+    };
+    let value = Decimal::from_str(&digits)
+        .or_else(|_| Decimal::from_scientific(&digits))
+        .map_err(|_| not_a_number())?;
+    Ok((value, unit))
 }
 
 /// Read `KEY=FROM:TO:STEP` (without checking the key).
@@ -107,11 +199,21 @@ pub fn parse_axis(text: &str) -> crate::Result<Axis> {
             &format!("the range has {} part(s), not 3", parts.len()),
         ));
     };
-    let (from, to, step) = (
+    let ((from, from_unit), (to, to_unit), (step, step_unit)) = (
         number(text, from, "FROM")?,
         number(text, to, "TO")?,
         number(text, step, "STEP")?,
     );
+    if from_unit != to_unit || from_unit != step_unit {
+        return Err(bad_vary(
+            text,
+            &format!(
+                "FROM, TO and STEP carry different units (`{from_unit}`, `{to_unit}`, \
+                 `{step_unit}`); write the same unit on all three, or none"
+            ),
+        ));
+    }
+    let unit = (!from_unit.is_empty()).then(|| from_unit.to_string());
     if step.is_zero() {
         return Err(bad_vary(text, "STEP is zero"));
     }
@@ -141,6 +243,10 @@ pub fn parse_axis(text: &str) -> crate::Result<Axis> {
         from,
         step,
         count: intervals + 1,
+        unit,
+        scale: 1.0,
+        offset: 0.0,
+        kind: None,
     })
 }
 
@@ -160,10 +266,31 @@ pub fn plan(
             vary.len()
         )));
     }
-    let axes = vary
+    let mut axes = vary
         .iter()
         .map(|text| parse_axis(text))
         .collect::<crate::Result<Vec<Axis>>>()?;
+    for (axis, text) in axes.iter_mut().zip(vary) {
+        let in_file =
+            unit_in_file(loaded, &axis.key).and_then(|u| units::kind_of(&format!("1 {u}")));
+        axis.kind = in_file;
+        if let Some(unit) = &axis.unit {
+            (axis.scale, axis.offset) = unit_map(text, unit, &scenario.meta.currency)?;
+            let written = units::kind_of(&format!("1 {unit}"));
+            if let (Some(file_kind), Some(range_kind)) = (in_file, written) {
+                if file_kind != range_kind {
+                    return Err(bad_vary(
+                        text,
+                        &format!(
+                            "`{}` holds {file_kind} but `{unit}` is a unit of {range_kind}",
+                            axis.key
+                        ),
+                    ));
+                }
+            }
+            axis.kind = written;
+        }
+    }
     if axes.len() == 2 && axes[0].key == axes[1].key {
         return Err(Error::Input(format!(
             "--vary names `{}` twice; expected two different keys",

@@ -1,23 +1,14 @@
 //! `brayfin compare`: every candidate against the baseline, printed as
 //! tables, one JSON object, or the CSV ledger.
 
+use super::output::{print, units_of};
 use crate::analysis::{build_model, ModelOptions};
-use crate::cli::{CompareArgs, Format, UnitSystem};
+use crate::cli::{CompareArgs, Format};
 use crate::report::csv::LedgerCsvRenderer;
 use crate::report::json::JsonRenderer;
-use crate::report::model::Units;
 use crate::report::table::TableRenderer;
 use crate::report::Renderer;
-use crate::{scenario, Error, Result};
-use std::io::Write;
-
-/// The display unit system of a CLI choice.
-pub fn units_of(choice: UnitSystem) -> Units {
-    match choice {
-        UnitSystem::Si => Units::Si,
-        UnitSystem::Us => Units::Us,
-    }
-}
+use crate::{scenario, Result};
 
 /// Run `brayfin compare`.
 pub fn run(args: &CompareArgs) -> Result<()> {
@@ -34,7 +25,5 @@ pub fn run(args: &CompareArgs) -> Result<()> {
         Format::Json => JsonRenderer.render(&model)?,
         Format::Csv => LedgerCsvRenderer.render(&model)?,
     };
-    std::io::stdout()
-        .write_all(&bytes)
-        .map_err(|e| Error::io("writing to standard output", e))
+    print(&bytes)
 }

@@ -1,33 +1,26 @@
-//! `brayfin cycle`: read the flags (with units), solve one cycle, print the
-//! state table and performance as a table, JSON or CSV.
+//! `brayfin cycle`: read the flags (with units), solve one cycle, print
+//! what [`crate::report::views::cycle::CycleView`] renders.
 //!
 //! Every bad flag becomes `Error::Input` with one line naming the flag and
 //! what would be valid (exit code 1).
 
-use crate::cli::{CycleArgs, Format, GasModelArg};
+use super::output::{print, text_format, units_of};
+use crate::cli::{CycleArgs, GasModelArg};
 use crate::cycle::{
-    solve, CycleError, CycleResult, EfficiencyBasis, EngineConfig, GasModel, Intercooler,
-    IntercoolerExit, Regenerator, Reheat, Sizing,
+    solve, CycleError, EfficiencyBasis, EngineConfig, GasModel, Intercooler, IntercoolerExit,
+    Regenerator, Reheat, Sizing,
 };
 use crate::fuel::Fuel;
+use crate::report::views::{cycle::CycleView, render};
 use crate::units::{self, UnitError};
 use crate::{Error, Result};
-use serde::Serialize;
-use std::fmt::Write as _;
-use tabled::builder::Builder;
-use tabled::settings::{object::Columns, Alignment, Style};
 
 /// Run `brayfin cycle`.
 pub fn run(args: &CycleArgs) -> Result<()> {
     let (config, gas, fuel) = inputs(args)?;
     let result = solve(&config, &gas, &fuel).map_err(|e| cycle_error(&e))?;
-    let text = match args.format {
-        Format::Table => table(&result, &fuel),
-        Format::Json => json(&result, &fuel)?,
-        Format::Csv => csv(&result),
-    };
-    print!("{text}");
-    Ok(())
+    let view = CycleView::new(&result, &fuel, units_of(args.units));
+    print(&render(&view, text_format(args.format))?)
 }
 
 fn flag_error(flag: &str, e: UnitError) -> Error {
@@ -153,208 +146,4 @@ fn cycle_error(e: &CycleError) -> Error {
     } else {
         Error::Internal(message)
     }
-}
-
-#[derive(Serialize)]
-struct JsonOutput<'a> {
-    #[serde(flatten)]
-    result: &'a CycleResult,
-    fuel: &'a Fuel,
-}
-
-fn json(result: &CycleResult, fuel: &Fuel) -> Result<String> {
-    let mut text = serde_json::to_string_pretty(&JsonOutput { result, fuel })
-        .map_err(|e| Error::Internal(format!("writing JSON: {e}")))?;
-    text.push('\n');
-    Ok(text)
-}
-
-fn finish(mut table: tabled::Table, right_from: usize) -> String {
-    table
-        .with(Style::psql())
-        .modify(Columns::new(right_from..), Alignment::right());
-    table.to_string()
-}
-
-/// Rows of (quantity, value, unit) summarising the cycle.
-fn summary(result: &CycleResult) -> Vec<(&'static str, String, &'static str)> {
-    let r = result;
-    let mut rows = vec![
-        (
-            "Compressor work",
-            format!("{:.2}", r.compressor_work_kj_per_kg),
-            "kJ/kg air",
-        ),
-        (
-            "Turbine work",
-            format!("{:.2}", r.turbine_work_kj_per_kg),
-            "kJ/kg air",
-        ),
-        (
-            "Net work (shaft)",
-            format!("{:.2}", r.net_work_kj_per_kg),
-            "kJ/kg air",
-        ),
-        (
-            "Net electrical work",
-            format!("{:.2}", r.electrical_work_kj_per_kg),
-            "kJ/kg air",
-        ),
-        (
-            "Heat input (fuel, LHV)",
-            format!("{:.2}", r.heat_input_kj_per_kg),
-            "kJ/kg air",
-        ),
-        (
-            "Heat rejected",
-            format!("{:.2}", r.heat_rejected_kj_per_kg),
-            "kJ/kg air",
-        ),
-        ("Back-work ratio", format!("{:.4}", r.back_work_ratio), "-"),
-        (
-            "Thermal efficiency (LHV)",
-            format!("{:.2}", r.thermal_efficiency * 100.0),
-            "%",
-        ),
-        (
-            "Heat rate (LHV)",
-            format!("{:.0}", r.heat_rate_kj_per_kwh),
-            "kJ/kWh",
-        ),
-        (
-            "Heat rate (LHV)",
-            format!("{:.0}", r.heat_rate_btu_per_kwh),
-            "Btu/kWh",
-        ),
-        (
-            "Exhaust temperature",
-            format!("{:.2}", r.exhaust_temperature_k),
-            "K",
-        ),
-    ];
-    if let Some(far) = r.fuel_air_ratio {
-        rows.push(("Fuel-air ratio", format!("{far:.5}"), "kg/kg air"));
-    }
-    if let Some(co2) = r.co2_kg_per_mwh {
-        rows.push(("CO2 emitted", format!("{co2:.1}"), "kg/MWh"));
-    }
-    if let Some(flows) = &r.flows {
-        rows.push((
-            "Net electrical output",
-            format!("{:.1}", flows.net_output_kw),
-            "kW",
-        ));
-        rows.push((
-            "Air flow",
-            format!("{:.3}", flows.air_flow_kg_per_s),
-            "kg/s",
-        ));
-        rows.push((
-            "Fuel flow",
-            format!("{:.4}", flows.fuel_flow_kg_per_s),
-            "kg/s",
-        ));
-        rows.push((
-            "Exhaust flow",
-            format!("{:.3}", flows.exhaust_flow_kg_per_s),
-            "kg/s",
-        ));
-    }
-    rows
-}
-
-fn table(result: &CycleResult, fuel: &Fuel) -> String {
-    let mut out = String::new();
-    let _ = writeln!(
-        out,
-        "Gas-turbine cycle: gas model {}, fuel {} (LHV {:.0} kJ/kg)\n",
-        result.gas_model,
-        fuel.name(),
-        fuel.lhv_kj_per_kg()
-    );
-    let mut states = Builder::default();
-    states.push_record([
-        "State",
-        "Point",
-        "T (K)",
-        "p (kPa)",
-        "h (kJ/kg)",
-        "s (kJ/(kg·K))",
-    ]);
-    for s in &result.states {
-        states.push_record([
-            s.id.to_string(),
-            s.name.to_string(),
-            format!("{:.2}", s.temperature_k),
-            format!("{:.3}", s.pressure_kpa),
-            format!("{:.2}", s.enthalpy_kj_per_kg),
-            format!("{:.4}", s.entropy_kj_per_kg_k),
-        ]);
-    }
-    out.push_str(&finish(states.build(), 2));
-    out.push_str("\n\n");
-    let mut perf = Builder::default();
-    perf.push_record(["Quantity", "Value", "Unit"]);
-    for (quantity, value, unit) in summary(result) {
-        perf.push_record([quantity.to_string(), value, unit.to_string()]);
-    }
-    let mut perf = perf.build();
-    perf.with(Style::psql())
-        .modify(Columns::single(1), Alignment::right());
-    out.push_str(&perf.to_string());
-    let _ = writeln!(
-        out,
-        "\n\nEnergy balance (per kg air): net work {:.6} = heat added {:.6} - heat rejected {:.6} kJ/kg; residual {:.1e} kJ/kg",
-        result.net_work_kj_per_kg,
-        result.heat_input_kj_per_kg,
-        result.heat_rejected_kj_per_kg,
-        result.energy_balance_residual_kj_per_kg
-    );
-    out.push_str(
-        "Efficiency and heat rate: net electrical output over fuel energy, lower heating value basis.\n",
-    );
-    out
-}
-
-fn csv_field(text: &str) -> String {
-    if text.contains([',', '"', '\n']) {
-        format!("\"{}\"", text.replace('"', "\"\""))
-    } else {
-        text.to_string()
-    }
-}
-
-/// Long format: `item,quantity,value,unit`, one row per number.
-fn csv(result: &CycleResult) -> String {
-    let mut out = String::from("item,quantity,value,unit\n");
-    for s in &result.states {
-        let item = format!("state {}", s.id);
-        for (quantity, value, unit) in [
-            ("temperature", s.temperature_k, "K"),
-            ("pressure", s.pressure_kpa, "kPa"),
-            ("enthalpy", s.enthalpy_kj_per_kg, "kJ/kg"),
-            ("entropy", s.entropy_kj_per_kg_k, "kJ/(kg·K)"),
-        ] {
-            let _ = writeln!(
-                out,
-                "{},{quantity},{value},{}",
-                csv_field(&item),
-                csv_field(unit)
-            );
-        }
-    }
-    for (quantity, value, unit) in summary(result) {
-        let _ = writeln!(
-            out,
-            "cycle,{},{value},{}",
-            csv_field(quantity),
-            csv_field(unit)
-        );
-    }
-    let _ = writeln!(
-        out,
-        "cycle,Energy balance residual,{},kJ/kg air",
-        result.energy_balance_residual_kj_per_kg
-    );
-    out
 }

@@ -2,6 +2,7 @@
 //! written. Each file runs one subcommand; none of them computes physics or
 //! money itself.
 
+pub mod arguments;
 pub mod check;
 pub mod compare;
 pub mod cycle;

@@ -1,9 +1,39 @@
-//! Writing output files safely: atomically (temporary file in the same
-//! folder, then rename) and never over an input file.
+//! Where output goes: standard output for what a renderer returned, and
+//! files written safely: atomically (temporary file in the same folder,
+//! then rename) and never over an input file. Also maps the command-line
+//! choices of format and units to the renderers' own types.
 
+use crate::cli::{Format, UnitSystem};
+use crate::report::model::Units;
+use crate::report::views::TextFormat;
 use crate::{Error, Result};
 use std::io::Write;
 use std::path::Path;
+
+/// Write rendered bytes to standard output.
+pub fn print(bytes: &[u8]) -> Result<()> {
+    let mut out = std::io::stdout().lock();
+    out.write_all(bytes)
+        .and_then(|()| out.flush())
+        .map_err(|e| Error::io("writing to standard output", e))
+}
+
+/// The display unit system of a `--units` choice.
+pub fn units_of(choice: UnitSystem) -> Units {
+    match choice {
+        UnitSystem::Si => Units::Si,
+        UnitSystem::Us => Units::Us,
+    }
+}
+
+/// The text format of a `--format` choice.
+pub fn text_format(choice: Format) -> TextFormat {
+    match choice {
+        Format::Table => TextFormat::Table,
+        Format::Json => TextFormat::Json,
+        Format::Csv => TextFormat::Csv,
+    }
+}
 
 /// Write `bytes` to `path` atomically: a temporary file in the same folder
 /// is written, flushed and renamed over `path`. A failure leaves no partial

@@ -27,7 +27,8 @@ pub fn paper(arg: PaperArg) -> Paper {
 }
 
 /// Where the PDF goes: `output` if given, else the scenario path with the
-/// extension `.pdf`. An output path equal to the scenario is refused.
+/// extension `.pdf`. An output path equal to the scenario, or one whose
+/// extension is not `.pdf` (any letter case), is refused.
 pub fn output_path(scenario: &Path, output: Option<&Path>) -> Result<PathBuf> {
     let path = match output {
         Some(p) => p.to_path_buf(),
@@ -36,6 +37,15 @@ pub fn output_path(scenario: &Path, output: Option<&Path>) -> Result<PathBuf> {
     if path == scenario {
         return Err(Error::Input(format!(
             "output path {} is the scenario file itself; give -o with another path",
+            path.display()
+        )));
+    }
+    let is_pdf = path
+        .extension()
+        .is_some_and(|e| e.to_string_lossy().eq_ignore_ascii_case("pdf"));
+    if !is_pdf {
+        return Err(Error::Input(format!(
+            "-o {}: the briefing is a PDF; expected an output path ending in .pdf",
             path.display()
         )));
     }
@@ -79,14 +89,6 @@ pub fn summary(written: &Written) -> String {
     )
 }
 
-/// The display units of the model for the `--units` flag.
-fn units(arg: crate::cli::UnitSystem) -> crate::report::model::Units {
-    match arg {
-        crate::cli::UnitSystem::Si => crate::report::model::Units::Si,
-        crate::cli::UnitSystem::Us => crate::report::model::Units::Us,
-    }
-}
-
 /// Run `brayfin report`: check the flags and templates first (cheap), then
 /// load the scenario, build the model with the sensitivity ranking, render,
 /// write, and print where and how many pages.
@@ -95,7 +97,7 @@ pub fn run(args: &ReportArgs) -> Result<()> {
     let wording = wording(args.templates.as_deref())?;
     let loaded = crate::scenario::load(&args.scenario)?;
     let options = crate::analysis::ModelOptions {
-        units: units(args.units),
+        units: crate::app::output::units_of(args.units),
         sensitivity: true,
     };
     let mut model = crate::analysis::build_model(&loaded, &options)?;

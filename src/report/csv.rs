@@ -1,8 +1,11 @@
 //! CSV renderer: the year-by-year ledger of every candidate, one row per
 //! candidate-year (long format). Money as plain decimal numbers rounded to
-//! the minor unit; no thousands separators.
+//! the minor unit; no thousands separators. With US units the fuel energy
+//! column is `fuel_energy_mmbtu` (LHV, 1 MMBtu = 1.055056 GJ) in place of
+//! `fuel_energy_gj`; every other column is the same in both systems.
 
-use super::model::Model;
+use super::format::{self, Quantity};
+use super::model::{Model, Units};
 use super::Renderer;
 
 /// Renders every candidate's ledger as CSV.
@@ -35,7 +38,11 @@ impl Renderer for LedgerCsvRenderer {
     fn render(&self, model: &Model) -> crate::Result<Vec<u8>> {
         let mut writer = csv::Writer::from_writer(Vec::new());
         let fail = |e: csv::Error| crate::Error::Internal(format!("CSV encoding failed: {e}"));
-        writer.write_record(LEDGER_COLUMNS).map_err(fail)?;
+        let mut columns = LEDGER_COLUMNS;
+        if model.meta.units == Units::Us {
+            columns[6] = "fuel_energy_mmbtu";
+        }
+        writer.write_record(columns).map_err(fail)?;
         for c in &model.candidates {
             for r in &c.ledger {
                 writer
@@ -46,7 +53,7 @@ impl Renderer for LedgerCsvRenderer {
                         r.period_end.clone(),
                         r.operating_hours.to_string(),
                         r.energy_mwh.to_string(),
-                        r.fuel_energy_gj.to_string(),
+                        fuel_energy(r.fuel_energy_gj, model.meta.units),
                         r.fuel_cost.to_string(),
                         r.carbon_cost.to_string(),
                         r.fixed_om.to_string(),
@@ -66,5 +73,13 @@ impl Renderer for LedgerCsvRenderer {
         writer
             .into_inner()
             .map_err(|e| crate::Error::Internal(format!("CSV encoding failed: {e}")))
+    }
+}
+
+/// Fuel energy in the column's unit: GJ, or MMBtu (GJ / 1.055056).
+fn fuel_energy(gj: f64, units: Units) -> String {
+    match units {
+        Units::Si => gj.to_string(),
+        Units::Us => format::in_units(Quantity::FuelEnergy, gj, units).to_string(),
     }
 }

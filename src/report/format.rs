@@ -1,10 +1,17 @@
-//! Display formatting shared by the text renderers: money with thousands
-//! separators, unit conversions for display only, payback in words.
+//! Display formatting shared by every renderer: money with thousands
+//! separators, unit conversions for display only ([`Quantity`] with
+//! [`in_units`] and [`unit`]), percentages, payback in words.
+//!
+//! This is the one place where a quantity meets a unit system: a renderer
+//! asks for a [`Quantity`] in [`Units`] and prints the number with the unit
+//! this module names. Values arrive in SI (the library's units) and are
+//! converted here, for display only.
 
 use super::model::{PaybackView, Units};
+use crate::units::{KJ_PER_BTU, KJ_PER_KG_PER_BTU_PER_LB};
 use rust_decimal::Decimal;
 
-/// Pounds per kilogram (exact by definition of the international pound,
+/// Kilograms per pound (exact by definition of the international pound,
 /// 1 lb = 0.453 592 37 kg).
 const KG_PER_LB: f64 = 0.453_592_37;
 /// Kilopascals per psi (NIST SP 811, 1 psi = 6.894 757 kPa).
@@ -104,6 +111,143 @@ pub fn percent(fraction: f64, decimals: usize) -> String {
     format!("{:.*} %", decimals, fraction * 100.0)
 }
 
+/// The back-work ratio (compressor work over turbine work) in its one
+/// printed form, a percentage with one decimal: `0.5310` → `"53.1 %"`.
+pub fn back_work_ratio(ratio: f64) -> String {
+    percent(ratio, 1)
+}
+
+/// kJ/(kg·K) per Btu/(lb·°R): 2.326 × 1.8 = 4.1868 exactly (the
+/// International Table calorie definition; NIST SP 811, 2008, Appendix B.8,
+/// "Btu_IT per pound degree Fahrenheit").
+const KJ_PER_KG_K_PER_BTU_PER_LB_R: f64 = KJ_PER_KG_PER_BTU_PER_LB * 1.8;
+
+/// Seconds per hour.
+const S_PER_H: f64 = 3600.0;
+
+/// kJ per MMBtu: 10^6 Btu_IT at [`KJ_PER_BTU`] kJ each (1.055056 GJ, the
+/// trade's rounding; NIST SP 811, Appendix B.8).
+const KJ_PER_MMBTU: f64 = KJ_PER_BTU * 1.0e6;
+
+/// A physical quantity as printed. Each takes its SI value (the library's
+/// unit, named in the variant) and has one SI and one US display unit.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Quantity {
+    /// Temperature, K → °F.
+    Temperature,
+    /// Absolute pressure, kPa → psia.
+    Pressure,
+    /// Specific energy or work per kg of air, kJ/kg → Btu/lb.
+    SpecificEnergy,
+    /// Specific entropy, kJ/(kg·K) → Btu/(lb·°R).
+    SpecificEntropy,
+    /// Air or exhaust mass flow, kg/s → lb/s.
+    MassFlow,
+    /// Fuel mass flow, kg/s → lb/h (the trade quotes fuel by the hour).
+    FuelMassFlow,
+    /// Fuel energy flow (LHV heat input), kW → MW (SI) or MMBtu/h (US).
+    FuelEnergyFlow,
+    /// Heat rate, kJ/kWh → Btu/kWh.
+    HeatRate,
+    /// Electrical power, kW (the same in both systems).
+    Power,
+    /// Specific energy of a gas or a fuel (enthalpy, heating value),
+    /// kJ/kg → Btu/lb.
+    HeatingValue,
+    /// Fuel energy over a period, GJ → MMBtu.
+    FuelEnergy,
+    /// Length, e.g. site elevation, m → ft.
+    Length,
+}
+
+/// `si` (in the SI unit of `quantity`) in the display unit of `units`.
+pub fn in_units(quantity: Quantity, si: f64, units: Units) -> f64 {
+    match (quantity, units) {
+        (Quantity::FuelEnergyFlow, Units::Si) => si / 1000.0,
+        (_, Units::Si) | (Quantity::Power, _) => si,
+        (Quantity::Temperature, Units::Us) => si * 1.8 - 459.67,
+        (Quantity::Pressure, Units::Us) => si / crate::units::KPA_PER_PSI,
+        (Quantity::SpecificEnergy | Quantity::HeatingValue, Units::Us) => {
+            si / KJ_PER_KG_PER_BTU_PER_LB
+        }
+        (Quantity::SpecificEntropy, Units::Us) => si / KJ_PER_KG_K_PER_BTU_PER_LB_R,
+        (Quantity::MassFlow, Units::Us) => si / KG_PER_LB,
+        (Quantity::FuelMassFlow, Units::Us) => si / KG_PER_LB * S_PER_H,
+        (Quantity::FuelEnergyFlow, Units::Us) => si * S_PER_H / KJ_PER_MMBTU,
+        (Quantity::HeatRate, Units::Us) => si / KJ_PER_BTU,
+        // GJ per MMBtu equals kJ per Btu.
+        (Quantity::FuelEnergy, Units::Us) => si / KJ_PER_BTU,
+        (Quantity::Length, Units::Us) => si / crate::units::M_PER_FT,
+    }
+}
+
+/// The display unit of `quantity` in `units`.
+pub fn unit(quantity: Quantity, units: Units) -> &'static str {
+    match (quantity, units) {
+        (Quantity::Temperature, Units::Si) => "K",
+        (Quantity::Temperature, Units::Us) => "°F",
+        (Quantity::Pressure, Units::Si) => "kPa",
+        (Quantity::Pressure, Units::Us) => "psia",
+        (Quantity::SpecificEnergy, Units::Si) => "kJ/kg air",
+        (Quantity::SpecificEnergy, Units::Us) => "Btu/lb air",
+        (Quantity::HeatingValue, Units::Si) => "kJ/kg",
+        (Quantity::HeatingValue, Units::Us) => "Btu/lb",
+        (Quantity::SpecificEntropy, Units::Si) => "kJ/(kg·K)",
+        (Quantity::SpecificEntropy, Units::Us) => "Btu/(lb·°R)",
+        (Quantity::MassFlow, Units::Si) | (Quantity::FuelMassFlow, Units::Si) => "kg/s",
+        (Quantity::MassFlow, Units::Us) => "lb/s",
+        (Quantity::FuelMassFlow, Units::Us) => "lb/h",
+        (Quantity::FuelEnergyFlow, Units::Si) => "MW",
+        (Quantity::FuelEnergyFlow, Units::Us) => "MMBtu/h",
+        (Quantity::HeatRate, Units::Si) => "kJ/kWh",
+        (Quantity::HeatRate, Units::Us) => "Btu/kWh",
+        (Quantity::Power, _) => "kW",
+        (Quantity::FuelEnergy, Units::Si) => "GJ",
+        (Quantity::FuelEnergy, Units::Us) => "MMBtu",
+        (Quantity::Length, Units::Si) => "m",
+        (Quantity::Length, Units::Us) => "ft",
+    }
+}
+
+/// `si` in `units` with `decimals` places and no unit (for a table cell
+/// under a header that names the unit, or a CSV field).
+pub fn value(quantity: Quantity, si: f64, units: Units, decimals: usize) -> String {
+    format!("{:.*}", decimals, in_units(quantity, si, units))
+}
+
+/// `si` in `units` with `decimals` places and the unit: `"59.0 °F"`.
+pub fn with_unit(quantity: Quantity, si: f64, units: Units, decimals: usize) -> String {
+    format!(
+        "{} {}",
+        value(quantity, si, units, decimals),
+        unit(quantity, units)
+    )
+}
+
+/// A fuel price given per GJ, shown per GJ (SI) or per MMBtu (US), exact
+/// decimal arithmetic (1 MMBtu = 1.055056 GJ), with the currency and the
+/// heating-value basis: `"USD 3.85/MMBtu HHV"`.
+pub fn fuel_price(per_gj: Decimal, currency: &str, basis: &str, units: Units) -> String {
+    match units {
+        Units::Si => format!("{currency} {}/GJ {basis}", per_gj.round_dp(4).normalize()),
+        Units::Us => {
+            let per_mmbtu = per_gj * Decimal::new(1_055_056, 6);
+            format!(
+                "{currency} {}/MMBtu {basis}",
+                per_mmbtu.round_dp(4).normalize()
+            )
+        }
+    }
+}
+
+/// The name a unit system is echoed with in outputs (`"SI"`, `"US"`).
+pub fn units_name(units: Units) -> &'static str {
+    match units {
+        Units::Si => "SI",
+        Units::Us => "US customary",
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -126,5 +270,47 @@ mod tests {
         // 101.325 kPa = 14.696 psia (standard atmosphere, common practice).
         assert_eq!(pressure(101.325, Units::Us), "14.70 psia");
         assert_eq!(mass_flow(0.45359237, Units::Us), "1.00 lb/s");
+    }
+
+    #[test]
+    fn converts_quantities_by_their_definitions() {
+        let us = |q, si| in_units(q, si, Units::Us);
+        // 2.326 kJ/kg = 1 Btu/lb and 4.1868 kJ/(kg·K) = 1 Btu/(lb·°R)
+        // (NIST SP 811, 2008, Appendix B.8).
+        assert!((us(Quantity::SpecificEnergy, 2.326) - 1.0).abs() < 1e-12);
+        assert!((us(Quantity::SpecificEntropy, 4.1868) - 1.0).abs() < 1e-12);
+        // 373.15 K = 212 °F (boiling point of water at 1 atm, definition
+        // of the scale).
+        assert!((us(Quantity::Temperature, 373.15) - 212.0).abs() < 1e-9);
+        // 1 kg/s = 7936.64 lb/h (3600 / 0.45359237).
+        assert!((us(Quantity::FuelMassFlow, 1.0) - 7936.641438).abs() < 1e-5);
+        // 293.071 kW = 1 MMBtu/h (1.055056e6 kJ per 3600 s, common practice).
+        assert!((us(Quantity::FuelEnergyFlow, 293.071_111) - 1.0).abs() < 1e-6);
+        // 3412.14 Btu/kWh is 100 % efficiency: 3600 kJ/kWh / 1.055056.
+        assert!((us(Quantity::HeatRate, 3600.0) - 3412.14).abs() < 0.01);
+        assert_eq!(unit(Quantity::SpecificEntropy, Units::Us), "Btu/(lb·°R)");
+        assert_eq!(
+            with_unit(Quantity::FuelEnergyFlow, 1500.0, Units::Si, 2),
+            "1.50 MW"
+        );
+    }
+
+    #[test]
+    fn fuel_price_per_mmbtu_is_exact() {
+        // 3.649 USD/GJ × 1.055056 GJ/MMBtu = 3.8499 USD/MMBtu.
+        let per_gj = Decimal::from_str("3.649").unwrap_or_default();
+        assert_eq!(
+            fuel_price(per_gj, "USD", "HHV", Units::Us),
+            "USD 3.8499/MMBtu HHV"
+        );
+        assert_eq!(
+            fuel_price(per_gj, "USD", "HHV", Units::Si),
+            "USD 3.649/GJ HHV"
+        );
+    }
+
+    #[test]
+    fn back_work_ratio_is_a_percentage_with_one_decimal() {
+        assert_eq!(back_work_ratio(0.5310), "53.1 %");
     }
 }

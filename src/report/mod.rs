@@ -16,4 +16,5 @@ pub mod format;
 pub mod json;
 pub mod pdf;
 pub mod table;
+pub mod views;
 pub mod wording;

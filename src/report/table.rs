@@ -57,41 +57,37 @@ fn finish(mut builder_table: tabled::Table) -> String {
 }
 
 fn performance_table(model: &Model) -> String {
+    use format::Quantity as Q;
     let units = model.meta.units;
-    let (hr, temp, flow) = match units {
-        Units::Si => ("heat rate kJ/kWh", "exhaust K", "kg/s"),
-        Units::Us => ("heat rate Btu/kWh", "exhaust degF", "lb/s"),
-    };
     let mut b = Builder::default();
     b.push_record([
         "candidate".to_string(),
         "net output MW".to_string(),
-        hr.to_string(),
+        format!("heat rate {}", format::unit(Q::HeatRate, units)),
         "efficiency %".to_string(),
-        temp.to_string(),
-        format!("air flow {flow}"),
-        format!("fuel flow {flow}"),
+        format!("exhaust {}", format::unit(Q::Temperature, units)),
+        format!("air flow {}", format::unit(Q::MassFlow, units)),
+        format!("fuel flow {}", format::unit(Q::FuelMassFlow, units)),
     ]);
     for c in &model.candidates {
         let p = &c.performance;
-        let strip = |s: String| s.split(' ').next().unwrap_or_default().to_string();
+        let fuel_decimals = match units {
+            Units::Si => 3,
+            Units::Us => 0,
+        };
         b.push_record([
             c.id.clone(),
             format::number(p.net_output_kw / 1000.0, 2),
-            strip(format::heat_rate(
-                p.heat_rate_kj_per_kwh,
-                p.heat_rate_btu_per_kwh,
-                units,
-            )),
+            format::number(
+                format::in_units(Q::HeatRate, p.heat_rate_kj_per_kwh, units),
+                0,
+            ),
             format!("{:.2}", p.thermal_efficiency * 100.0),
-            strip(format::temperature(p.exhaust_temperature_k, units)),
-            strip(format::mass_flow(p.air_flow_kg_per_s, units)),
-            format!(
-                "{:.3}",
-                match units {
-                    Units::Si => p.fuel_flow_kg_per_s,
-                    Units::Us => p.fuel_flow_kg_per_s / 0.453_592_37,
-                }
+            format::value(Q::Temperature, p.exhaust_temperature_k, units, 1),
+            format::value(Q::MassFlow, p.air_flow_kg_per_s, units, 2),
+            format::number(
+                format::in_units(Q::FuelMassFlow, p.fuel_flow_kg_per_s, units),
+                fuel_decimals,
             ),
         ]);
     }

@@ -1,0 +1,244 @@
+//! `brayfin check`: the normalised summary of a valid scenario, its
+//! warnings and a one-line verdict, in SI or US customary units (money in
+//! the scenario currency per internal unit: per GJ or per MMBtu of fuel, per
+//! t of CO2, per kW-yr of capacity).
+
+use crate::report::format::{self, Quantity as Q};
+use crate::report::model::Units;
+use crate::scenario::{
+    self, FuelComposition, GasModelSpec, LoadedScenario, PriceBasis, RateBasis, Timing,
+};
+use std::fmt::Write;
+
+/// What `check` prints for a scenario that loaded and solved.
+pub struct CheckView<'a> {
+    loaded: &'a LoadedScenario,
+    extra_warnings: Vec<String>,
+    units: Units,
+}
+
+impl<'a> CheckView<'a> {
+    /// The view of `loaded` with the warnings found beyond the scenario
+    /// alone (e.g. from solving the cycle), printed in `units`.
+    pub fn new(loaded: &'a LoadedScenario, extra_warnings: Vec<String>, units: Units) -> Self {
+        CheckView {
+            loaded,
+            extra_warnings,
+            units,
+        }
+    }
+
+    /// The text `check` prints.
+    pub fn table(&self) -> String {
+        report(self.loaded, self.extra_warnings.clone(), self.units)
+    }
+}
+
+/// The text `check` prints: the summary, then the warnings from the
+/// scenario alone followed by `extra_warnings` (e.g. from solving the
+/// cycle), then a one-line verdict.
+fn report(loaded: &LoadedScenario, extra_warnings: Vec<String>, units: Units) -> String {
+    let mut warnings = scenario::engineering_warnings(&loaded.scenario);
+    warnings.extend(extra_warnings);
+    let mut out = summary(loaded, units);
+    if warnings.is_empty() {
+        out.push_str("\nWarnings: none\n");
+    } else {
+        let _ = writeln!(out, "\nWarnings ({}):", warnings.len());
+        for w in &warnings {
+            let _ = writeln!(out, "  - {w}");
+        }
+    }
+    let _ = writeln!(
+        out,
+        "\n{}: valid; {}, {}, {}",
+        loaded.file_label,
+        count(loaded.scenario.candidates.len(), "candidate"),
+        count(
+            loaded.applied_defaults.len(),
+            "default applied|defaults applied"
+        ),
+        count(warnings.len(), "warning")
+    );
+    out
+}
+
+/// The normalised summary: every figure in `units` (K, kPa, m or °F, psia,
+/// ft; kW and h in both) and money in the scenario currency per GJ (SI) or
+/// per MMBtu (US) of fuel, per t, per kW-yr.
+fn summary(loaded: &LoadedScenario, units: Units) -> String {
+    let s = &loaded.scenario;
+    let cur = &s.meta.currency;
+    let mut out = String::new();
+    let _ = writeln!(out, "Scenario  {}", s.meta.title);
+    let _ = writeln!(
+        out,
+        "          for {}, by {}, dated {}; currency {cur}; baseline {}",
+        s.meta.prepared_for, s.meta.prepared_by, s.meta.date, s.meta.baseline
+    );
+    let _ = writeln!(out, "          file sha256 {}", loaded.sha256_hex);
+    let site = &s.site;
+    let elevation = site.elevation_m.map_or(String::new(), |z| {
+        format!(
+            " (ISO 2533 at {})",
+            format::with_unit(Q::Length, z, units, 1)
+        )
+    });
+    let _ = writeln!(
+        out,
+        "Site      {}ambient {}, {}{elevation}",
+        site.name
+            .as_ref()
+            .map_or(String::new(), |n| format!("{n}: ")),
+        format::with_unit(Q::Temperature, site.ambient_temperature_k, units, 2),
+        format::with_unit(Q::Pressure, site.ambient_pressure_kpa, units, 3)
+    );
+    let fuel = &s.fuel;
+    let basis = match fuel.price_basis {
+        PriceBasis::Hhv => "HHV",
+        PriceBasis::Lhv => "LHV",
+    };
+    let composition = match &fuel.composition {
+        FuelComposition::Named(name) => name.clone(),
+        FuelComposition::MoleFractions(x) => x
+            .iter()
+            .map(|(species, f)| format!("{species} {f}"))
+            .collect::<Vec<_>>()
+            .join(", "),
+        FuelComposition::HeatingValues {
+            lhv_kj_per_kg,
+            hhv_kj_per_kg,
+            co2_kg_per_gj_lhv,
+        } => format!(
+            "LHV {lhv_kj_per_kg} kJ/kg, HHV {hhv_kj_per_kg} kJ/kg, CO2 {co2_kg_per_gj_lhv} kg/GJ LHV"
+        ),
+    };
+    let _ = writeln!(out, "Fuel      {} ({composition})", fuel.name);
+    let path = if fuel.price_path.is_empty() {
+        String::new()
+    } else {
+        format!("; price path {} years", fuel.price_path.len())
+    };
+    let _ = writeln!(
+        out,
+        "          {}, escalating {}/yr{path}",
+        format::fuel_price(fuel.price_per_gj, cur, basis, units),
+        percent(fuel.escalation)
+    );
+    let e = &s.economics;
+    let _ = writeln!(
+        out,
+        "Economics operation from {}, {} years, discount {} {}, inflation {}, {}",
+        e.commercial_operation,
+        e.service_life_years,
+        percent(e.discount_rate),
+        match e.rate_basis {
+            RateBasis::Real => "real",
+            RateBasis::Nominal => "nominal",
+        },
+        percent(e.inflation),
+        match e.timing {
+            Timing::EndOfYear => "end-of-year",
+            Timing::MidYear => "mid-year",
+        }
+    );
+    let _ = writeln!(
+        out,
+        "          carbon {} {cur}/t escalating {}/yr; capacity value {} {cur}/kW-yr",
+        e.carbon_price_per_tonne,
+        percent(e.carbon_escalation),
+        e.capacity_value_per_kw_year
+    );
+    let op = &s.operation;
+    let profile = if op.dispatch.is_empty() {
+        "all at full load".to_string()
+    } else {
+        op.dispatch
+            .iter()
+            .map(|b| format!("{} h at {}", b.hours, percent(b.load_fraction)))
+            .collect::<Vec<_>>()
+            .join(", ")
+    };
+    let _ = writeln!(out, "Operation {} h/yr: {profile}", op.hours_per_year);
+    out.push_str(&candidate_table(loaded, units));
+    out
+}
+
+fn candidate_table(loaded: &LoadedScenario, units: Units) -> String {
+    let s = &loaded.scenario;
+    let mut rows = vec![[
+        "id".to_string(),
+        format!("capital {}", s.meta.currency),
+        "net kW".into(),
+        "gas".into(),
+        "PR".into(),
+        format!("TIT {}", format::unit(Q::Temperature, units)),
+        "eta_c".into(),
+        "eta_t".into(),
+        "parts".into(),
+    ]];
+    for c in &s.candidates {
+        let mut parts = Vec::new();
+        if let Some(r) = c.regenerator {
+            parts.push(format!("regenerator {}", percent(r.effectiveness)));
+        }
+        if c.intercooler.is_some() {
+            parts.push("intercooler".to_string());
+        }
+        if c.reheat.is_some() {
+            parts.push("reheat".to_string());
+        }
+        let basis = match c.efficiency_basis {
+            scenario::EfficiencyBasis::Isentropic => "",
+            scenario::EfficiencyBasis::Polytropic => " poly",
+        };
+        rows.push([
+            c.id.clone(),
+            c.capital_cost.to_string(),
+            format!("{:.0}", c.net_output_kw),
+            match c.gas_model {
+                GasModelSpec::Air => "air".into(),
+                GasModelSpec::Products => "products".into(),
+                GasModelSpec::ColdAir { .. } => "cold-air".into(),
+            },
+            format!("{}", c.pressure_ratio),
+            format::value(Q::Temperature, c.turbine_inlet_temperature_k, units, 1),
+            format!("{}{basis}", c.compressor_efficiency),
+            format!("{}{basis}", c.turbine_efficiency),
+            if parts.is_empty() {
+                "simple cycle".into()
+            } else {
+                parts.join(", ")
+            },
+        ]);
+    }
+    let widths: Vec<usize> = (0..9)
+        .map(|i| rows.iter().map(|r| r[i].chars().count()).max().unwrap_or(0))
+        .collect();
+    let mut out = String::from("Candidates\n");
+    for row in &rows {
+        let cells: Vec<String> = row
+            .iter()
+            .zip(&widths)
+            .map(|(cell, w)| format!("{cell:<w$}"))
+            .collect();
+        let _ = writeln!(out, "  {}", cells.join("  ").trim_end());
+    }
+    out
+}
+
+/// `n` with the singular or plural noun (`"x|ys"` gives both forms, a
+/// single word takes an `s`).
+fn count(n: usize, noun: &str) -> String {
+    let (one, many) = match noun.split_once('|') {
+        Some((one, many)) => (one.to_string(), many.to_string()),
+        None => (noun.to_string(), format!("{noun}s")),
+    };
+    format!("{n} {}", if n == 1 { one } else { many })
+}
+
+/// A fraction as a percentage with up to three decimals, e.g. `7 %`.
+fn percent(fraction: f64) -> String {
+    let p = (fraction * 100.0 * 1000.0).round() / 1000.0;
+    format!("{p} %")
+}

@@ -1,0 +1,355 @@
+//! `brayfin sweep`: one row per point and reported candidate (long format),
+//! written block by block as the sweep runs, so memory does not grow with
+//! the number of points.
+//!
+//! Columns: `point`, one column per varied key, named `KEY (UNIT)` with
+//! the unit its values are printed in (the unit the range was written in,
+//! else the key's internal unit), `candidate_id`, the heat rate
+//! (`heat_rate_kj_per_kwh`, or `heat_rate_btu_per_kwh` with US units),
+//! `lifecycle_cost`, `net_savings`, `break_even_premium` (money in the
+//! scenario currency, rounded to the cent; the last two empty for the
+//! baseline), and `error` (empty, or why the point could not be solved: its
+//! figures are then empty). JSON has the same fields per row (always SI,
+//! values of the keys under `values` as written, their units under
+//! `units`), money as decimal strings and empty values as `null`; the table
+//! prints whole currency units.
+
+use super::{csv_line, TextFormat};
+use crate::analysis::point::{Figures, PointError};
+use crate::analysis::sweep::{Axis, SweepBlock, SweepPlan};
+use crate::report::format::{self, grouped, Quantity as Q};
+use crate::report::model::Units;
+use crate::scenario::{LoadedScenario, PriceBasis};
+use crate::units::Kind;
+use rayon::prelude::*;
+use rust_decimal::prelude::FromPrimitive;
+use rust_decimal::Decimal;
+use serde_json::{json, Value};
+
+/// What `sweep` prints, piece by piece: [`SweepView::head`], then
+/// [`SweepView::block`] for each finished block, then [`SweepView::tail`].
+pub struct SweepView<'a> {
+    loaded: &'a LoadedScenario,
+    plan: &'a SweepPlan,
+    units: Units,
+    format: TextFormat,
+    /// Per axis: the unit its values are printed in.
+    units_of_keys: Vec<String>,
+    id_width: usize,
+    key_widths: Vec<usize>,
+}
+
+/// The internal unit of a key holding `kind`, as printed.
+fn internal_unit(kind: Option<Kind>, currency: &str) -> String {
+    match kind {
+        None => "internal unit".to_string(),
+        Some(kind) => match kind {
+            Kind::Temperature => "K".into(),
+            Kind::Pressure => "kPa".into(),
+            Kind::Power => "kW".into(),
+            Kind::Fraction => "fraction".into(),
+            Kind::Number => "number".into(),
+            Kind::HeatRate => "kJ/kWh".into(),
+            Kind::SpecificEnergy => "kJ/kg".into(),
+            Kind::Length => "m".into(),
+            Kind::Money => currency.to_string(),
+            Kind::FuelPrice => format!("{currency}/GJ"),
+            Kind::PricePerTonne => format!("{currency}/t"),
+            Kind::PricePerEnergy => format!("{currency}/MWh"),
+            Kind::PricePerCapacity => format!("{currency}/kW-yr"),
+            Kind::Duration => "h".into(),
+            Kind::EmissionFactor => "kg/GJ".into(),
+        },
+    }
+}
+
+/// The unit an axis's values are printed in; a fuel price also names its
+/// heating-value basis.
+fn axis_unit(axis: &Axis, loaded: &LoadedScenario) -> String {
+    let s = &loaded.scenario;
+    let mut unit = axis
+        .unit
+        .clone()
+        .unwrap_or_else(|| internal_unit(axis.kind, &s.meta.currency));
+    if axis.key == "fuel.price" {
+        unit.push_str(match s.fuel.price_basis {
+            PriceBasis::Hhv => " HHV",
+            PriceBasis::Lhv => " LHV",
+        });
+    }
+    unit
+}
+
+/// One output row: a point and a reported candidate.
+struct Row<'a> {
+    point: usize,
+    values: &'a [f64],
+    candidate_id: &'a str,
+    outcome: std::result::Result<&'a Figures, &'a PointError>,
+}
+
+fn cents(value: f64) -> String {
+    format!("{value:.2}")
+}
+
+fn whole(value: f64) -> String {
+    Decimal::from_f64(value).map_or_else(|| format!("{value:.0}"), |d| grouped(d, 0))
+}
+
+impl<'a> SweepView<'a> {
+    /// The view of `plan` on `loaded` in `format`, heat rate in `units`.
+    pub fn new(
+        loaded: &'a LoadedScenario,
+        plan: &'a SweepPlan,
+        units: Units,
+        format: TextFormat,
+    ) -> Self {
+        let units_of_keys: Vec<String> = plan.axes.iter().map(|a| axis_unit(a, loaded)).collect();
+        let id_width = loaded
+            .scenario
+            .candidates
+            .iter()
+            .map(|c| c.id.len())
+            .max()
+            .unwrap_or(0)
+            .max("candidate".len());
+        let key_widths = plan
+            .axes
+            .iter()
+            .zip(&units_of_keys)
+            .map(|(a, u)| a.key.chars().count().max(u.chars().count() + 2).max(12))
+            .collect();
+        SweepView {
+            loaded,
+            plan,
+            units,
+            format,
+            units_of_keys,
+            id_width,
+            key_widths,
+        }
+    }
+
+    fn keys(&self) -> Vec<&str> {
+        self.plan.axes.iter().map(|a| a.key.as_str()).collect()
+    }
+
+    /// Everything before the first row.
+    pub fn head(&self) -> String {
+        let scenario = &self.loaded.scenario;
+        let keys = self.keys();
+        match self.format {
+            TextFormat::Csv => {
+                let mut header = vec!["point".to_string()];
+                header.extend(
+                    keys.iter()
+                        .zip(&self.units_of_keys)
+                        .map(|(k, u)| format!("{k} ({u})")),
+                );
+                let heat_rate = match self.units {
+                    Units::Si => "heat_rate_kj_per_kwh",
+                    Units::Us => "heat_rate_btu_per_kwh",
+                };
+                header.extend(
+                    [
+                        "candidate_id",
+                        heat_rate,
+                        "lifecycle_cost",
+                        "net_savings",
+                        "break_even_premium",
+                        "error",
+                    ]
+                    .map(String::from),
+                );
+                csv_line(&header)
+            }
+            TextFormat::Json => {
+                let head = json!({
+                    "title": scenario.meta.title,
+                    "baseline": scenario.meta.baseline,
+                    "currency": scenario.meta.currency,
+                    "file": self.loaded.file_label,
+                    "sha256": self.loaded.sha256_hex,
+                });
+                let units: serde_json::Map<String, Value> = keys
+                    .iter()
+                    .zip(&self.units_of_keys)
+                    .map(|(k, u)| ((*k).to_string(), json!(u)))
+                    .collect();
+                format!(
+                    "{{\n  \"scenario\": {head},\n  \"keys\": {},\n  \"units\": {},\n  \"points\": {},\n  \"rows\": [",
+                    json!(keys),
+                    Value::Object(units),
+                    self.plan.points()
+                )
+            }
+            TextFormat::Table => {
+                let mut out = format!(
+                    "{}\nSweep of {} ({} points); money in {}, lifecycle cost present value\n",
+                    scenario.meta.title,
+                    keys.join(" × "),
+                    self.plan.points(),
+                    scenario.meta.currency
+                );
+                let mut names = format!("{:>7}", "");
+                let mut line = format!("{:>7}", "point");
+                for ((k, u), w) in keys.iter().zip(&self.units_of_keys).zip(&self.key_widths) {
+                    names.push_str(&format!("  {k:>w$}"));
+                    line.push_str(&format!("  {:>w$}", format!("({u})")));
+                }
+                line.push_str(&format!(
+                    "  {:<iw$}  {:>11}  {:>15}  {:>13}  {:>13}",
+                    "candidate",
+                    format!("HR {}", format::unit(Q::HeatRate, self.units)),
+                    "lifecycle cost",
+                    "net savings",
+                    "break-even",
+                    iw = self.id_width
+                ));
+                out.push_str(names.trim_end());
+                out.push('\n');
+                out.push_str(&line);
+                out.push('\n');
+                out
+            }
+        }
+    }
+
+    /// The rows of a finished block, formatted in parallel, in point order.
+    pub fn block(&self, block: &SweepBlock) -> String {
+        let texts: Vec<String> = (0..block.len())
+            .into_par_iter()
+            .map(|j| self.point_text(block, j))
+            .collect();
+        texts.concat()
+    }
+
+    /// Everything after the last row.
+    pub fn tail(&self) -> String {
+        match self.format {
+            TextFormat::Json => "\n  ]\n}\n".to_string(),
+            TextFormat::Csv | TextFormat::Table => String::new(),
+        }
+    }
+
+    fn point_text(&self, block: &SweepBlock, j: usize) -> String {
+        let point = block.first_point + j;
+        let mut values = [0.0; 2];
+        let values = &mut values[..self.plan.axes.len()];
+        let mut rest = point;
+        for (axis, value) in self.plan.axes.iter().zip(values.iter_mut()).rev() {
+            *value = axis.written_value(rest % axis.count);
+            rest /= axis.count;
+        }
+        let keys = self.keys();
+        let mut text = String::new();
+        for (r, &i) in self.plan.reported.iter().enumerate() {
+            let row = Row {
+                point,
+                values,
+                candidate_id: &self.loaded.scenario.candidates[i].id,
+                outcome: block.point(j).map(|f| &f[i]),
+            };
+            match self.format {
+                TextFormat::Csv => text.push_str(&self.csv_row(&row)),
+                TextFormat::Json => {
+                    let comma = if point == 0 && r == 0 { "" } else { "," };
+                    text.push_str(&format!("{comma}\n    {}", json_row(&row, &keys)));
+                }
+                TextFormat::Table => text.push_str(&self.table_row(&row)),
+            }
+        }
+        text
+    }
+
+    fn heat_rate(&self, kj_per_kwh: f64) -> f64 {
+        format::in_units(Q::HeatRate, kj_per_kwh, self.units)
+    }
+
+    fn csv_row(&self, row: &Row) -> String {
+        let mut fields: Vec<String> = vec![row.point.to_string()];
+        fields.extend(row.values.iter().map(|v| v.to_string()));
+        fields.push(row.candidate_id.to_string());
+        match row.outcome {
+            Ok(f) => {
+                let versus = f.versus_baseline;
+                fields.push(self.heat_rate(f.heat_rate_kj_per_kwh).to_string());
+                fields.push(cents(f.lifecycle_cost));
+                fields.push(versus.map_or_else(String::new, |v| cents(v.net_savings)));
+                fields.push(
+                    versus
+                        .and_then(|v| v.break_even_premium)
+                        .map_or_else(String::new, cents),
+                );
+                fields.push(String::new());
+            }
+            Err(e) => {
+                fields.extend([String::new(), String::new(), String::new(), String::new()]);
+                fields.push(e.to_string());
+            }
+        }
+        csv_line(&fields)
+    }
+
+    fn table_row(&self, row: &Row) -> String {
+        let mut line = format!("{:>7}", row.point);
+        for (v, w) in row.values.iter().zip(&self.key_widths) {
+            line.push_str(&format!("  {:>w$}", v.to_string()));
+        }
+        line.push_str(&format!("  {:<w$}", row.candidate_id, w = self.id_width));
+        match row.outcome {
+            Ok(f) => {
+                let versus = f.versus_baseline;
+                let or_na = |v: Option<f64>| v.map_or_else(|| "n/a".to_string(), whole);
+                line.push_str(&format!(
+                    "  {:>11.0}  {:>15}  {:>13}  {:>13}",
+                    self.heat_rate(f.heat_rate_kj_per_kwh),
+                    whole(f.lifecycle_cost),
+                    or_na(versus.map(|v| v.net_savings)),
+                    or_na(versus.and_then(|v| v.break_even_premium)),
+                ));
+            }
+            Err(e) => line.push_str(&format!("  not solved: {e}")),
+        }
+        line.push('\n');
+        line
+    }
+}
+
+fn json_row(row: &Row, keys: &[&str]) -> Value {
+    let values: serde_json::Map<String, Value> = keys
+        .iter()
+        .zip(row.values)
+        .map(|(k, v)| ((*k).to_string(), json!(v)))
+        .collect();
+    let mut object = json!({
+        "point": row.point,
+        "values": values,
+        "candidate_id": row.candidate_id,
+    });
+    let (heat_rate, cost, savings, premium, error) = match row.outcome {
+        Ok(f) => (
+            json!(f.heat_rate_kj_per_kwh),
+            json!(cents(f.lifecycle_cost)),
+            json!(f.versus_baseline.map(|v| cents(v.net_savings))),
+            json!(f
+                .versus_baseline
+                .and_then(|v| v.break_even_premium)
+                .map(cents)),
+            Value::Null,
+        ),
+        Err(e) => (
+            Value::Null,
+            Value::Null,
+            Value::Null,
+            Value::Null,
+            json!(e.to_string()),
+        ),
+    };
+    object["heat_rate_kj_per_kwh"] = heat_rate;
+    object["lifecycle_cost"] = cost;
+    object["net_savings"] = savings;
+    object["break_even_premium"] = premium;
+    object["error"] = error;
+    object
+}

@@ -206,6 +206,18 @@ impl LedgerSheet<'_> {
                         &s.money.formula,
                     )?;
                 }
+                RowKind::Settlement => {
+                    // Guarantee damages (negative) or bonus at the acceptance
+                    // test: a settled contract amount, entered as a constant
+                    // in the capital column (it is capital, not a stream).
+                    self.single_date_row(&mut cells, r, row, "guarantee settlement")?;
+                    cells.number(
+                        r,
+                        col::CAPITAL,
+                        f(row.guarantee_settlement),
+                        &s.money.computed,
+                    )?;
+                }
                 RowKind::Operation => {
                     let fraction = periods
                         .next()

@@ -67,28 +67,79 @@ fn ledger_rows(outcome: &CandidateOutcome) -> Vec<LedgerRowView> {
         .collect()
 }
 
-/// Cumulative discounted savings against the baseline at the end of each
-/// row (rows are matched by position: both ledgers share one calendar).
+/// When a ledger row's cash counts on the savings curve, and which rows of
+/// two ledgers are the same event: capital payments by payment date,
+/// operating rows by their period, the residual credit at the end of life.
+/// Ordered by time, then capital before operation before residual.
+fn event_key(row: &crate::finance::LedgerRow) -> (u8, chrono::NaiveDate, chrono::NaiveDate) {
+    let rank = match row.kind {
+        RowKind::Capital => 0,
+        RowKind::Operation => 1,
+        RowKind::Residual => 2,
+    };
+    (rank, row.period_start, row.period_end)
+}
+
+/// Cumulative discounted savings against the baseline, the rows of the two
+/// ledgers paired by date (two candidates may pay their capital on
+/// different dates and in a different number of instalments). Points:
+/// after each capital payment date (at its cash time, before commercial
+/// operation), at commercial operation (all capital counted, the start of
+/// the payback count), at the end of each operating period, and after the
+/// residual credit. Between points the savings accrue evenly, as
+/// `finance::payback` assumes, so the curve crosses zero at the discounted
+/// payback. The rows' present values are summed as the ledger prints them
+/// (rounded to the minor unit), so the curve reconciles with the printed
+/// ledger to the cent.
 fn cumulative(outcome: &CandidateOutcome, baseline: &CandidateOutcome) -> Vec<CumulativePoint> {
-    let mut running = Decimal::ZERO;
-    outcome
+    use std::collections::BTreeMap;
+    // Key → (x position in years, year label, baseline PV − candidate PV).
+    type Event = (f64, i32, Decimal);
+    let mut events: BTreeMap<(u8, chrono::NaiveDate, chrono::NaiveDate), Event> = BTreeMap::new();
+    let rows = outcome
         .ledger
         .rows
         .iter()
-        .zip(baseline.ledger.rows.iter())
-        .map(|(c, b)| {
-            running += b.present_value - c.present_value;
-            CumulativePoint {
-                years_from_start: if c.kind == RowKind::Capital {
-                    c.cash_time_years
-                } else {
-                    c.time_end_years
-                },
-                year: c.year,
-                savings: money(running),
-            }
-        })
-        .collect()
+        .map(|r| (r, -money(r.present_value)))
+        .chain(
+            baseline
+                .ledger
+                .rows
+                .iter()
+                .map(|r| (r, money(r.present_value))),
+        );
+    for (row, signed) in rows {
+        let x = match row.kind {
+            RowKind::Capital => row.cash_time_years.min(0.0),
+            RowKind::Operation | RowKind::Residual => row.time_end_years,
+        };
+        let entry = events
+            .entry(event_key(row))
+            .or_insert((x, row.year, Decimal::ZERO));
+        entry.2 += signed;
+    }
+    let mut running = Decimal::ZERO;
+    let mut points = Vec::with_capacity(events.len() + 1);
+    let mut opened = false;
+    for ((rank, start, end), (x, year, delta)) in events {
+        if rank > 0 && !opened {
+            opened = true;
+            points.push(CumulativePoint {
+                years_from_start: 0.0,
+                year,
+                date: start.to_string(),
+                savings: running,
+            });
+        }
+        running += delta;
+        points.push(CumulativePoint {
+            years_from_start: x,
+            year,
+            date: end.to_string(),
+            savings: running,
+        });
+    }
+    points
 }
 
 /// Break-even premium of each candidate against first-year fuel price, from

@@ -115,8 +115,8 @@ pub struct CandidateView {
     pub verdict: Verdict,
     /// Present value of the lifecycle cost by stream.
     pub cost_breakdown: CostBreakdown,
-    /// Cumulative discounted savings against the baseline at the end of each
-    /// ledger year (empty for the baseline).
+    /// Cumulative discounted savings against the baseline, the two ledgers
+    /// paired by date (empty for the baseline).
     pub cumulative_savings: Vec<CumulativePoint>,
     /// The year-by-year ledger.
     pub ledger: Vec<LedgerRowView>,
@@ -285,10 +285,16 @@ pub struct CostBreakdown {
 /// One point of cumulative discounted savings.
 #[derive(Debug, Clone, Serialize)]
 pub struct CumulativePoint {
-    /// Years since commercial operation at the end of the row.
+    /// Years since commercial operation: the cash time of a capital
+    /// payment (zero or negative), else the end of the period.
     pub years_from_start: f64,
     /// Calendar year label of the row.
     pub year: i32,
+    /// Date the cumulative stands at (ISO 8601): a capital payment date,
+    /// the commercial operation date, the last day of an operating period
+    /// or the residual-value date. It counts every ledger row of both
+    /// candidates whose period ends on or before it.
+    pub date: String,
     /// Cumulative discounted savings against the baseline.
     pub savings: Decimal,
 }

@@ -91,6 +91,7 @@ fn linear_savings(life: u32, premium: i64, per_year: i64) -> Vec<CumulativePoint
         .map(|i| CumulativePoint {
             years_from_start: f64::from(i),
             year: 2027 + i as i32,
+            date: format!("{}-12-31", 2026 + i),
             savings: dec(-premium + per_year * i64::from(i)),
         })
         .collect()

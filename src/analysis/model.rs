@@ -266,10 +266,16 @@ fn candidate_view(loaded: &LoadedScenario, study: &Study, index: usize) -> Candi
             net_savings_vs_baseline: savings.map(|s| money(s.net_savings)),
             break_even_premium: break_even,
             premium_asked: asked,
+            // A ratio to the added investment means something only when
+            // there is one: a bid cheaper to buy than the baseline has no
+            // added investment, and its ratio (negative) is left out.
             savings_to_investment_ratio: savings
+                .filter(|s| s.premium_asked > Decimal::ZERO)
                 .and_then(|s| s.savings_to_investment)
                 .map(crate::finance::Money::to_f64),
-            adjusted_irr: savings.and_then(|s| s.adjusted_irr),
+            adjusted_irr: savings
+                .filter(|s| s.premium_asked > Decimal::ZERO)
+                .and_then(|s| s.adjusted_irr),
             simple_payback: versus.map_or(PaybackView::NotApplicable, |v| {
                 payback_view(v.simple_payback)
             }),
@@ -378,12 +384,7 @@ fn sensitivity_bars(swings: &[Swing], scenario: &Scenario) -> Vec<SensitivityBar
             s.deltas
                 .iter()
                 // A key that belongs to one candidate moves only that one.
-                .filter(move |(id, _, _)| {
-                    s.key
-                        .strip_prefix("candidate[")
-                        .and_then(|rest| rest.split_once(']'))
-                        .is_none_or(|(owner, _)| owner == id)
-                })
+                .filter(move |(id, _, _)| s.moves(id))
                 .map(move |(id, low, high)| SensitivityBar {
                     candidate_id: id.clone(),
                     key: s.key.clone(),
@@ -395,6 +396,48 @@ fn sensitivity_bars(swings: &[Swing], scenario: &Scenario) -> Vec<SensitivityBar
                 })
         })
         .collect()
+}
+
+/// The cheapest other candidate to own, baseline aside, whose break-even
+/// premium covers the premium it asks.
+fn runner_up(candidates: &[CandidateView], preferred_id: &str) -> Option<RunnerUp> {
+    candidates
+        .iter()
+        .filter(|c| {
+            !c.is_baseline && c.id != preferred_id && c.verdict.kind == VerdictKind::WorthPremium
+        })
+        .min_by_key(|c| c.economics.lifecycle_cost)
+        .map(|c| RunnerUp {
+            id: c.id.clone(),
+            label: c.label.clone(),
+            net_savings: c.economics.net_savings_vs_baseline.unwrap_or_default(),
+            headroom: c.verdict.margin,
+            discounted_payback: c.economics.discounted_payback,
+        })
+}
+
+/// The inputs that move the recommended candidate's net savings most,
+/// largest one-sided change first; when the baseline itself is recommended,
+/// the largest change of any candidate.
+fn key_assumptions(
+    swings: &[Swing],
+    decision: &Decision,
+    scenario: &Scenario,
+) -> Vec<KeyAssumption> {
+    let of = (!decision.preferred_is_baseline).then_some(decision.preferred_id.as_str());
+    let mut rows: Vec<KeyAssumption> = swings
+        .iter()
+        .map(|s| KeyAssumption {
+            key: s.key.clone(),
+            label: key_label(&s.key),
+            base_value: show(&s.key, s.base, scenario),
+            swing: money(of.map_or_else(|| s.magnitude(), |id| s.magnitude_for(id))),
+            candidate_id: of.map(str::to_string),
+        })
+        .filter(|k| !k.swing.is_zero())
+        .collect();
+    rows.sort_by_key(|k| std::cmp::Reverse(k.swing));
+    rows
 }
 
 /// Build the report model of a loaded scenario.
@@ -418,17 +461,11 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
             .economics
             .net_savings_vs_baseline
             .unwrap_or_default(),
+        discounted_payback: preferred.economics.discounted_payback,
+        runner_up: runner_up(&candidates, &preferred.id),
     };
     let swings = rank(loaded, &study)?;
-    let key_assumptions = swings
-        .iter()
-        .map(|s| KeyAssumption {
-            key: s.key.clone(),
-            label: key_label(&s.key),
-            base_value: show(&s.key, s.base, scenario),
-            swing: money(s.magnitude()),
-        })
-        .collect();
+    let key_assumptions = key_assumptions(&swings, &decision, scenario);
     let mut warnings = engineering_warnings(scenario);
     warnings.extend(cycle_warnings(loaded, &study));
     let e = &scenario.economics;
@@ -500,6 +537,7 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
                 .any(|o| !o.ledger.summary.present_value.replacement.is_zero()),
             energy_value_per_mwh: money(e.energy_value_per_mwh),
             capacity_value_per_kw_year: money(e.capacity_value_per_kw_year),
+            present_value_date: e.commercial_operation.to_string(),
         },
         fuel_price_curves: fuel_price_curves(loaded, &study),
         sensitivity: if options.sensitivity {

@@ -29,8 +29,9 @@ pub struct Model {
     pub decision: Decision,
     /// Every candidate, baseline first.
     pub candidates: Vec<CandidateView>,
-    /// The inputs that move the answer most (from the sensitivity ranking),
-    /// largest first; the briefing page shows the first three.
+    /// The inputs that move the recommended candidate's net savings most
+    /// (from the sensitivity ranking), largest first; the briefing page
+    /// shows the first three.
     pub key_assumptions: Vec<KeyAssumption>,
     /// Every input with its unit and stated source.
     pub inputs: Vec<InputView>,
@@ -92,6 +93,28 @@ pub struct Decision {
     pub premium_asked: Decimal,
     /// Net savings of the preferred candidate against the baseline.
     pub net_savings: Decimal,
+    /// Discounted payback of the preferred candidate (not applicable for
+    /// the baseline).
+    pub discounted_payback: PaybackView,
+    /// The next cheapest candidate to own, other than the baseline, that
+    /// also covers the premium its bid asks: what the recommendation is
+    /// weighed against. `None` when no other bid covers its premium.
+    pub runner_up: Option<RunnerUp>,
+}
+
+/// Another bid that covers its premium, as the recommendation weighs it.
+#[derive(Debug, Clone, Serialize)]
+pub struct RunnerUp {
+    /// Candidate id.
+    pub id: String,
+    /// Its label.
+    pub label: String,
+    /// Its net savings against the baseline.
+    pub net_savings: Decimal,
+    /// Break-even premium minus premium asked (its headroom).
+    pub headroom: Decimal,
+    /// Its discounted payback.
+    pub discounted_payback: PaybackView,
 }
 
 /// One candidate: performance, economics, verdict, ledger.
@@ -347,8 +370,13 @@ pub struct KeyAssumption {
     pub label: String,
     /// Base value as shown, with unit.
     pub base_value: String,
-    /// Largest swing in net savings of any candidate over its range.
+    /// Largest one-sided change in net savings (at the low or the high end
+    /// of the input's range, whichever moves more) of the candidate
+    /// `candidate_id`; of any candidate when that is `None`.
     pub swing: Decimal,
+    /// The candidate whose net savings `swing` is: the recommended one, or
+    /// `None` when the baseline itself is recommended.
+    pub candidate_id: Option<String>,
 }
 
 /// One input line of the assumptions section.
@@ -403,6 +431,9 @@ pub struct MethodView {
     /// Value of one kW of capacity bought elsewhere, per kW-year
     /// (`economics.capacity_value`).
     pub capacity_value_per_kw_year: Decimal,
+    /// The date every present value is discounted to (ISO 8601): the
+    /// commercial operation date.
+    pub present_value_date: String,
 }
 
 /// Break-even premium against fuel price.

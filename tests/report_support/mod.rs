@@ -297,6 +297,8 @@ pub fn model(with_sensitivity: bool, with_risk: bool) -> Model {
             break_even_premium: dec(9_600_000),
             premium_asked: dec(4_000_000),
             net_savings: dec(5_600_000),
+            discounted_payback: PaybackView::Years(4.2),
+            runner_up: None,
         },
         candidates,
         key_assumptions: if with_sensitivity {
@@ -306,24 +308,28 @@ pub fn model(with_sensitivity: bool, with_risk: bool) -> Model {
                     label: "Fuel price".into(),
                     base_value: "5.20 USD/GJ (HHV)".into(),
                     swing: dec(5_600_000),
+                    candidate_id: Some("hx".into()),
                 },
                 KeyAssumption {
                     key: "operation.hours_per_year".into(),
                     label: "Operating hours".into(),
                     base_value: "6500 h".into(),
                     swing: dec(2_800_000),
+                    candidate_id: Some("hx".into()),
                 },
                 KeyAssumption {
                     key: "economics.discount_rate".into(),
                     label: "Discount rate".into(),
                     base_value: "7 %".into(),
                     swing: dec(1_866_667),
+                    candidate_id: Some("hx".into()),
                 },
                 KeyAssumption {
                     key: "candidate.turbine_efficiency".into(),
                     label: "Turbine efficiency".into(),
                     base_value: "0.89".into(),
                     swing: dec(900_000),
+                    candidate_id: Some("hx".into()),
                 },
             ]
         } else {
@@ -357,6 +363,7 @@ pub fn model(with_sensitivity: bool, with_risk: bool) -> Model {
             levelled: false,
             energy_value_per_mwh: dec(0),
             capacity_value_per_kw_year: dec(0),
+            present_value_date: "2027-01-01".into(),
         },
         fuel_price_curves: FuelPriceCurves {
             scenario_price_per_gj: Decimal::new(520, 2),

@@ -10,12 +10,16 @@ use crate::report::pdf::context::{short_money, unit_price, with_candidate};
 use crate::report::pdf::document::{line_height_mm, Composer, BODY_PT};
 use crate::report::pdf::fonts::{Face, MM_PER_PT};
 use crate::report::pdf::table::{draw_table, Column, TableStyle};
-use crate::report::pdf::text::wrap;
+use crate::report::pdf::text::{wrap, wrap_at_most};
 use crate::Result;
 
 /// Candidates per key-figures table; more are set in further tables so
 /// columns stay readable.
 const CANDIDATES_PER_TABLE: usize = 4;
+
+/// Lines of the title on the briefing page; a longer title is cut with an
+/// ellipsis.
+pub const TITLE_LINES: usize = 3;
 
 /// The key figures of `c`, in the order of [`figure_names`]. Money is
 /// rounded to three significant figures (the ledger keeps the cents).
@@ -85,7 +89,9 @@ fn title_block(ctx: &Ctx, composer: &mut Composer) {
         colour: Colour::grey(0.35),
         vertical: false,
     });
-    for line in wrap(&meta.title, Face::Bold, 18.0, content.width_mm) {
+    // A title longer than three lines is cut with an ellipsis here (the
+    // running header shows one line of it; the PDF metadata keeps it whole).
+    for line in wrap_at_most(&meta.title, Face::Bold, 18.0, content.width_mm, TITLE_LINES) {
         let rect = composer.reserve(line_height_mm(18.0));
         composer.push(Mark::Label {
             at: Pt::new(rect.x_mm, rect.top_mm() - 18.0 * MM_PER_PT),

@@ -9,7 +9,7 @@ mod report_support;
 use brayfin::report::charts::breakdown::breakdown_chart;
 use brayfin::report::charts::fuel_price::fuel_price_chart;
 use brayfin::report::charts::geometry::Colour;
-use brayfin::report::charts::geometry::{Mark, MarkerShape, Pt, Rect};
+use brayfin::report::charts::geometry::{Anchor, Mark, MarkerShape, Pt, Rect};
 use brayfin::report::charts::histogram::histogram_chart;
 use brayfin::report::charts::savings::savings_chart;
 use brayfin::report::charts::scale::money_f64;
@@ -337,4 +337,56 @@ fn output_replacement_is_a_category_only_when_charged() {
     assert!((segment.rect.top_mm() - y.map(own + money_f64(b.replacement))).abs() < 1e-2);
     // The others are charged nothing and draw no replacement segment.
     assert_eq!(chart.segments.iter().filter(|s| s.stream == 6).count(), 1);
+}
+
+#[test]
+fn tornado_value_labels_stay_inside_the_plot_even_with_long_values() {
+    // Values as wide as a fuel price with its unit and basis, on the
+    // longest bars: their labels must not run past the frame.
+    let mut model = report_support::model(true, false);
+    for b in &mut model.sensitivity {
+        b.low_value = "USD 2.600/GJ HHV".into();
+        b.high_value = "USD 6.273/GJ HHV".into();
+    }
+    let bars: Vec<_> = model
+        .sensitivity
+        .iter()
+        .filter(|b| b.candidate_id == "hx")
+        .collect();
+    let chart = tornado_chart(&bars, "Bid B", "USD", &labels(&model), area()).expect("a chart");
+    let plot = chart.frame.plot;
+    let mut checked = 0;
+    for mark in &chart.marks {
+        let Mark::Label {
+            at,
+            text,
+            size_pt,
+            anchor,
+            ..
+        } = mark
+        else {
+            continue;
+        };
+        if !text.contains("USD 2.600") && !text.contains("USD 6.273") {
+            continue;
+        }
+        let width = brayfin::report::pdf::fonts::text_width_mm(
+            text,
+            brayfin::report::pdf::fonts::Face::Regular,
+            *size_pt,
+        );
+        let (left, right) = match anchor {
+            Anchor::Left => (at.x_mm, at.x_mm + width),
+            Anchor::Right => (at.x_mm - width, at.x_mm),
+            Anchor::Centre => (at.x_mm - width / 2.0, at.x_mm + width / 2.0),
+        };
+        assert!(
+            left >= plot.x_mm - 1e-3 && right <= plot.right_mm() + 1e-3,
+            "{text:?} spans {left}..{right} mm, plot {}..{} mm",
+            plot.x_mm,
+            plot.right_mm()
+        );
+        checked += 1;
+    }
+    assert_eq!(checked, 2 * bars.len());
 }

@@ -388,6 +388,7 @@ fn sensitivity_bars(swings: &[Swing], scenario: &Scenario) -> Vec<SensitivityBar
                 .map(move |(id, low, high)| SensitivityBar {
                     candidate_id: id.clone(),
                     key: s.key.clone(),
+                    label: key_label(&s.key),
                     low_value: show(&s.key, s.low, scenario),
                     high_value: show(&s.key, s.high, scenario),
                     default_range: s.source == RangeSource::DefaultTwentyPercent,

@@ -461,11 +461,15 @@ pub struct SensitivityBar {
     pub candidate_id: String,
     /// Dotted scenario key.
     pub key: String,
-    /// Low and high values of the input, as shown with unit.
+    /// Plain-words name of the input (as on the briefing page).
+    pub label: String,
+    /// Low value of the input, as shown with unit.
     pub low_value: String,
     /// High value of the input, as shown with unit.
     pub high_value: String,
-    /// Whether the range is the default ±20 % (not stated in the scenario).
+    /// Whether the range is the default ±20 % (neither a swing nor a
+    /// distribution stated in the scenario; an input with a distribution
+    /// and no swing is swung over its 10th to 90th percentiles).
     pub default_range: bool,
     /// Change in net savings at the low value, against the base case.
     pub delta_at_low: Decimal,

@@ -234,6 +234,7 @@ pub fn model(with_sensitivity: bool, with_risk: bool) -> Model {
             ["hx", "regen"].into_iter().map(move |id| SensitivityBar {
                 candidate_id: id.into(),
                 key: (*key).into(),
+                label: key.replace(['.', '_'], " "),
                 low_value: format!("low {i}"),
                 high_value: format!("high {i}"),
                 default_range: i == 2,

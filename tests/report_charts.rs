@@ -390,3 +390,41 @@ fn tornado_value_labels_stay_inside_the_plot_even_with_long_values() {
     }
     assert_eq!(checked, 2 * bars.len());
 }
+
+#[test]
+fn heat_addition_is_drawn_as_a_constant_pressure_curve() {
+    // Along an isobar of an ideal gas with constant c_p, T ds = c_p dT, so
+    // T = T_a (T_b/T_a)^((s - s_a)/(s_b - s_a)) between two states (Gibbs
+    // relation; e.g. Cengel & Boles, Thermodynamics, ch. 7, from memory).
+    let model = report_support::model(false, false);
+    let c = &model.candidates[1];
+    let states = &c.cycle.states;
+    let two = states.iter().find(|s| s.id == "2").expect("state 2");
+    let three = states.iter().find(|s| s.id == "3").expect("state 3");
+    let points = brayfin::report::charts::ts::segment(two, three);
+    assert!(points.len() > 2, "a curve, not a chord");
+    for (s, t) in &points {
+        let f =
+            (s - two.entropy_kj_per_kg_k) / (three.entropy_kj_per_kg_k - two.entropy_kj_per_kg_k);
+        let expected = two.temperature_k * (three.temperature_k / two.temperature_k).powf(f);
+        assert!((t - expected).abs() < 1e-9 * expected, "{s}, {t}");
+        // The isobar bows below the chord (T is convex in s).
+        let chord = two.temperature_k + f * (three.temperature_k - two.temperature_k);
+        assert!(*t <= chord + 1e-9);
+    }
+    // Compression changes the pressure many times over: a straight line.
+    let one = states.iter().find(|s| s.id == "1").expect("state 1");
+    assert_eq!(brayfin::report::charts::ts::segment(one, two).len(), 2);
+    // The drawn path carries the curve's midpoint.
+    let chart =
+        ts_chart(c, model.meta.units, &labels(&model), area(), Colour::BLACK).expect("a chart");
+    let (s_mid, t_mid) = points[points.len() / 2];
+    let mid = Pt::new(chart.frame.x.map(s_mid), chart.frame.y.map(t_mid));
+    let on_path = chart.marks.iter().any(|m| match m {
+        Mark::Polyline { points, .. } => points
+            .iter()
+            .any(|p| (p.x_mm - mid.x_mm).abs() < 1e-3 && (p.y_mm - mid.y_mm).abs() < 1e-3),
+        _ => false,
+    });
+    assert!(on_path, "the curve's midpoint is on the drawn path");
+}

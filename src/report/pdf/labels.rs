@@ -134,6 +134,8 @@ labels! {
     energy_residual,
     fuel_air_ratio,
     levelized_cost,
+    appendix,
+    appendix_note,
     assumptions,
     inputs,
     input_key,

@@ -7,7 +7,7 @@
 use super::Ctx;
 use crate::report::model::{InputView, Model};
 use crate::report::pdf::context::money;
-use crate::report::pdf::document::{Composer, Orientation, BODY_PT};
+use crate::report::pdf::document::{Composer, BODY_PT};
 use crate::report::pdf::fonts::Face;
 use crate::report::pdf::table::{draw_table, Column, TableStyle};
 
@@ -82,7 +82,6 @@ fn capital_payments(model: &Model, id: &str) -> Option<String> {
 pub fn assumptions(ctx: &Ctx, composer: &mut Composer) {
     let model = ctx.model;
     let l = ctx.labels;
-    composer.new_page(Orientation::Portrait);
     composer.heading(&l.assumptions, 1, 40.0);
 
     composer.heading(&l.inputs, 2, 20.0);

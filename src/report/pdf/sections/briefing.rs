@@ -189,7 +189,7 @@ pub fn briefing(ctx: &Ctx, composer: &mut Composer) -> Result<()> {
             })
             .collect();
         let style = TableStyle {
-            size_pt: 8.5,
+            size_pt: 8.0,
             max_lines: 2,
             bold_first_column: true,
             header: true,
@@ -198,7 +198,9 @@ pub fn briefing(ctx: &Ctx, composer: &mut Composer) -> Result<()> {
     }
 
     composer.heading(&l.verdicts, 2, 12.0);
-    for c in &model.candidates {
+    // The baseline needs no verdict: the key figures name it and every
+    // other verdict is against it.
+    for c in model.candidates.iter().filter(|c| !c.is_baseline) {
         let text = ctx
             .wording
             .render("verdict.j2", &with_candidate(model, c))?;

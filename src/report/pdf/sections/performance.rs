@@ -4,7 +4,8 @@
 use super::{pdf_units, Ctx};
 use crate::report::format;
 use crate::report::model::{CandidateView, Units};
-use crate::report::pdf::document::{Composer, Orientation};
+use crate::report::pdf::document::Composer;
+use crate::report::pdf::fonts::Face;
 use crate::report::pdf::table::{draw_table, Column, TableStyle};
 
 /// Specific energy in kJ/kg with its unit.
@@ -106,7 +107,10 @@ fn state_rows(c: &CandidateView, units: Units) -> Vec<Vec<String>> {
 /// Lay out the performance section.
 pub fn performance(ctx: &Ctx, composer: &mut Composer) {
     let l = ctx.labels;
-    composer.new_page(Orientation::Portrait);
+    // The appendix flows on under the cautions that end the briefing (a
+    // page of its own would leave the cautions nearly alone on theirs).
+    composer.heading(&l.appendix, 1, 80.0);
+    composer.paragraph(&l.appendix_note, 9.0, Face::Regular, 0.0);
     composer.heading(&l.performance, 1, 60.0);
     for c in &ctx.model.candidates {
         composer.heading(&c.label, 2, 50.0);

@@ -428,3 +428,42 @@ fn heat_addition_is_drawn_as_a_constant_pressure_curve() {
     });
     assert!(on_path, "the curve's midpoint is on the drawn path");
 }
+
+#[test]
+fn stream_difference_bars_run_from_zero_to_each_difference() {
+    use brayfin::report::charts::difference::{difference_chart, stream_values};
+    let model = report_support::model(false, false);
+    let chart = difference_chart(&model, &labels(&model), area()).expect("a chart");
+    let x = chart.chart.frame.x;
+    let zero = x.map(0.0);
+    let bids: Vec<_> = model.candidates.iter().filter(|c| !c.is_baseline).collect();
+    let mut drawn = 0;
+    for c in &bids {
+        let d = c.cost_difference.as_ref().expect("a difference");
+        for (stream, value) in stream_values(d).into_iter().enumerate() {
+            // A stream where no candidate differs is left out.
+            let shown = bids.iter().any(|o| {
+                stream_values(o.cost_difference.as_ref().expect("a difference"))[stream] != 0.0
+            });
+            let bar = chart
+                .bars
+                .iter()
+                .find(|b| b.candidate_id == c.id && b.stream == stream);
+            assert_eq!(bar.is_some(), shown, "{} stream {stream}", c.id);
+            if let Some(bar) = bar {
+                assert_eq!(bar.value, value);
+                let end = x.map(value);
+                let (a, b) = (bar.rect.x_mm, bar.rect.right_mm());
+                assert!((a - zero.min(end)).abs() < 1e-3 && (b - zero.max(end)).abs() < 1e-3);
+                drawn += 1;
+            }
+        }
+    }
+    // Capital, fuel, overhauls, carbon and residual differ in the fixture.
+    assert_eq!(drawn, 5 * bids.len());
+    // The baseline has no bars of its own.
+    assert!(chart
+        .bars
+        .iter()
+        .all(|b| b.candidate_id != model.candidates[0].id));
+}

@@ -125,3 +125,32 @@ fn the_curve_crosses_zero_at_the_discounted_payback() {
     }
     assert!(checked >= 1, "no candidate of the demo pays back");
 }
+
+#[test]
+fn stream_differences_add_up_to_the_net_savings() {
+    // Lifecycle cost is the sum of its streams, so the streams' differences
+    // from the baseline add up to minus the net savings (to a cent per
+    // stream, as each is rounded on its own).
+    let model = model();
+    for c in model.candidates.iter().filter(|c| !c.is_baseline) {
+        let d = c.cost_difference.as_ref().expect("a difference");
+        let sum = d.capital
+            + d.fuel
+            + d.operation_and_maintenance
+            + d.overhauls
+            + d.carbon
+            + d.replacement
+            + d.residual;
+        let net = c.economics.net_savings_vs_baseline.expect("net savings");
+        assert!(
+            (sum + net).abs() <= Decimal::new(7, 2),
+            "{}: streams {sum}, net savings {net}",
+            c.id
+        );
+    }
+    assert!(model
+        .candidates
+        .iter()
+        .filter(|c| c.is_baseline)
+        .all(|c| c.cost_difference.is_none()));
+}

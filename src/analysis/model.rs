@@ -303,6 +303,20 @@ fn candidate_view(loaded: &LoadedScenario, study: &Study, index: usize) -> Candi
             replacement: money(pv.replacement),
             residual: money(pv.residual),
         },
+        cost_difference: (index != study.baseline_index).then(|| {
+            let b = &baseline.ledger.summary.present_value;
+            CostBreakdown {
+                capital: money(pv.capital - b.capital),
+                fuel: money(pv.fuel_cost - b.fuel_cost),
+                operation_and_maintenance: money(
+                    pv.fixed_om + pv.variable_om - b.fixed_om - b.variable_om,
+                ),
+                overhauls: money(pv.overhaul - b.overhaul),
+                carbon: money(pv.carbon_cost - b.carbon_cost),
+                replacement: money(pv.replacement - b.replacement),
+                residual: money(pv.residual - b.residual),
+            }
+        }),
         cumulative_savings: if index == study.baseline_index {
             Vec::new()
         } else {

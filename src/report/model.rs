@@ -138,6 +138,9 @@ pub struct CandidateView {
     pub verdict: Verdict,
     /// Present value of the lifecycle cost by stream.
     pub cost_breakdown: CostBreakdown,
+    /// Each stream's present value less the baseline's (positive: this
+    /// candidate spends more on it); `None` for the baseline.
+    pub cost_difference: Option<CostBreakdown>,
     /// Cumulative discounted savings against the baseline, the two ledgers
     /// paired by date (empty for the baseline).
     pub cumulative_savings: Vec<CumulativePoint>,

@@ -186,6 +186,15 @@ fn candidate(
             replacement: dec(0),
             residual: dec(-1_500_000),
         },
+        cost_difference: (!baseline).then(|| CostBreakdown {
+            capital: dec(premium),
+            fuel: dec(-8 * per_year),
+            operation_and_maintenance: dec(0),
+            overhauls: dec(250_000),
+            carbon: dec(-300_000),
+            replacement: dec(0),
+            residual: dec(-100_000),
+        }),
         cumulative_savings: if baseline {
             Vec::new()
         } else {

@@ -85,6 +85,8 @@ labels! {
     scenario_price,
     asked_marker,
     breakdown_chart,
+    difference_chart,
+    difference_axis,
     present_value_axis,
     capital,
     fuel,

@@ -4,6 +4,7 @@
 
 use super::Ctx;
 use crate::report::charts::breakdown::breakdown_chart;
+use crate::report::charts::difference::difference_chart;
 use crate::report::charts::fuel_price::fuel_price_chart;
 use crate::report::charts::geometry::Mark;
 use crate::report::charts::savings::savings_chart;
@@ -61,9 +62,14 @@ pub fn charts(ctx: &Ctx, composer: &mut Composer) {
         composer.gap(GAP_MM);
     }
 
-    let height = share(composer, 1, 118.0);
+    let height = share(composer, 2, 118.0);
     let area = composer.reserve(height);
     if let Some(chart) = breakdown_chart(model, l, area) {
+        place(composer, chart.chart.marks);
+        composer.gap(GAP_MM);
+    }
+    let area = composer.reserve(height);
+    if let Some(chart) = difference_chart(model, l, area) {
         place(composer, chart.chart.marks);
         composer.gap(GAP_MM);
     }

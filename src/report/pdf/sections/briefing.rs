@@ -31,7 +31,12 @@ pub fn key_figures(c: &CandidateView, model: &Model) -> Vec<String> {
         v.map_or_else(|| "n/a".to_string(), |v| short_money(v, currency))
     };
     let headroom = (!c.is_baseline).then_some(c.verdict.margin);
+    // A break-even fuel price below zero means no real fuel price makes the
+    // two cost the same.
     let fuel_price = e.break_even_fuel_price.map(|p| {
+        if p.is_sign_negative() {
+            return "none above zero".to_string();
+        }
         format!(
             "{}/GJ {}",
             unit_price(p, currency),

@@ -25,12 +25,14 @@ pub fn split_candidate_key(key: &str) -> Option<(&str, &str)> {
     Some((id, field))
 }
 
-/// The unit as printed: a bare number of dispatch hours is in hours.
+/// The unit as printed: a bare number of dispatch hours is in hours, and
+/// the font has the degree sign.
 fn unit_of(input: &InputView) -> String {
-    if input.unit.is_empty() && input.key.ends_with(".hours") {
-        "h".to_string()
-    } else {
-        input.unit.clone()
+    match input.unit.as_str() {
+        "" if input.key.ends_with(".hours") => "h".to_string(),
+        "degC" => "°C".to_string(),
+        "degF" => "°F".to_string(),
+        unit => unit.to_string(),
     }
 }
 

@@ -332,6 +332,23 @@ fn us_units_print_btu_per_kwh_and_degrees_fahrenheit() {
         strings.iter().any(|s| s.ends_with(b"Btu/(lb\xB7\xB0R)")),
         "T-s entropy axis in US units"
     );
+    // The state table and the specific works follow the same units: no
+    // kJ/kg anywhere. The fixture's compressor inlet has h = 1.005 × 288.15
+    // = 289.6 kJ/kg = 124.5 Btu/lb (1 Btu/lb = 2.326 kJ/kg exactly, NIST
+    // SP 811 Appendix B.8).
+    assert!(!text.contains("kJ/kg"), "SI specific energy in a US report");
+    assert!(!text.contains("kJ/(kg"), "SI entropy in a US report");
+    assert!(
+        text.contains("124.5"),
+        "compressor inlet enthalpy in Btu/lb"
+    );
+    assert!(
+        // The header may wrap after "Entropy,".
+        strings
+            .iter()
+            .any(|s| s == b"Entropy, Btu/(lb\xB7\xB0R)" || s == b"Btu/(lb\xB7\xB0R)"),
+        "state table entropy header in US units"
+    );
 }
 
 #[test]

@@ -9,7 +9,7 @@ mod report_support;
 use brayfin::report::charts::breakdown::breakdown_chart;
 use brayfin::report::charts::fuel_price::fuel_price_chart;
 use brayfin::report::charts::geometry::Colour;
-use brayfin::report::charts::geometry::{Mark, MarkerShape, Pt, Rect};
+use brayfin::report::charts::geometry::{Anchor, Mark, MarkerShape, Pt, Rect};
 use brayfin::report::charts::histogram::histogram_chart;
 use brayfin::report::charts::savings::savings_chart;
 use brayfin::report::charts::scale::money_f64;
@@ -337,4 +337,133 @@ fn output_replacement_is_a_category_only_when_charged() {
     assert!((segment.rect.top_mm() - y.map(own + money_f64(b.replacement))).abs() < 1e-2);
     // The others are charged nothing and draw no replacement segment.
     assert_eq!(chart.segments.iter().filter(|s| s.stream == 6).count(), 1);
+}
+
+#[test]
+fn tornado_value_labels_stay_inside_the_plot_even_with_long_values() {
+    // Values as wide as a fuel price with its unit and basis, on the
+    // longest bars: their labels must not run past the frame.
+    let mut model = report_support::model(true, false);
+    for b in &mut model.sensitivity {
+        b.low_value = "USD 2.600/GJ HHV".into();
+        b.high_value = "USD 6.273/GJ HHV".into();
+    }
+    let bars: Vec<_> = model
+        .sensitivity
+        .iter()
+        .filter(|b| b.candidate_id == "hx")
+        .collect();
+    let chart = tornado_chart(&bars, "Bid B", "USD", &labels(&model), area()).expect("a chart");
+    let plot = chart.frame.plot;
+    let mut checked = 0;
+    for mark in &chart.marks {
+        let Mark::Label {
+            at,
+            text,
+            size_pt,
+            anchor,
+            ..
+        } = mark
+        else {
+            continue;
+        };
+        if !text.contains("USD 2.600") && !text.contains("USD 6.273") {
+            continue;
+        }
+        let width = brayfin::report::pdf::fonts::text_width_mm(
+            text,
+            brayfin::report::pdf::fonts::Face::Regular,
+            *size_pt,
+        );
+        let (left, right) = match anchor {
+            Anchor::Left => (at.x_mm, at.x_mm + width),
+            Anchor::Right => (at.x_mm - width, at.x_mm),
+            Anchor::Centre => (at.x_mm - width / 2.0, at.x_mm + width / 2.0),
+        };
+        assert!(
+            left >= plot.x_mm - 1e-3 && right <= plot.right_mm() + 1e-3,
+            "{text:?} spans {left}..{right} mm, plot {}..{} mm",
+            plot.x_mm,
+            plot.right_mm()
+        );
+        checked += 1;
+    }
+    assert_eq!(checked, 2 * bars.len());
+}
+
+#[test]
+fn heat_addition_is_drawn_as_a_constant_pressure_curve() {
+    // Along an isobar of an ideal gas with constant c_p, T ds = c_p dT, so
+    // T = T_a (T_b/T_a)^((s - s_a)/(s_b - s_a)) between two states (Gibbs
+    // relation; e.g. Cengel & Boles, Thermodynamics, ch. 7, from memory).
+    let model = report_support::model(false, false);
+    let c = &model.candidates[1];
+    let states = &c.cycle.states;
+    let two = states.iter().find(|s| s.id == "2").expect("state 2");
+    let three = states.iter().find(|s| s.id == "3").expect("state 3");
+    let points = brayfin::report::charts::ts::segment(two, three);
+    assert!(points.len() > 2, "a curve, not a chord");
+    for (s, t) in &points {
+        let f =
+            (s - two.entropy_kj_per_kg_k) / (three.entropy_kj_per_kg_k - two.entropy_kj_per_kg_k);
+        let expected = two.temperature_k * (three.temperature_k / two.temperature_k).powf(f);
+        assert!((t - expected).abs() < 1e-9 * expected, "{s}, {t}");
+        // The isobar bows below the chord (T is convex in s).
+        let chord = two.temperature_k + f * (three.temperature_k - two.temperature_k);
+        assert!(*t <= chord + 1e-9);
+    }
+    // Compression changes the pressure many times over: a straight line.
+    let one = states.iter().find(|s| s.id == "1").expect("state 1");
+    assert_eq!(brayfin::report::charts::ts::segment(one, two).len(), 2);
+    // The drawn path carries the curve's midpoint.
+    let chart =
+        ts_chart(c, model.meta.units, &labels(&model), area(), Colour::BLACK).expect("a chart");
+    let (s_mid, t_mid) = points[points.len() / 2];
+    let mid = Pt::new(chart.frame.x.map(s_mid), chart.frame.y.map(t_mid));
+    let on_path = chart.marks.iter().any(|m| match m {
+        Mark::Polyline { points, .. } => points
+            .iter()
+            .any(|p| (p.x_mm - mid.x_mm).abs() < 1e-3 && (p.y_mm - mid.y_mm).abs() < 1e-3),
+        _ => false,
+    });
+    assert!(on_path, "the curve's midpoint is on the drawn path");
+}
+
+#[test]
+fn stream_difference_bars_run_from_zero_to_each_difference() {
+    use brayfin::report::charts::difference::{difference_chart, stream_values};
+    let model = report_support::model(false, false);
+    let chart = difference_chart(&model, &labels(&model), area()).expect("a chart");
+    let x = chart.chart.frame.x;
+    let zero = x.map(0.0);
+    let bids: Vec<_> = model.candidates.iter().filter(|c| !c.is_baseline).collect();
+    let mut drawn = 0;
+    for c in &bids {
+        let d = c.cost_difference.as_ref().expect("a difference");
+        for (stream, value) in stream_values(d).into_iter().enumerate() {
+            // A stream where no candidate differs is left out.
+            let shown = bids.iter().any(|o| {
+                stream_values(o.cost_difference.as_ref().expect("a difference"))[stream] != 0.0
+            });
+            let bar = chart
+                .bars
+                .iter()
+                .find(|b| b.candidate_id == c.id && b.stream == stream);
+            assert_eq!(bar.is_some(), shown, "{} stream {stream}", c.id);
+            if let Some(bar) = bar {
+                assert_eq!(bar.value, value);
+                let end = x.map(value);
+                let (a, b) = (bar.rect.x_mm, bar.rect.right_mm());
+                assert!((a - zero.min(end)).abs() < 1e-3 && (b - zero.max(end)).abs() < 1e-3);
+                drawn += 1;
+            }
+        }
+    }
+    // Capital, fuel, overhauls, carbon and residual differ in the fixture.
+    assert_eq!(drawn, 5 * bids.len());
+    // The baseline has no bars of its own.
+    assert!(chart
+        .bars
+        .iter()
+        .all(|b| b.candidate_id != model.candidates[0].id));
 }

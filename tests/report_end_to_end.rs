@@ -4,8 +4,9 @@
 //! present exactly when samples are asked for.
 
 use assert_cmd::Command;
-use brayfin::report::format::{self, money};
+use brayfin::report::format;
 use brayfin::report::model::Units;
+use brayfin::report::pdf::context::short_money;
 use rust_decimal::Decimal;
 use serde_json::Value;
 use std::str::FromStr;
@@ -69,7 +70,7 @@ fn briefing_key_figures_equal_the_json() {
         }
         for key in money_keys {
             let amount = Decimal::from_str(e[key].as_str().unwrap()).unwrap();
-            let printed = money(amount, currency);
+            let printed = short_money(amount, currency).replace('\u{a0}', " ");
             assert!(
                 briefing.contains(&printed),
                 "{} {key}: `{printed}` not on page 1",

@@ -10,6 +10,7 @@ mod report_support;
 use brayfin::report::charts::geometry::{Anchor, Mark, Weight};
 use brayfin::report::format;
 use brayfin::report::model::Model;
+use brayfin::report::pdf::context::short_money;
 use brayfin::report::pdf::document::Page;
 use brayfin::report::pdf::fonts::{text_width_mm, Face};
 use brayfin::report::pdf::{Paper, PdfRenderer};
@@ -91,7 +92,7 @@ fn every_section_heading_is_present() {
         "Gas-turbine purchase briefing",
         "Recommendation",
         "Key figures",
-        "The three inputs that move the answer most",
+        "The three inputs that move the recommended bid most",
         "Charts",
         "Cumulative discounted savings against the baseline",
         "Break-even premium against fuel price",
@@ -111,10 +112,17 @@ fn every_section_heading_is_present() {
     }
 }
 
-/// Parse money as printed ("USD 12,500,000", "USD -1,500") back to a number.
+/// Parse money as the briefing page prints it ("USD 12.5 M", "USD -950",
+/// "USD 4.20 k") back to a number.
 fn parse_money(printed: &str, currency: &str) -> Decimal {
-    let digits = printed.trim_start_matches(currency).trim().replace(',', "");
-    Decimal::from_str(&digits).expect("printed money parses")
+    let rest = printed.trim_start_matches(currency).trim();
+    let (digits, factor) = match rest.rsplit_once(' ') {
+        Some((d, "k")) => (d, Decimal::from(1_000)),
+        Some((d, "M")) => (d, Decimal::from(1_000_000)),
+        Some((d, "bn")) => (d, Decimal::from(1_000_000_000)),
+        _ => (rest, Decimal::ONE),
+    };
+    Decimal::from_str(digits).expect("printed money parses") * factor
 }
 
 #[test]
@@ -135,10 +143,13 @@ fn every_key_figure_on_the_briefing_page_is_the_model_figure_as_printed() {
             e.premium_asked,
         ];
         for value in money_figures.into_iter().flatten() {
-            let printed = format::money(value, currency);
+            let printed = short_money(value, currency).replace('\u{a0}', " ");
             assert!(lines.contains(&printed.as_str()), "{printed} not on page 1");
-            // Printed in whole units: equal to the model figure to 0.5.
-            assert!((parse_money(&printed, currency) - value).abs() <= Decimal::new(5, 1));
+            // Printed to three significant figures: within half a unit of
+            // the third figure, i.e. 0.5 % of the model figure (and exact
+            // below 1000).
+            let tolerance = (value.abs() * Decimal::new(5, 3)).max(Decimal::new(5, 1));
+            assert!((parse_money(&printed, currency) - value).abs() <= tolerance);
             checked += 1;
         }
         let heat_rate = format::heat_rate(
@@ -158,7 +169,8 @@ fn every_key_figure_on_the_briefing_page_is_the_model_figure_as_printed() {
     // every candidate: heat rate and payback.
     assert_eq!(checked, 2 + 5 + 5 + 3 * 2);
     for k in model.key_assumptions.iter().take(3) {
-        assert!(first.contains(&format::money(k.swing, currency)));
+        let printed = short_money(k.swing, currency).replace('\u{a0}', " ");
+        assert!(first.contains(&printed), "{printed} not on page 1");
     }
     let fourth = &model.key_assumptions[3];
     assert!(!first.contains(&fourth.label), "only three key assumptions");
@@ -319,6 +331,23 @@ fn us_units_print_btu_per_kwh_and_degrees_fahrenheit() {
     assert!(
         strings.iter().any(|s| s.ends_with(b"Btu/(lb\xB7\xB0R)")),
         "T-s entropy axis in US units"
+    );
+    // The state table and the specific works follow the same units: no
+    // kJ/kg anywhere. The fixture's compressor inlet has h = 1.005 × 288.15
+    // = 289.6 kJ/kg = 124.5 Btu/lb (1 Btu/lb = 2.326 kJ/kg exactly, NIST
+    // SP 811 Appendix B.8).
+    assert!(!text.contains("kJ/kg"), "SI specific energy in a US report");
+    assert!(!text.contains("kJ/(kg"), "SI entropy in a US report");
+    assert!(
+        text.contains("124.5"),
+        "compressor inlet enthalpy in Btu/lb"
+    );
+    assert!(
+        // The header may wrap after "Entropy,".
+        strings
+            .iter()
+            .any(|s| s == b"Entropy, Btu/(lb\xB7\xB0R)" || s == b"Btu/(lb\xB7\xB0R)"),
+        "state table entropy header in US units"
     );
 }
 

@@ -67,28 +67,79 @@ fn ledger_rows(outcome: &CandidateOutcome) -> Vec<LedgerRowView> {
         .collect()
 }
 
-/// Cumulative discounted savings against the baseline at the end of each
-/// row (rows are matched by position: both ledgers share one calendar).
+/// When a ledger row's cash counts on the savings curve, and which rows of
+/// two ledgers are the same event: capital payments by payment date,
+/// operating rows by their period, the residual credit at the end of life.
+/// Ordered by time, then capital before operation before residual.
+fn event_key(row: &crate::finance::LedgerRow) -> (u8, chrono::NaiveDate, chrono::NaiveDate) {
+    let rank = match row.kind {
+        RowKind::Capital => 0,
+        RowKind::Operation => 1,
+        RowKind::Residual => 2,
+    };
+    (rank, row.period_start, row.period_end)
+}
+
+/// Cumulative discounted savings against the baseline, the rows of the two
+/// ledgers paired by date (two candidates may pay their capital on
+/// different dates and in a different number of instalments). Points:
+/// after each capital payment date (at its cash time, before commercial
+/// operation), at commercial operation (all capital counted, the start of
+/// the payback count), at the end of each operating period, and after the
+/// residual credit. Between points the savings accrue evenly, as
+/// `finance::payback` assumes, so the curve crosses zero at the discounted
+/// payback. The rows' present values are summed as the ledger prints them
+/// (rounded to the minor unit), so the curve reconciles with the printed
+/// ledger to the cent.
 fn cumulative(outcome: &CandidateOutcome, baseline: &CandidateOutcome) -> Vec<CumulativePoint> {
-    let mut running = Decimal::ZERO;
-    outcome
+    use std::collections::BTreeMap;
+    // Key → (x position in years, year label, baseline PV − candidate PV).
+    type Event = (f64, i32, Decimal);
+    let mut events: BTreeMap<(u8, chrono::NaiveDate, chrono::NaiveDate), Event> = BTreeMap::new();
+    let rows = outcome
         .ledger
         .rows
         .iter()
-        .zip(baseline.ledger.rows.iter())
-        .map(|(c, b)| {
-            running += b.present_value - c.present_value;
-            CumulativePoint {
-                years_from_start: if c.kind == RowKind::Capital {
-                    c.cash_time_years
-                } else {
-                    c.time_end_years
-                },
-                year: c.year,
-                savings: money(running),
-            }
-        })
-        .collect()
+        .map(|r| (r, -money(r.present_value)))
+        .chain(
+            baseline
+                .ledger
+                .rows
+                .iter()
+                .map(|r| (r, money(r.present_value))),
+        );
+    for (row, signed) in rows {
+        let x = match row.kind {
+            RowKind::Capital => row.cash_time_years.min(0.0),
+            RowKind::Operation | RowKind::Residual => row.time_end_years,
+        };
+        let entry = events
+            .entry(event_key(row))
+            .or_insert((x, row.year, Decimal::ZERO));
+        entry.2 += signed;
+    }
+    let mut running = Decimal::ZERO;
+    let mut points = Vec::with_capacity(events.len() + 1);
+    let mut opened = false;
+    for ((rank, start, end), (x, year, delta)) in events {
+        if rank > 0 && !opened {
+            opened = true;
+            points.push(CumulativePoint {
+                years_from_start: 0.0,
+                year,
+                date: start.to_string(),
+                savings: running,
+            });
+        }
+        running += delta;
+        points.push(CumulativePoint {
+            years_from_start: x,
+            year,
+            date: end.to_string(),
+            savings: running,
+        });
+    }
+    points
 }
 
 /// Break-even premium of each candidate against first-year fuel price, from
@@ -215,10 +266,16 @@ fn candidate_view(loaded: &LoadedScenario, study: &Study, index: usize) -> Candi
             net_savings_vs_baseline: savings.map(|s| money(s.net_savings)),
             break_even_premium: break_even,
             premium_asked: asked,
+            // A ratio to the added investment means something only when
+            // there is one: a bid cheaper to buy than the baseline has no
+            // added investment, and its ratio (negative) is left out.
             savings_to_investment_ratio: savings
+                .filter(|s| s.premium_asked > Decimal::ZERO)
                 .and_then(|s| s.savings_to_investment)
                 .map(crate::finance::Money::to_f64),
-            adjusted_irr: savings.and_then(|s| s.adjusted_irr),
+            adjusted_irr: savings
+                .filter(|s| s.premium_asked > Decimal::ZERO)
+                .and_then(|s| s.adjusted_irr),
             simple_payback: versus.map_or(PaybackView::NotApplicable, |v| {
                 payback_view(v.simple_payback)
             }),
@@ -246,6 +303,20 @@ fn candidate_view(loaded: &LoadedScenario, study: &Study, index: usize) -> Candi
             replacement: money(pv.replacement),
             residual: money(pv.residual),
         },
+        cost_difference: (index != study.baseline_index).then(|| {
+            let b = &baseline.ledger.summary.present_value;
+            CostBreakdown {
+                capital: money(pv.capital - b.capital),
+                fuel: money(pv.fuel_cost - b.fuel_cost),
+                operation_and_maintenance: money(
+                    pv.fixed_om + pv.variable_om - b.fixed_om - b.variable_om,
+                ),
+                overhauls: money(pv.overhaul - b.overhaul),
+                carbon: money(pv.carbon_cost - b.carbon_cost),
+                replacement: money(pv.replacement - b.replacement),
+                residual: money(pv.residual - b.residual),
+            }
+        }),
         cumulative_savings: if index == study.baseline_index {
             Vec::new()
         } else {
@@ -327,15 +398,11 @@ fn sensitivity_bars(swings: &[Swing], scenario: &Scenario) -> Vec<SensitivityBar
             s.deltas
                 .iter()
                 // A key that belongs to one candidate moves only that one.
-                .filter(move |(id, _, _)| {
-                    s.key
-                        .strip_prefix("candidate[")
-                        .and_then(|rest| rest.split_once(']'))
-                        .is_none_or(|(owner, _)| owner == id)
-                })
+                .filter(move |(id, _, _)| s.moves(id))
                 .map(move |(id, low, high)| SensitivityBar {
                     candidate_id: id.clone(),
                     key: s.key.clone(),
+                    label: key_label(&s.key),
                     low_value: show(&s.key, s.low, scenario),
                     high_value: show(&s.key, s.high, scenario),
                     default_range: s.source == RangeSource::DefaultTwentyPercent,
@@ -344,6 +411,48 @@ fn sensitivity_bars(swings: &[Swing], scenario: &Scenario) -> Vec<SensitivityBar
                 })
         })
         .collect()
+}
+
+/// The cheapest other candidate to own, baseline aside, whose break-even
+/// premium covers the premium it asks.
+fn runner_up(candidates: &[CandidateView], preferred_id: &str) -> Option<RunnerUp> {
+    candidates
+        .iter()
+        .filter(|c| {
+            !c.is_baseline && c.id != preferred_id && c.verdict.kind == VerdictKind::WorthPremium
+        })
+        .min_by_key(|c| c.economics.lifecycle_cost)
+        .map(|c| RunnerUp {
+            id: c.id.clone(),
+            label: c.label.clone(),
+            net_savings: c.economics.net_savings_vs_baseline.unwrap_or_default(),
+            headroom: c.verdict.margin,
+            discounted_payback: c.economics.discounted_payback,
+        })
+}
+
+/// The inputs that move the recommended candidate's net savings most,
+/// largest one-sided change first; when the baseline itself is recommended,
+/// the largest change of any candidate.
+fn key_assumptions(
+    swings: &[Swing],
+    decision: &Decision,
+    scenario: &Scenario,
+) -> Vec<KeyAssumption> {
+    let of = (!decision.preferred_is_baseline).then_some(decision.preferred_id.as_str());
+    let mut rows: Vec<KeyAssumption> = swings
+        .iter()
+        .map(|s| KeyAssumption {
+            key: s.key.clone(),
+            label: key_label(&s.key),
+            base_value: show(&s.key, s.base, scenario),
+            swing: money(of.map_or_else(|| s.magnitude(), |id| s.magnitude_for(id))),
+            candidate_id: of.map(str::to_string),
+        })
+        .filter(|k| !k.swing.is_zero())
+        .collect();
+    rows.sort_by_key(|k| std::cmp::Reverse(k.swing));
+    rows
 }
 
 /// Build the report model of a loaded scenario.
@@ -367,17 +476,11 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
             .economics
             .net_savings_vs_baseline
             .unwrap_or_default(),
+        discounted_payback: preferred.economics.discounted_payback,
+        runner_up: runner_up(&candidates, &preferred.id),
     };
     let swings = rank(loaded, &study)?;
-    let key_assumptions = swings
-        .iter()
-        .map(|s| KeyAssumption {
-            key: s.key.clone(),
-            label: key_label(&s.key),
-            base_value: show(&s.key, s.base, scenario),
-            swing: money(s.magnitude()),
-        })
-        .collect();
+    let key_assumptions = key_assumptions(&swings, &decision, scenario);
     let mut warnings = engineering_warnings(scenario);
     warnings.extend(cycle_warnings(loaded, &study));
     let e = &scenario.economics;
@@ -449,6 +552,7 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
                 .any(|o| !o.ledger.summary.present_value.replacement.is_zero()),
             energy_value_per_mwh: money(e.energy_value_per_mwh),
             capacity_value_per_kw_year: money(e.capacity_value_per_kw_year),
+            present_value_date: e.commercial_operation.to_string(),
         },
         fuel_price_curves: fuel_price_curves(loaded, &study),
         sensitivity: if options.sensitivity {

@@ -69,6 +69,31 @@ impl Swing {
             .max()
             .unwrap_or_default()
     }
+
+    /// The largest one-sided change (at the low or at the high value,
+    /// whichever moves more) in the net savings of candidate `id`; zero for
+    /// a candidate the input does not move (the baseline, or another
+    /// candidate's own key).
+    pub fn magnitude_for(&self, id: &str) -> Decimal {
+        if !self.moves(id) {
+            return Decimal::ZERO;
+        }
+        self.deltas
+            .iter()
+            .filter(|(who, _, _)| who == id)
+            .map(|(_, l, h)| l.abs().max(h.abs()))
+            .max()
+            .unwrap_or_default()
+    }
+
+    /// Whether the input can move candidate `id`: a key that belongs to one
+    /// candidate (`candidate[ID].…`) moves only that one.
+    pub fn moves(&self, id: &str) -> bool {
+        self.key
+            .strip_prefix("candidate[")
+            .and_then(|rest| rest.split_once(']'))
+            .is_none_or(|(owner, _)| owner == id)
+    }
 }
 
 fn p10_p90(d: &Distribution) -> (f64, f64) {

@@ -29,8 +29,9 @@ pub struct Model {
     pub decision: Decision,
     /// Every candidate, baseline first.
     pub candidates: Vec<CandidateView>,
-    /// The inputs that move the answer most (from the sensitivity ranking),
-    /// largest first; the briefing page shows the first three.
+    /// The inputs that move the recommended candidate's net savings most
+    /// (from the sensitivity ranking), largest first; the briefing page
+    /// shows the first three.
     pub key_assumptions: Vec<KeyAssumption>,
     /// Every input with its unit and stated source.
     pub inputs: Vec<InputView>,
@@ -92,6 +93,28 @@ pub struct Decision {
     pub premium_asked: Decimal,
     /// Net savings of the preferred candidate against the baseline.
     pub net_savings: Decimal,
+    /// Discounted payback of the preferred candidate (not applicable for
+    /// the baseline).
+    pub discounted_payback: PaybackView,
+    /// The next cheapest candidate to own, other than the baseline, that
+    /// also covers the premium its bid asks: what the recommendation is
+    /// weighed against. `None` when no other bid covers its premium.
+    pub runner_up: Option<RunnerUp>,
+}
+
+/// Another bid that covers its premium, as the recommendation weighs it.
+#[derive(Debug, Clone, Serialize)]
+pub struct RunnerUp {
+    /// Candidate id.
+    pub id: String,
+    /// Its label.
+    pub label: String,
+    /// Its net savings against the baseline.
+    pub net_savings: Decimal,
+    /// Break-even premium minus premium asked (its headroom).
+    pub headroom: Decimal,
+    /// Its discounted payback.
+    pub discounted_payback: PaybackView,
 }
 
 /// One candidate: performance, economics, verdict, ledger.
@@ -115,8 +138,11 @@ pub struct CandidateView {
     pub verdict: Verdict,
     /// Present value of the lifecycle cost by stream.
     pub cost_breakdown: CostBreakdown,
-    /// Cumulative discounted savings against the baseline at the end of each
-    /// ledger year (empty for the baseline).
+    /// Each stream's present value less the baseline's (positive: this
+    /// candidate spends more on it); `None` for the baseline.
+    pub cost_difference: Option<CostBreakdown>,
+    /// Cumulative discounted savings against the baseline, the two ledgers
+    /// paired by date (empty for the baseline).
     pub cumulative_savings: Vec<CumulativePoint>,
     /// The year-by-year ledger.
     pub ledger: Vec<LedgerRowView>,
@@ -285,10 +311,16 @@ pub struct CostBreakdown {
 /// One point of cumulative discounted savings.
 #[derive(Debug, Clone, Serialize)]
 pub struct CumulativePoint {
-    /// Years since commercial operation at the end of the row.
+    /// Years since commercial operation: the cash time of a capital
+    /// payment (zero or negative), else the end of the period.
     pub years_from_start: f64,
     /// Calendar year label of the row.
     pub year: i32,
+    /// Date the cumulative stands at (ISO 8601): a capital payment date,
+    /// the commercial operation date, the last day of an operating period
+    /// or the residual-value date. It counts every ledger row of both
+    /// candidates whose period ends on or before it.
+    pub date: String,
     /// Cumulative discounted savings against the baseline.
     pub savings: Decimal,
 }
@@ -341,8 +373,13 @@ pub struct KeyAssumption {
     pub label: String,
     /// Base value as shown, with unit.
     pub base_value: String,
-    /// Largest swing in net savings of any candidate over its range.
+    /// Largest one-sided change in net savings (at the low or the high end
+    /// of the input's range, whichever moves more) of the candidate
+    /// `candidate_id`; of any candidate when that is `None`.
     pub swing: Decimal,
+    /// The candidate whose net savings `swing` is: the recommended one, or
+    /// `None` when the baseline itself is recommended.
+    pub candidate_id: Option<String>,
 }
 
 /// One input line of the assumptions section.
@@ -397,6 +434,9 @@ pub struct MethodView {
     /// Value of one kW of capacity bought elsewhere, per kW-year
     /// (`economics.capacity_value`).
     pub capacity_value_per_kw_year: Decimal,
+    /// The date every present value is discounted to (ISO 8601): the
+    /// commercial operation date.
+    pub present_value_date: String,
 }
 
 /// Break-even premium against fuel price.
@@ -424,11 +464,15 @@ pub struct SensitivityBar {
     pub candidate_id: String,
     /// Dotted scenario key.
     pub key: String,
-    /// Low and high values of the input, as shown with unit.
+    /// Plain-words name of the input (as on the briefing page).
+    pub label: String,
+    /// Low value of the input, as shown with unit.
     pub low_value: String,
     /// High value of the input, as shown with unit.
     pub high_value: String,
-    /// Whether the range is the default ±20 % (not stated in the scenario).
+    /// Whether the range is the default ±20 % (neither a swing nor a
+    /// distribution stated in the scenario; an input with a distribution
+    /// and no swing is swung over its 10th to 90th percentiles).
     pub default_range: bool,
     /// Change in net savings at the low value, against the base case.
     pub delta_at_low: Decimal,

@@ -91,6 +91,7 @@ fn linear_savings(life: u32, premium: i64, per_year: i64) -> Vec<CumulativePoint
         .map(|i| CumulativePoint {
             years_from_start: f64::from(i),
             year: 2027 + i as i32,
+            date: format!("{}-12-31", 2026 + i),
             savings: dec(-premium + per_year * i64::from(i)),
         })
         .collect()
@@ -185,6 +186,15 @@ fn candidate(
             replacement: dec(0),
             residual: dec(-1_500_000),
         },
+        cost_difference: (!baseline).then(|| CostBreakdown {
+            capital: dec(premium),
+            fuel: dec(-8 * per_year),
+            operation_and_maintenance: dec(0),
+            overhauls: dec(250_000),
+            carbon: dec(-300_000),
+            replacement: dec(0),
+            residual: dec(-100_000),
+        }),
         cumulative_savings: if baseline {
             Vec::new()
         } else {
@@ -233,6 +243,7 @@ pub fn model(with_sensitivity: bool, with_risk: bool) -> Model {
             ["hx", "regen"].into_iter().map(move |id| SensitivityBar {
                 candidate_id: id.into(),
                 key: (*key).into(),
+                label: key.replace(['.', '_'], " "),
                 low_value: format!("low {i}"),
                 high_value: format!("high {i}"),
                 default_range: i == 2,
@@ -296,6 +307,8 @@ pub fn model(with_sensitivity: bool, with_risk: bool) -> Model {
             break_even_premium: dec(9_600_000),
             premium_asked: dec(4_000_000),
             net_savings: dec(5_600_000),
+            discounted_payback: PaybackView::Years(4.2),
+            runner_up: None,
         },
         candidates,
         key_assumptions: if with_sensitivity {
@@ -305,24 +318,28 @@ pub fn model(with_sensitivity: bool, with_risk: bool) -> Model {
                     label: "Fuel price".into(),
                     base_value: "5.20 USD/GJ (HHV)".into(),
                     swing: dec(5_600_000),
+                    candidate_id: Some("hx".into()),
                 },
                 KeyAssumption {
                     key: "operation.hours_per_year".into(),
                     label: "Operating hours".into(),
                     base_value: "6500 h".into(),
                     swing: dec(2_800_000),
+                    candidate_id: Some("hx".into()),
                 },
                 KeyAssumption {
                     key: "economics.discount_rate".into(),
                     label: "Discount rate".into(),
                     base_value: "7 %".into(),
                     swing: dec(1_866_667),
+                    candidate_id: Some("hx".into()),
                 },
                 KeyAssumption {
                     key: "candidate.turbine_efficiency".into(),
                     label: "Turbine efficiency".into(),
                     base_value: "0.89".into(),
                     swing: dec(900_000),
+                    candidate_id: Some("hx".into()),
                 },
             ]
         } else {
@@ -356,6 +373,7 @@ pub fn model(with_sensitivity: bool, with_risk: bool) -> Model {
             levelled: false,
             energy_value_per_mwh: dec(0),
             capacity_value_per_kw_year: dec(0),
+            present_value_date: "2027-01-01".into(),
         },
         fuel_price_curves: FuelPriceCurves {
             scenario_price_per_gj: Decimal::new(520, 2),

@@ -4,6 +4,7 @@
 //! [`geometry::Mark`]s.
 
 pub mod breakdown;
+pub mod difference;
 pub mod frame;
 pub mod fuel_price;
 pub mod geometry;

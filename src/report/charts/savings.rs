@@ -61,7 +61,8 @@ pub fn savings_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Savin
 
     let x_ticks = tight_ticks(x_min, x_max, 7, 0.0);
     let y_ticks = tight_ticks(y_min, y_max, 6, 0.06);
-    let x_axis = Axis::numeric(format!("{}, years", labels.years_axis), &x_ticks, 1.0);
+    // The label already names the unit ("Years from commercial operation").
+    let x_axis = Axis::numeric(labels.years_axis.clone(), &x_ticks, 1.0);
     let y_axis = Axis::numeric(
         format!("{}, {}", labels.savings_axis, money.unit(currency)),
         &y_ticks,
@@ -82,14 +83,18 @@ pub fn savings_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Savin
             }
         })
         .collect();
-    legend.push(LegendEntry {
+    // The payback marker is explained only where one is drawn.
+    let any_payback = series
+        .iter()
+        .any(|c| matches!(c.economics.discounted_payback, PaybackView::Years(_)));
+    legend.extend(any_payback.then(|| LegendEntry {
         label: labels.payback_marker.clone(),
         swatch: Swatch::Marker {
             shape: MarkerShape::Circle,
             filled: false,
             colour: Colour::BLACK,
         },
-    });
+    }));
 
     let mut marks = Vec::new();
     let frame = draw_frame(

@@ -8,7 +8,7 @@ use super::scale::{money_f64, tight_ticks, MoneyScale};
 use super::style::stream_fill;
 use super::Chart;
 use crate::report::model::SensitivityBar;
-use crate::report::pdf::fonts::Face;
+use crate::report::pdf::fonts::{text_width_mm, Face};
 use crate::report::pdf::labels::Labels;
 use crate::report::pdf::text::fit;
 
@@ -35,7 +35,8 @@ pub fn tornado_chart(
         (lo.min(v), hi.max(v))
     });
     let money = MoneyScale::for_magnitude(low.abs().max(high.abs()));
-    let x_ticks = tight_ticks(low, high, 6, 0.15);
+    // Room beyond the longest bars for their value labels.
+    let x_ticks = tight_ticks(low, high, 6, 0.35);
     let x_axis = Axis::numeric(
         format!("{}, {}", labels.sensitivity_axis, money.unit(currency)),
         &x_ticks,
@@ -52,7 +53,7 @@ pub fn tornado_chart(
             .map(|(i, b)| {
                 let mark = if b.default_range { " *" } else { "" };
                 let text = fit(
-                    &format!("{}{mark}", b.key),
+                    &format!("{}{mark}", b.label),
                     Face::Regular,
                     SMALL_PT,
                     ROW_LABEL_MM,
@@ -104,14 +105,21 @@ pub fn tornado_chart(
                     Vec::new()
                 },
             });
-            let (dx, anchor) = if end >= zero {
-                (1.0, Anchor::Left)
+            // The value beside the bar's end, kept inside the plot: where
+            // it would run past the frame it is set against the frame's
+            // inner edge instead.
+            let text = fit(value_text, Face::Regular, SMALL_PT - 1.0, 30.0);
+            let width = text_width_mm(&text, Face::Regular, SMALL_PT - 1.0);
+            let (x, anchor) = if end >= zero {
+                let x = (end + 1.0).min(frame.plot.right_mm() - 0.5 - width);
+                (x, Anchor::Left)
             } else {
-                (-1.0, Anchor::Right)
+                let x = (end - 1.0).max(frame.plot.x_mm + 0.5 + width);
+                (x, Anchor::Right)
             };
             marks.push(Mark::text(
-                Pt::new(end + dx, y0 + bar_h / 2.0 - SMALL_PT * 0.12),
-                fit(value_text, Face::Regular, SMALL_PT - 1.0, 30.0),
+                Pt::new(x, y0 + bar_h / 2.0 - SMALL_PT * 0.12),
+                text,
                 SMALL_PT - 1.0,
                 anchor,
             ));

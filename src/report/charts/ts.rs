@@ -34,6 +34,46 @@ fn entropy(kj_per_kg_k: f64, units: Units) -> f64 {
     }
 }
 
+/// Largest relative pressure change between two states still drawn as one
+/// constant-pressure process (a combustor, regenerator side or exhaust
+/// loses a few per cent; compression and expansion change the pressure
+/// many times over).
+const ISOBAR_PRESSURE_CHANGE: f64 = 0.15;
+
+/// Points per constant-pressure curve.
+const ISOBAR_POINTS: usize = 24;
+
+/// The path from state `a` to state `b` as (entropy kJ/(kg·K), temperature
+/// K) points. Heat addition and rejection happen at (nearly) constant
+/// pressure, where an ideal gas with a constant specific heat over the
+/// segment follows T = T_a·exp((s − s_a)/c_p) (Gibbs relation with dp = 0,
+/// T ds = c_p dT; e.g. Cengel & Boles, Thermodynamics, ch. 7, from memory);
+/// with c_p fitted to the two end states this is
+/// T = T_a·(T_b/T_a)^((s − s_a)/(s_b − s_a)). Compression and expansion are
+/// not drawn as paths: their end states are joined by a straight line.
+pub fn segment(a: &StateRow, b: &StateRow) -> Vec<(f64, f64)> {
+    let (sa, ta, sb, tb) = (
+        a.entropy_kj_per_kg_k,
+        a.temperature_k,
+        b.entropy_kj_per_kg_k,
+        b.temperature_k,
+    );
+    let isobar = a.pressure_kpa > 0.0
+        && (b.pressure_kpa / a.pressure_kpa - 1.0).abs() <= ISOBAR_PRESSURE_CHANGE
+        && ta > 0.0
+        && tb > 0.0
+        && (sb - sa).abs() > 1e-9;
+    if !isobar {
+        return vec![(sa, ta), (sb, tb)];
+    }
+    (0..=ISOBAR_POINTS)
+        .map(|i| {
+            let f = i as f64 / ISOBAR_POINTS as f64;
+            (sa + f * (sb - sa), ta * (tb / ta).powf(f))
+        })
+        .collect()
+}
+
 /// The diagram of `candidate` inside `area`, with the series drawn in
 /// `colour`; `None` when it has fewer than two states.
 pub fn ts_chart(
@@ -90,16 +130,31 @@ pub fn ts_chart(
         Pt::new(frame.x.map(x), frame.y.map(y))
     };
     let actual: Vec<&StateRow> = states.iter().filter(|s| !is_isentropic(s)).collect();
-    let path: Vec<Pt> = actual.iter().map(|s| at(s)).collect();
+    let to_page = |(s_si, t_k): (f64, f64)| {
+        Pt::new(
+            frame.x.map(entropy(s_si, units)),
+            frame.y.map(temperature(t_k, units)),
+        )
+    };
+    let mut path: Vec<Pt> = Vec::new();
+    for pair in actual.windows(2) {
+        let points = segment(pair[0], pair[1]);
+        // Each segment starts where the previous one ended.
+        let skip = usize::from(!path.is_empty());
+        path.extend(points.into_iter().skip(skip).map(to_page));
+    }
+    if path.is_empty() {
+        path.extend(actual.iter().map(|s| at(s)));
+    }
     marks.push(Mark::Polyline {
-        points: path.clone(),
+        points: path,
         style: LineStyle::Solid,
         width_pt: 1.3,
         colour,
     });
-    if let (Some(first), Some(last)) = (path.first(), path.last()) {
+    if let (Some(first), Some(last)) = (actual.first(), actual.last()) {
         marks.push(Mark::Polyline {
-            points: vec![*last, *first],
+            points: segment(last, first).into_iter().map(to_page).collect(),
             style: LineStyle::Dashed,
             width_pt: 0.9,
             colour: Colour::grey(0.4),

@@ -1,113 +1,165 @@
-//! Turning laid-out pages of [`Mark`]s into PDF bytes with `printpdf`,
-//! using the PDF built-in fonts (no font files, no system fonts).
+//! Turning laid-out pages of [`Mark`]s into PDF bytes with the PDF
+//! built-in fonts (Helvetica, Helvetica-Bold, Courier in WinAnsiEncoding:
+//! no font files, no system fonts), through `lopdf`.
+//!
+//! Memory stays proportional to the output: each page's drawing operators
+//! are encoded and compressed into its content stream as soon as the page
+//! is drawn, and the operators are dropped. (Building every page's
+//! operators first, as a general PDF library does, held about 2 kB per
+//! drawn mark, about 1 GB for a 500-candidate briefing.)
 
 use super::document::Page;
-use super::fonts::{text_width_mm, to_win_ansi, Face, MM_PER_PT};
+use super::fonts::{text_width_mm, to_win_ansi, win_ansi_code, Face, MM_PER_PT};
 use crate::report::charts::geometry::{Anchor, Colour, LineStyle, Mark, MarkerShape, Pt, Weight};
 use crate::{Error, Result};
-use printpdf::path::{PaintMode, WindingOrder};
-use printpdf::{
-    BuiltinFont, Color, IndirectFontRef, Line, LineDashPattern, Mm, PdfDocument,
-    PdfDocumentReference, PdfLayerReference, Point, Polygon, Rgb, TextMatrix,
-};
+use printpdf::lopdf::content::{Content, Operation};
+use printpdf::lopdf::{dictionary, Document, Object, ObjectId, Stream, StringFormat};
 
-/// The registered built-in fonts, by face.
-struct Fonts {
-    regular: IndirectFontRef,
-    bold: IndirectFontRef,
-    mono: IndirectFontRef,
+/// Resource names of the three faces.
+const FONTS: [(Face, &str, &str); 3] = [
+    (Face::Regular, "F1", "Helvetica"),
+    (Face::Bold, "F2", "Helvetica-Bold"),
+    (Face::Mono, "F3", "Courier"),
+];
+
+fn font_name(face: Face) -> &'static str {
+    FONTS
+        .iter()
+        .find(|(f, _, _)| *f == face)
+        .map_or("F1", |(_, name, _)| name)
 }
 
-impl Fonts {
-    fn add(doc: &PdfDocumentReference) -> Result<Self> {
-        let add = |font| {
-            doc.add_builtin_font(font)
-                .map_err(|e| Error::Internal(format!("registering a PDF built-in font: {e}")))
-        };
-        Ok(Fonts {
-            regular: add(BuiltinFont::Helvetica)?,
-            bold: add(BuiltinFont::HelveticaBold)?,
-            mono: add(BuiltinFont::Courier)?,
-        })
-    }
+/// Millimetres to PDF points.
+fn pt(mm: f32) -> Object {
+    Object::Real(mm / MM_PER_PT)
+}
 
-    fn get(&self, face: Face) -> &IndirectFontRef {
-        match face {
-            Face::Regular => &self.regular,
-            Face::Bold => &self.bold,
-            Face::Mono => &self.mono,
-        }
+fn op(operator: &str, operands: Vec<Object>) -> Operation {
+    Operation::new(operator, operands)
+}
+
+fn rgb(c: Colour) -> Vec<Object> {
+    vec![Object::Real(c.r), Object::Real(c.g), Object::Real(c.b)]
+}
+
+/// Dash pattern in points (dash, gap, dash, gap).
+fn dash(style: LineStyle) -> Operation {
+    let pattern: Vec<i64> = match style {
+        LineStyle::Solid => Vec::new(),
+        LineStyle::Dashed => vec![5, 3],
+        LineStyle::Dotted => vec![1, 2],
+        LineStyle::DashDot => vec![6, 2, 1, 2],
+    };
+    op(
+        "d",
+        vec![
+            Object::Array(pattern.into_iter().map(Object::Integer).collect()),
+            Object::Integer(0),
+        ],
+    )
+}
+
+fn path(ops: &mut Vec<Operation>, points: &[Pt]) {
+    for (i, p) in points.iter().enumerate() {
+        let operator = if i == 0 { "m" } else { "l" };
+        ops.push(op(operator, vec![pt(p.x_mm), pt(p.y_mm)]));
     }
+}
+
+fn stroke(ops: &mut Vec<Operation>, points: &[Pt], style: LineStyle, width_pt: f32, c: Colour) {
+    if points.len() < 2 {
+        return;
+    }
+    ops.push(op("RG", rgb(c)));
+    ops.push(op("w", vec![Object::Real(width_pt)]));
+    ops.push(dash(style));
+    path(ops, points);
+    ops.push(op("S", vec![]));
+}
+
+/// A closed polygon, filled (`f`) or filled and stroked (`b`).
+fn polygon(ops: &mut Vec<Operation>, points: &[Pt], paint: &str) {
+    if points.len() < 3 {
+        return;
+    }
+    path(ops, points);
+    ops.push(op(paint, vec![]));
 }
 
 /// Write `pages` as a PDF document titled `title`.
 pub fn write_pdf(pages: &[Page], title: &str) -> Result<Vec<u8>> {
-    let first = pages
-        .first()
-        .ok_or_else(|| Error::Internal("the report has no pages".into()))?;
-    let (doc, page_index, layer_index) = PdfDocument::new(
-        to_win_ansi(title),
-        Mm(first.width_mm),
-        Mm(first.height_mm),
-        "content",
-    );
-    let doc = doc.with_producer("brayfin").with_creator("brayfin");
-    let fonts = Fonts::add(&doc)?;
-    let mut layers = vec![doc.get_page(page_index).get_layer(layer_index)];
-    for page in &pages[1..] {
-        let (p, l) = doc.add_page(Mm(page.width_mm), Mm(page.height_mm), "content");
-        layers.push(doc.get_page(p).get_layer(l));
+    if pages.is_empty() {
+        return Err(Error::Internal("the report has no pages".into()));
     }
-    for (page, layer) in pages.iter().zip(&layers) {
+    let mut doc = Document::with_version("1.4");
+    let pages_id = doc.new_object_id();
+    let mut font_dict = printpdf::lopdf::Dictionary::new();
+    for (_, name, base) in FONTS {
+        let id = doc.add_object(dictionary! {
+            "Type" => "Font",
+            "Subtype" => "Type1",
+            "BaseFont" => base,
+            "Encoding" => "WinAnsiEncoding",
+        });
+        font_dict.set(name, Object::Reference(id));
+    }
+    let resources = doc.add_object(dictionary! { "Font" => font_dict });
+    let mut kids: Vec<Object> = Vec::with_capacity(pages.len());
+    for page in pages {
+        let mut ops = Vec::new();
         for mark in &page.marks {
-            draw(layer, &fonts, mark);
+            draw(&mut ops, mark);
         }
+        let bytes = Content { operations: ops }
+            .encode()
+            .map_err(|e| Error::Internal(format!("encoding a PDF page: {e}")))?;
+        let mut stream = Stream::new(printpdf::lopdf::Dictionary::new(), bytes);
+        // Compression is an optimisation: a stream that does not compress
+        // is written as it is.
+        let _ = stream.compress();
+        let content: ObjectId = doc.add_object(stream);
+        let id = doc.add_object(dictionary! {
+            "Type" => "Page",
+            "Parent" => pages_id,
+            "MediaBox" => vec![0.into(), 0.into(), pt(page.width_mm), pt(page.height_mm)],
+            "Contents" => content,
+            "Resources" => resources,
+        });
+        kids.push(id.into());
     }
-    doc.save_to_bytes()
-        .map_err(|e| Error::Internal(format!("writing the PDF: {e}")))
-}
-
-fn colour(c: Colour) -> Color {
-    Color::Rgb(Rgb::new(c.r, c.g, c.b, None))
-}
-
-fn point(p: Pt) -> (Point, bool) {
-    (Point::new(Mm(p.x_mm), Mm(p.y_mm)), false)
-}
-
-/// Dash pattern in points: (dash, gap, dash, gap).
-fn dash(style: LineStyle) -> LineDashPattern {
-    let pattern = |d1, g1, d2, g2| LineDashPattern {
-        dash_1: Some(d1),
-        gap_1: Some(g1),
-        dash_2: d2,
-        gap_2: g2,
-        ..LineDashPattern::default()
-    };
-    match style {
-        LineStyle::Solid => LineDashPattern::default(),
-        LineStyle::Dashed => pattern(5, 3, None, None),
-        LineStyle::Dotted => pattern(1, 2, None, None),
-        LineStyle::DashDot => pattern(6, 2, Some(1), Some(2)),
-    }
-}
-
-fn stroke(layer: &PdfLayerReference, points: &[Pt], style: LineStyle, width_pt: f32, c: Colour) {
-    layer.set_outline_color(colour(c));
-    layer.set_outline_thickness(width_pt);
-    layer.set_line_dash_pattern(dash(style));
-    layer.add_line(Line {
-        points: points.iter().copied().map(point).collect(),
-        is_closed: false,
+    let count = kids.len() as i64;
+    doc.objects.insert(
+        pages_id,
+        Object::Dictionary(dictionary! {
+            "Type" => "Pages",
+            "Kids" => kids,
+            "Count" => count,
+        }),
+    );
+    let catalog = doc.add_object(dictionary! {
+        "Type" => "Catalog",
+        "Pages" => pages_id,
     });
+    let info = doc.add_object(dictionary! {
+        "Title" => Object::String(win_ansi_bytes(title), StringFormat::Literal),
+        "Producer" => Object::string_literal("brayfin"),
+        "Creator" => Object::string_literal("brayfin"),
+    });
+    doc.trailer.set("Root", catalog);
+    doc.trailer.set("Info", info);
+    let mut bytes = Vec::new();
+    doc.save_to(&mut bytes)
+        .map_err(|e| Error::Internal(format!("writing the PDF: {e}")))?;
+    Ok(bytes)
 }
 
-fn polygon(layer: &PdfLayerReference, points: &[Pt], mode: PaintMode) {
-    layer.add_polygon(Polygon {
-        rings: vec![points.iter().copied().map(point).collect()],
-        mode,
-        winding_order: WindingOrder::NonZero,
-    });
+/// `text` as WinAnsi bytes (transliterated first, so every character has a
+/// code).
+fn win_ansi_bytes(text: &str) -> Vec<u8> {
+    to_win_ansi(text)
+        .chars()
+        .map(|c| win_ansi_code(c).unwrap_or(b'?'))
+        .collect()
 }
 
 /// Vertices of a marker shape of overall width `size` centred on `at`.
@@ -137,32 +189,32 @@ fn marker_outline(at: Pt, shape: MarkerShape, size: f32) -> Vec<Pt> {
     }
 }
 
-fn draw(layer: &PdfLayerReference, fonts: &Fonts, mark: &Mark) {
+fn draw(ops: &mut Vec<Operation>, mark: &Mark) {
     match mark {
         Mark::Polyline {
             points,
             style,
             width_pt,
             colour: c,
-        } => stroke(layer, points, *style, *width_pt, *c),
+        } => stroke(ops, points, *style, *width_pt, *c),
         Mark::Area {
             points,
             fill,
             outline,
             hatch,
         } => {
-            layer.set_fill_color(colour(*fill));
+            ops.push(op("rg", rgb(*fill)));
             match outline {
                 Some(o) => {
-                    layer.set_outline_color(colour(*o));
-                    layer.set_outline_thickness(0.5);
-                    layer.set_line_dash_pattern(dash(LineStyle::Solid));
-                    polygon(layer, points, PaintMode::FillStroke);
+                    ops.push(op("RG", rgb(*o)));
+                    ops.push(op("w", vec![Object::Real(0.5)]));
+                    ops.push(dash(LineStyle::Solid));
+                    polygon(ops, points, "b");
                 }
-                None => polygon(layer, points, PaintMode::Fill),
+                None => polygon(ops, points, "f"),
             }
             for (a, b) in hatch {
-                stroke(layer, &[*a, *b], LineStyle::Solid, 0.4, Colour::grey(0.15));
+                stroke(ops, &[*a, *b], LineStyle::Solid, 0.4, Colour::grey(0.15));
             }
         }
         Mark::Marker {
@@ -173,12 +225,12 @@ fn draw(layer: &PdfLayerReference, fonts: &Fonts, mark: &Mark) {
             filled,
         } => {
             let outline = marker_outline(*at, *shape, *size_mm);
-            layer.set_line_dash_pattern(dash(LineStyle::Solid));
-            layer.set_outline_color(colour(*c));
-            layer.set_outline_thickness(0.8);
+            ops.push(dash(LineStyle::Solid));
+            ops.push(op("RG", rgb(*c)));
+            ops.push(op("w", vec![Object::Real(0.8)]));
             let fill = if *filled { *c } else { Colour::WHITE };
-            layer.set_fill_color(colour(fill));
-            polygon(layer, &outline, PaintMode::FillStroke);
+            ops.push(op("rg", rgb(fill)));
+            polygon(ops, &outline, "b");
         }
         Mark::Label {
             at,
@@ -188,50 +240,47 @@ fn draw(layer: &PdfLayerReference, fonts: &Fonts, mark: &Mark) {
             weight,
             colour: c,
             vertical,
-        } => label(
-            layer, fonts, *at, text, *size_pt, *anchor, *weight, *c, *vertical,
-        ),
+        } => {
+            let face = match weight {
+                Weight::Regular => Face::Regular,
+                Weight::Bold => Face::Bold,
+                Weight::Mono => Face::Mono,
+            };
+            let text = to_win_ansi(text);
+            let width = text_width_mm(&text, face, *size_pt);
+            let shift = match anchor {
+                Anchor::Left => 0.0,
+                Anchor::Centre => width / 2.0,
+                Anchor::Right => width,
+            };
+            ops.push(op("rg", rgb(*c)));
+            ops.push(op("BT", vec![]));
+            ops.push(op(
+                "Tf",
+                vec![Object::Name(font_name(face).into()), Object::Real(*size_pt)],
+            ));
+            let matrix = if *vertical {
+                // Rotated a quarter turn anticlockwise, reading upward.
+                [0.0, 1.0, -1.0, 0.0, at.x_mm, at.y_mm - shift]
+            } else {
+                [1.0, 0.0, 0.0, 1.0, at.x_mm - shift, at.y_mm]
+            };
+            ops.push(op(
+                "Tm",
+                vec![
+                    Object::Real(matrix[0]),
+                    Object::Real(matrix[1]),
+                    Object::Real(matrix[2]),
+                    Object::Real(matrix[3]),
+                    pt(matrix[4]),
+                    pt(matrix[5]),
+                ],
+            ));
+            ops.push(op(
+                "Tj",
+                vec![Object::String(win_ansi_bytes(&text), StringFormat::Literal)],
+            ));
+            ops.push(op("ET", vec![]));
+        }
     }
-}
-
-#[allow(clippy::too_many_arguments)]
-fn label(
-    layer: &PdfLayerReference,
-    fonts: &Fonts,
-    at: Pt,
-    text: &str,
-    size_pt: f32,
-    anchor: Anchor,
-    weight: Weight,
-    c: Colour,
-    vertical: bool,
-) {
-    let face = match weight {
-        Weight::Regular => Face::Regular,
-        Weight::Bold => Face::Bold,
-        Weight::Mono => Face::Mono,
-    };
-    let text = to_win_ansi(text);
-    let width = text_width_mm(&text, face, size_pt);
-    let shift = match anchor {
-        Anchor::Left => 0.0,
-        Anchor::Centre => width / 2.0,
-        Anchor::Right => width,
-    };
-    let font = fonts.get(face);
-    layer.set_fill_color(colour(c));
-    layer.begin_text_section();
-    layer.set_font(font, size_pt);
-    if vertical {
-        let pt = |mm: f32| printpdf::Pt(mm / MM_PER_PT);
-        layer.set_text_matrix(TextMatrix::TranslateRotate(
-            pt(at.x_mm),
-            pt(at.y_mm - shift),
-            90.0,
-        ));
-    } else {
-        layer.set_text_cursor(Mm(at.x_mm - shift), Mm(at.y_mm));
-    }
-    layer.write_text(text, font);
-    layer.end_text_section();
 }

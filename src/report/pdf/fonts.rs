@@ -70,6 +70,7 @@ fn transliterate(ch: char) -> &'static str {
         '\u{2022}' => "\u{b7}",
         '\u{2032}' => "'",
         '\u{2033}' => "\"",
+        '\u{221a}' => "sqrt ",
         _ => "?",
     }
 }
@@ -92,7 +93,7 @@ pub fn to_win_ansi(text: &str) -> String {
 
 /// Advance width of one character in 1/1000 em; characters outside the
 /// encoding measure as `?` (which is what [`to_win_ansi`] makes of them).
-fn glyph_width(face: Face, ch: char) -> u16 {
+pub fn glyph_width(face: Face, ch: char) -> u16 {
     let table = match face {
         Face::Regular => &HELVETICA,
         Face::Bold => &HELVETICA_BOLD,

@@ -49,6 +49,8 @@ impl PdfRenderer {
         sections::charts::charts(&ctx, &mut composer);
         sections::risk::sensitivity(&ctx, &mut composer);
         sections::risk::risk(&ctx, &mut composer);
+        sections::closing::cautions(&ctx, &mut composer)?;
+        // The appendix: performance, assumptions, ledgers, method.
         sections::performance::performance(&ctx, &mut composer);
         sections::assumptions::assumptions(&ctx, &mut composer);
         sections::appendix::ledger(&ctx, &mut composer);

@@ -82,7 +82,7 @@ fn longest_word_mm(text: &str, face: Face, size_pt: f32) -> f32 {
 
 /// Widest a single word may make a column; longer words (a long code or
 /// identifier) are broken instead of starving the other columns.
-const MAX_WORD_MM: f32 = 30.0;
+const MAX_WORD_MM: f32 = 48.0;
 
 /// Column widths (mm) summing to `available_mm`. Right-aligned (numeric)
 /// columns get their full body width if at all possible, so numbers are

@@ -1,41 +1,64 @@
 //! Fitting text into a width: word wrapping and truncation with an
 //! ellipsis, both measured with the real font metrics of [`super::fonts`].
 
-use super::fonts::{text_width_mm, to_win_ansi, Face};
+#[cfg(test)]
+use super::fonts::text_width_mm;
+use super::fonts::{glyph_width, to_win_ansi, Face, MM_PER_PT};
 
 /// The ellipsis that marks truncated text (WinAnsi code 0x85).
 pub const ELLIPSIS: char = '…';
 
+/// Width in mm of `units` thousandths of an em at `size_pt` (the same
+/// arithmetic as [`text_width_mm`], so a line measured piece by piece
+/// measures as the whole).
+fn mm(units: u32, size_pt: f32) -> f32 {
+    units as f32 / 1000.0 * size_pt * MM_PER_PT
+}
+
+/// Advance width of `text` in thousandths of an em.
+fn units(text: &str, face: Face) -> u32 {
+    text.chars().map(|c| u32::from(glyph_width(face, c))).sum()
+}
+
 /// `text` wrapped into lines no wider than `width_mm` when set in `face` at
 /// `size_pt`. Breaks at spaces (not at no-break spaces, U+00A0, which keep
 /// e.g. a currency code with its amount); a word wider than the line is
-/// broken between characters. Always returns at least one line.
+/// broken between characters. Always returns at least one line. Each
+/// character is measured once, so the time is linear in the text's length.
 pub fn wrap(text: &str, face: Face, size_pt: f32, width_mm: f32) -> Vec<String> {
+    let space = u32::from(glyph_width(face, ' '));
     let mut lines = Vec::new();
     let mut line = String::new();
+    let mut line_units = 0u32;
     let words = text
         .split([' ', '\n'])
         .filter(|w| !w.is_empty())
         .map(to_win_ansi);
     for word in words {
-        let word = word.as_str();
-        let candidate = if line.is_empty() {
-            word.to_string()
+        let word_units = units(&word, face);
+        let joined = if line.is_empty() {
+            word_units
         } else {
-            format!("{line} {word}")
+            line_units + space + word_units
         };
-        if text_width_mm(&candidate, face, size_pt) <= width_mm {
-            line = candidate;
+        if mm(joined, size_pt) <= width_mm {
+            if !line.is_empty() {
+                line.push(' ');
+            }
+            line.push_str(&word);
+            line_units = joined;
             continue;
         }
         if !line.is_empty() {
             lines.push(std::mem::take(&mut line));
         }
-        if text_width_mm(word, face, size_pt) <= width_mm {
-            line = word.to_string();
+        if mm(word_units, size_pt) <= width_mm {
+            line = word;
+            line_units = word_units;
         } else {
-            let mut pieces = break_word(word, face, size_pt, width_mm);
+            let mut pieces = break_word(&word, face, size_pt, width_mm);
             line = pieces.pop().unwrap_or_default();
+            line_units = units(&line, face);
             lines.extend(pieces);
         }
     }
@@ -50,35 +73,51 @@ pub fn wrap(text: &str, face: Face, size_pt: f32, width_mm: f32) -> Vec<String> 
 fn break_word(word: &str, face: Face, size_pt: f32, width_mm: f32) -> Vec<String> {
     let mut pieces = Vec::new();
     let mut piece = String::new();
+    let mut piece_units = 0u32;
     for ch in word.chars() {
-        piece.push(ch);
-        if piece.chars().count() > 1 && text_width_mm(&piece, face, size_pt) > width_mm {
-            piece.pop();
+        let w = u32::from(glyph_width(face, ch));
+        if !piece.is_empty() && mm(piece_units + w, size_pt) > width_mm {
             pieces.push(std::mem::take(&mut piece));
-            piece.push(ch);
+            piece_units = 0;
         }
+        piece.push(ch);
+        piece_units += w;
     }
     pieces.push(piece);
     pieces
 }
 
 /// `text` on one line no wider than `width_mm`: unchanged if it fits,
-/// otherwise cut and ended with an ellipsis.
+/// otherwise cut and ended with an ellipsis. Linear in the text's length:
+/// the longest prefix that fits with the ellipsis is found in one pass.
 pub fn fit(text: &str, face: Face, size_pt: f32, width_mm: f32) -> String {
     let text = to_win_ansi(text);
-    if text_width_mm(&text, face, size_pt) <= width_mm {
+    let total = units(&text, face);
+    if mm(total, size_pt) <= width_mm {
         return text;
     }
-    let mut kept: Vec<char> = text.chars().collect();
-    while !kept.is_empty() {
-        kept.pop();
-        let mut candidate: String = kept.iter().collect::<String>().trim_end().to_string();
-        candidate.push(ELLIPSIS);
-        if text_width_mm(&candidate, face, size_pt) <= width_mm {
-            return candidate;
+    let ellipsis = u32::from(glyph_width(face, ELLIPSIS));
+    // Byte end of the longest prefix that fits with the ellipsis after it
+    // (trailing spaces dropped, as they would not show before the mark).
+    let mut best: Option<usize> = None;
+    let mut prefix_units = 0u32;
+    for (index, ch) in text.char_indices() {
+        prefix_units += u32::from(glyph_width(face, ch));
+        if mm(prefix_units + ellipsis, size_pt) > width_mm {
+            break;
         }
+        best = Some(index + ch.len_utf8());
     }
-    String::new()
+    // The prefix must be shorter than the whole text (something was cut).
+    match best {
+        Some(end) => {
+            let mut cut = text[..end.min(text.len())].trim_end().to_string();
+            cut.push(ELLIPSIS);
+            cut
+        }
+        None if mm(ellipsis, size_pt) <= width_mm => ELLIPSIS.to_string(),
+        None => String::new(),
+    }
 }
 
 /// `text` wrapped into at most `max_lines` lines of `width_mm`; if it needs

@@ -5,37 +5,62 @@
 use super::{pdf_units, Ctx};
 use crate::report::charts::geometry::{Anchor, Colour, Mark, Pt, Weight};
 use crate::report::format;
-use crate::report::model::CandidateView;
-use crate::report::pdf::context::{money, money_opt, with_candidate};
+use crate::report::model::{CandidateView, Model};
+use crate::report::pdf::context::{short_money, unit_price, with_candidate};
 use crate::report::pdf::document::{line_height_mm, Composer, BODY_PT};
 use crate::report::pdf::fonts::{Face, MM_PER_PT};
 use crate::report::pdf::table::{draw_table, Column, TableStyle};
-use crate::report::pdf::text::wrap;
+use crate::report::pdf::text::{wrap, wrap_at_most};
 use crate::Result;
 
 /// Candidates per key-figures table; more are set in further tables so
 /// columns stay readable.
 const CANDIDATES_PER_TABLE: usize = 4;
 
-/// The key figures of `c`, in the order of [`figure_names`].
-pub fn key_figures(
-    c: &CandidateView,
-    currency: &str,
-    units: crate::report::model::Units,
-) -> Vec<String> {
+/// Lines of the title on the briefing page; a longer title is cut with an
+/// ellipsis.
+pub const TITLE_LINES: usize = 3;
+
+/// The key figures of `c`, in the order of [`figure_names`]. Money is
+/// rounded to three significant figures (the ledger keeps the cents).
+pub fn key_figures(c: &CandidateView, model: &Model) -> Vec<String> {
+    let currency = &model.meta.currency;
+    let units = model.meta.units;
     let e = &c.economics;
+    let short = |v: Option<rust_decimal::Decimal>| {
+        v.map_or_else(|| "n/a".to_string(), |v| short_money(v, currency))
+    };
+    let headroom = (!c.is_baseline).then_some(c.verdict.margin);
+    // A break-even fuel price below zero means no real fuel price makes the
+    // two cost the same.
+    let fuel_price = e.break_even_fuel_price.map(|p| {
+        if p.is_sign_negative() {
+            return "none above zero".to_string();
+        }
+        format!(
+            "{}/GJ {}",
+            unit_price(p, currency),
+            model.method.fuel_price_basis
+        )
+    });
     vec![
-        money(e.capital_cost, currency),
+        format!(
+            "{}\u{a0}MW",
+            format::number(c.performance.net_output_kw / 1000.0, 1)
+        ),
+        short(Some(e.capital_cost)),
         pdf_units(format::heat_rate(
             c.performance.heat_rate_kj_per_kwh,
             c.performance.heat_rate_btu_per_kwh,
             units,
         )),
-        money(e.lifecycle_cost, currency),
-        money_opt(e.net_savings_vs_baseline, currency),
-        money_opt(e.break_even_premium, currency),
-        money_opt(e.premium_asked, currency),
+        short(Some(e.lifecycle_cost)),
+        short(e.net_savings_vs_baseline),
+        short(e.break_even_premium),
+        short(e.premium_asked),
+        short(headroom),
         format::payback(e.discounted_payback),
+        fuel_price.unwrap_or_else(|| "n/a".to_string()),
     ]
 }
 
@@ -43,13 +68,16 @@ pub fn key_figures(
 pub fn figure_names(ctx: &Ctx) -> Vec<String> {
     let l = ctx.labels;
     vec![
+        l.rated_output.clone(),
         l.capital_cost.clone(),
         l.heat_rate.clone(),
         l.lifecycle_cost.clone(),
         l.net_savings.clone(),
         l.break_even_premium.clone(),
         l.premium_asked.clone(),
+        l.headroom.clone(),
         l.discounted_payback.clone(),
+        l.break_even_fuel_price.clone(),
     ]
 }
 
@@ -66,7 +94,9 @@ fn title_block(ctx: &Ctx, composer: &mut Composer) {
         colour: Colour::grey(0.35),
         vertical: false,
     });
-    for line in wrap(&meta.title, Face::Bold, 18.0, content.width_mm) {
+    // A title longer than three lines is cut with an ellipsis here (the
+    // running header shows one line of it; the PDF metadata keeps it whole).
+    for line in wrap_at_most(&meta.title, Face::Bold, 18.0, content.width_mm, TITLE_LINES) {
         let rect = composer.reserve(line_height_mm(18.0));
         composer.push(Mark::Label {
             at: Pt::new(rect.x_mm, rect.top_mm() - 18.0 * MM_PER_PT),
@@ -129,19 +159,31 @@ pub fn briefing(ctx: &Ctx, composer: &mut Composer) -> Result<()> {
     title_block(ctx, composer);
 
     composer.heading(&l.recommendation, 2, 12.0);
-    let sentence = ctx.wording.render("decision.j2", &ctx.base)?;
-    composer.paragraph(sentence.trim(), 11.0, Face::Bold, 0.0);
+    let decision = ctx.wording.render("decision.j2", &ctx.base)?;
+    // The recommendation itself is the first paragraph, in bold; what
+    // follows explains the figures.
+    for (i, block) in crate::report::wording::blocks(&decision)
+        .into_iter()
+        .enumerate()
+    {
+        match block {
+            crate::report::wording::Block::Paragraph(p) if i == 0 => {
+                composer.paragraph(&p, 11.0, Face::Bold, 0.0)
+            }
+            crate::report::wording::Block::Paragraph(p) => {
+                composer.paragraph(&p, BODY_PT, Face::Regular, 0.0)
+            }
+            crate::report::wording::Block::Bullet(b) => composer.bullet(&b, BODY_PT),
+            crate::report::wording::Block::Heading(h) => composer.heading(&h, 2, 12.0),
+        }
+    }
 
     composer.heading(&l.key_figures, 2, 30.0);
-    let currency = &model.meta.currency;
     let names = figure_names(ctx);
     for group in model.candidates.chunks(CANDIDATES_PER_TABLE) {
         let mut columns = vec![Column::left(l.figure.clone())];
         columns.extend(group.iter().map(|c| Column::right(c.label.clone())));
-        let figures: Vec<Vec<String>> = group
-            .iter()
-            .map(|c| key_figures(c, currency, model.meta.units))
-            .collect();
+        let figures: Vec<Vec<String>> = group.iter().map(|c| key_figures(c, model)).collect();
         let rows: Vec<Vec<String>> = names
             .iter()
             .enumerate()
@@ -152,7 +194,7 @@ pub fn briefing(ctx: &Ctx, composer: &mut Composer) -> Result<()> {
             })
             .collect();
         let style = TableStyle {
-            size_pt: 8.5,
+            size_pt: 8.0,
             max_lines: 2,
             bold_first_column: true,
             header: true,
@@ -161,7 +203,9 @@ pub fn briefing(ctx: &Ctx, composer: &mut Composer) -> Result<()> {
     }
 
     composer.heading(&l.verdicts, 2, 12.0);
-    for c in &model.candidates {
+    // The baseline needs no verdict: the key figures name it and every
+    // other verdict is against it.
+    for c in model.candidates.iter().filter(|c| !c.is_baseline) {
         let text = ctx
             .wording
             .render("verdict.j2", &with_candidate(model, c))?;
@@ -183,9 +227,9 @@ pub fn briefing(ctx: &Ctx, composer: &mut Composer) -> Result<()> {
             .take(3)
             .map(|k| {
                 vec![
-                    format!("{} ({})", k.label, k.key),
+                    k.label.clone(),
                     k.base_value.clone(),
-                    money(k.swing, currency),
+                    short_money(k.swing, &model.meta.currency),
                 ]
             })
             .collect();

@@ -4,6 +4,7 @@
 
 use super::Ctx;
 use crate::report::charts::breakdown::breakdown_chart;
+use crate::report::charts::difference::difference_chart;
 use crate::report::charts::fuel_price::fuel_price_chart;
 use crate::report::charts::geometry::Mark;
 use crate::report::charts::savings::savings_chart;
@@ -17,11 +18,23 @@ const GAP_MM: f32 = 6.0;
 /// Size of the note under the diagrams, pt.
 const NOTE_PT: f32 = 8.0;
 
-/// Height for each of `count` charts sharing what is left of the page,
-/// capped at `max_mm`.
+/// Smallest chart worth drawing, mm: with less room left on the page, the
+/// charts start on the next one.
+const MIN_CHART_MM: f32 = 80.0;
+
+/// Height for each of `count` charts sharing what is left of the page
+/// (each followed by a gap; half a millimetre kept back so rounding never
+/// pushes the last one over), capped at `max_mm`. Starts a new page when
+/// the share would be smaller than [`MIN_CHART_MM`].
 fn share(composer: &mut Composer, count: usize, max_mm: f32) -> f32 {
-    let room = composer.remaining_mm() - GAP_MM * (count as f32 - 1.0);
-    (room / count as f32).min(max_mm)
+    let height = |composer: &mut Composer| {
+        let room = composer.remaining_mm() - GAP_MM * count as f32 - 0.5;
+        (room / count as f32).min(max_mm)
+    };
+    if height(composer) < MIN_CHART_MM.min(max_mm) {
+        composer.new_page(Orientation::Portrait);
+    }
+    height(composer)
 }
 
 fn place(composer: &mut Composer, marks: Vec<Mark>) {
@@ -34,7 +47,8 @@ fn place(composer: &mut Composer, marks: Vec<Mark>) {
 pub fn charts(ctx: &Ctx, composer: &mut Composer) {
     let model = ctx.model;
     let l = ctx.labels;
-    composer.new_page(Orientation::Portrait);
+    // Flows on from the briefing page: on short paper whatever of page 1
+    // runs over shares the next page with the charts.
     composer.heading(&l.charts, 1, 100.0);
     let height = share(composer, 2, 118.0);
     let area = composer.reserve(height);
@@ -48,10 +62,14 @@ pub fn charts(ctx: &Ctx, composer: &mut Composer) {
         composer.gap(GAP_MM);
     }
 
-    composer.new_page(Orientation::Portrait);
     let height = share(composer, 2, 118.0);
     let area = composer.reserve(height);
     if let Some(chart) = breakdown_chart(model, l, area) {
+        place(composer, chart.chart.marks);
+        composer.gap(GAP_MM);
+    }
+    let area = composer.reserve(height);
+    if let Some(chart) = difference_chart(model, l, area) {
         place(composer, chart.chart.marks);
         composer.gap(GAP_MM);
     }

@@ -6,7 +6,15 @@ use crate::report::pdf::document::{line_height_mm, Composer, Orientation};
 use crate::report::pdf::table::{draw_table, Column, TableStyle};
 use crate::Result;
 
-/// Lay out method, references and cautions, then the traceability block.
+/// The cautions, at the end of the briefing and before the appendix, so a
+/// reader who stops there has read them.
+pub fn cautions(ctx: &Ctx, composer: &mut Composer) -> Result<()> {
+    composer.heading(&ctx.labels.cautions, 1, 30.0);
+    prose(composer, &ctx.wording.render("cautions.j2", &ctx.base)?);
+    Ok(())
+}
+
+/// Lay out method and references, then the traceability block.
 pub fn closing(ctx: &Ctx, composer: &mut Composer) -> Result<()> {
     let l = ctx.labels;
     composer.new_page(Orientation::Portrait);
@@ -15,9 +23,6 @@ pub fn closing(ctx: &Ctx, composer: &mut Composer) -> Result<()> {
 
     composer.heading(&l.references, 1, 20.0);
     prose(composer, &ctx.wording.render("references.j2", &ctx.base)?);
-
-    composer.heading(&l.cautions, 1, 20.0);
-    prose(composer, &ctx.wording.render("cautions.j2", &ctx.base)?);
 
     let meta = &ctx.model.meta;
     let rows = vec![

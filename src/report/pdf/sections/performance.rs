@@ -4,12 +4,58 @@
 use super::{pdf_units, Ctx};
 use crate::report::format;
 use crate::report::model::{CandidateView, Units};
-use crate::report::pdf::document::{Composer, Orientation};
+use crate::report::pdf::document::Composer;
+use crate::report::pdf::fonts::Face;
 use crate::report::pdf::table::{draw_table, Column, TableStyle};
 
-/// Specific energy in kJ/kg with its unit.
-fn kj_per_kg(value: f64) -> String {
-    format!("{} kJ/kg", format::number(value, 1))
+/// kJ/kg per Btu/lb: 2.326 exactly, by the definition of the International
+/// Table Btu (NIST SP 811, 2008, Appendix B.8).
+const KJ_PER_KG_PER_BTU_PER_LB: f64 = 2.326;
+
+/// kJ/(kg·K) per Btu/(lb·°R): 4.1868 exactly (NIST SP 811, 2008, Appendix
+/// B.8).
+const KJ_PER_KG_K_PER_BTU_PER_LB_R: f64 = 4.1868;
+
+/// Unit of specific energy in `units`.
+fn specific_energy_unit(units: Units) -> &'static str {
+    match units {
+        Units::Si => "kJ/kg",
+        Units::Us => "Btu/lb",
+    }
+}
+
+/// Unit of specific entropy in `units`.
+fn specific_entropy_unit(units: Units) -> &'static str {
+    match units {
+        Units::Si => "kJ/(kg·K)",
+        Units::Us => "Btu/(lb·°R)",
+    }
+}
+
+/// A specific energy given in kJ/kg, in the display unit system.
+fn specific_energy(kj_per_kg: f64, units: Units) -> f64 {
+    match units {
+        Units::Si => kj_per_kg,
+        Units::Us => kj_per_kg / KJ_PER_KG_PER_BTU_PER_LB,
+    }
+}
+
+/// A specific entropy given in kJ/(kg·K), in the display unit system.
+fn specific_entropy(kj_per_kg_k: f64, units: Units) -> f64 {
+    match units {
+        Units::Si => kj_per_kg_k,
+        Units::Us => kj_per_kg_k / KJ_PER_KG_K_PER_BTU_PER_LB_R,
+    }
+}
+
+/// Specific energy (given in kJ/kg) with its unit, in the display unit
+/// system.
+fn specific_energy_text(value: f64, units: Units) -> String {
+    format!(
+        "{} {}",
+        format::number(specific_energy(value, units), 1),
+        specific_energy_unit(units)
+    )
 }
 
 /// The headline rows (name, value) of one candidate.
@@ -54,14 +100,23 @@ fn headline(ctx: &Ctx, c: &CandidateView) -> Vec<(String, String)> {
         ),
         (
             l.compressor_work.clone(),
-            kj_per_kg(k.compressor_work_kj_per_kg),
+            specific_energy_text(k.compressor_work_kj_per_kg, units),
         ),
-        (l.turbine_work.clone(), kj_per_kg(k.turbine_work_kj_per_kg)),
-        (l.net_work.clone(), kj_per_kg(k.net_work_kj_per_kg)),
-        (l.heat_input.clone(), kj_per_kg(k.heat_input_kj_per_kg)),
+        (
+            l.turbine_work.clone(),
+            specific_energy_text(k.turbine_work_kj_per_kg, units),
+        ),
+        (
+            l.net_work.clone(),
+            specific_energy_text(k.net_work_kj_per_kg, units),
+        ),
+        (
+            l.heat_input.clone(),
+            specific_energy_text(k.heat_input_kj_per_kg, units),
+        ),
         (
             l.heat_rejected.clone(),
-            kj_per_kg(k.heat_rejected_kj_per_kg),
+            specific_energy_text(k.heat_rejected_kj_per_kg, units),
         ),
         (
             l.back_work_ratio.clone(),
@@ -69,7 +124,11 @@ fn headline(ctx: &Ctx, c: &CandidateView) -> Vec<(String, String)> {
         ),
         (
             l.energy_residual.clone(),
-            format!("{:.2e} kJ/kg", k.energy_balance_residual_kj_per_kg),
+            format!(
+                "{:.2e} {}",
+                specific_energy(k.energy_balance_residual_kj_per_kg, units),
+                specific_energy_unit(units)
+            ),
         ),
     ];
     if let Some(far) = k.fuel_air_ratio {
@@ -96,8 +155,8 @@ fn state_rows(c: &CandidateView, units: Units) -> Vec<Vec<String>> {
                 s.name.clone(),
                 pdf_units(format::temperature(s.temperature_k, units)),
                 format::pressure(s.pressure_kpa, units),
-                format::number(s.enthalpy_kj_per_kg, 1),
-                format!("{:.4}", s.entropy_kj_per_kg_k),
+                format::number(specific_energy(s.enthalpy_kj_per_kg, units), 1),
+                format!("{:.4}", specific_entropy(s.entropy_kj_per_kg_k, units)),
             ]
         })
         .collect()
@@ -106,7 +165,10 @@ fn state_rows(c: &CandidateView, units: Units) -> Vec<Vec<String>> {
 /// Lay out the performance section.
 pub fn performance(ctx: &Ctx, composer: &mut Composer) {
     let l = ctx.labels;
-    composer.new_page(Orientation::Portrait);
+    // The appendix flows on under the cautions that end the briefing (a
+    // page of its own would leave the cautions nearly alone on theirs).
+    composer.heading(&l.appendix, 1, 80.0);
+    composer.paragraph(&l.appendix_note, 9.0, Face::Regular, 0.0);
     composer.heading(&l.performance, 1, 60.0);
     for c in &ctx.model.candidates {
         composer.heading(&c.label, 2, 50.0);
@@ -135,8 +197,16 @@ pub fn performance(ctx: &Ctx, composer: &mut Composer) {
             Column::left(l.state_name.clone()),
             Column::right(l.temperature.clone()),
             Column::right(l.pressure.clone()),
-            Column::right(l.enthalpy.clone()),
-            Column::right(l.entropy.clone()),
+            Column::right(format!(
+                "{}, {}",
+                l.enthalpy,
+                specific_energy_unit(ctx.model.meta.units)
+            )),
+            Column::right(format!(
+                "{}, {}",
+                l.entropy,
+                specific_entropy_unit(ctx.model.meta.units)
+            )),
         ];
         draw_table(
             composer,

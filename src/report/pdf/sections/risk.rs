@@ -8,7 +8,7 @@ use crate::report::charts::histogram::histogram_chart;
 use crate::report::charts::tornado::tornado_chart;
 use crate::report::model::SensitivityBar;
 use crate::report::pdf::context::money;
-use crate::report::pdf::document::{Composer, Orientation};
+use crate::report::pdf::document::Composer;
 use crate::report::pdf::fonts::Face;
 use crate::report::pdf::table::{draw_table, Column, TableStyle};
 
@@ -36,7 +36,8 @@ pub fn sensitivity(ctx: &Ctx, composer: &mut Composer) {
     if model.sensitivity.is_empty() {
         return;
     }
-    composer.new_page(Orientation::Portrait);
+    // Sections flow on from the one before; the heading moves to a new
+    // page only when its first chart would not fit under it.
     composer.heading(&ctx.labels.sensitivity, 1, 80.0);
     let mut ids: Vec<&str> = Vec::new();
     for bar in &model.sensitivity {
@@ -71,7 +72,6 @@ pub fn risk(ctx: &Ctx, composer: &mut Composer) {
     };
     let l = ctx.labels;
     let currency = &ctx.model.meta.currency;
-    composer.new_page(Orientation::Portrait);
     composer.heading(&l.risk, 1, 60.0);
     composer.paragraph(
         &format!(
@@ -147,7 +147,7 @@ pub fn risk(ctx: &Ctx, composer: &mut Composer) {
         },
     );
     for c in &risk.candidates {
-        let height = 95.0f32.min(composer.content_box().height_mm);
+        let height = 80.0f32.min(composer.content_box().height_mm);
         let area = composer.reserve(height);
         let title = label_of(ctx, &c.candidate_id);
         if let Some(chart) = histogram_chart(c, &title, currency, l, area) {

@@ -73,7 +73,9 @@ fn ledger_rows(outcome: &CandidateOutcome) -> Vec<LedgerRowView> {
 /// Ordered by time, then capital before operation before residual.
 fn event_key(row: &crate::finance::LedgerRow) -> (u8, chrono::NaiveDate, chrono::NaiveDate) {
     let rank = match row.kind {
-        RowKind::Capital => 0,
+        // A guarantee settlement is capital-like: paid once, at the
+        // acceptance test (commercial operation).
+        RowKind::Capital | RowKind::Settlement => 0,
         RowKind::Operation => 1,
         RowKind::Residual => 2,
     };
@@ -110,7 +112,7 @@ fn cumulative(outcome: &CandidateOutcome, baseline: &CandidateOutcome) -> Vec<Cu
         );
     for (row, signed) in rows {
         let x = match row.kind {
-            RowKind::Capital => row.cash_time_years.min(0.0),
+            RowKind::Capital | RowKind::Settlement => row.cash_time_years.min(0.0),
             RowKind::Operation | RowKind::Residual => row.time_end_years,
         };
         let entry = events

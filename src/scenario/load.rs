@@ -2,13 +2,15 @@
 //! scenario, validate, and keep what the report needs (defaults applied,
 //! inputs as given, file hash).
 
-use super::candidate_section::read_candidates;
+use super::candidate_reader::read_candidates;
 use super::context::{locate, AppliedDefault, Context, InputLine};
+use super::economics::read_economics;
 use super::error::ScenarioError;
-use super::fuel_section::read_fuel;
-use super::operation_section::read_operation;
+use super::fuel::read_fuel;
+use super::operation::read_operation;
 use super::reader::TableReader;
-use super::sections::{read_economics, read_meta, read_site};
+use super::scenario_table::read_meta;
+use super::site::read_site;
 use super::tree::{line_column, parse_document, Node, NodeValue};
 use super::types::Scenario;
 use super::uncertainty_section::read_uncertainty;

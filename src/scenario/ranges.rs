@@ -110,3 +110,56 @@ mod tests {
         assert!(Range::Positive.check(f64::NAN).is_err());
     }
 }
+
+/// Physically sensible bounds of a value in its internal unit, inclusive,
+/// with the reason they are where they are. Checked after the [`Range`]
+/// (which keeps its sign and openness messages), so a value that passes
+/// the sign rule but makes no physical sense is still refused at load.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct Limits {
+    /// Lowest valid value, internal unit.
+    pub low: f64,
+    /// Highest valid value, internal unit.
+    pub high: f64,
+    /// The internal unit as printed after a number (`"K"`, `""`).
+    pub unit: &'static str,
+    /// Why the bounds are where they are (shown in messages and the docs).
+    pub reason: &'static str,
+}
+
+impl Limits {
+    /// Check `value`; on failure return (what is wrong, what would be valid).
+    pub fn check(&self, value: f64) -> Result<(), (String, String)> {
+        let unit = if self.unit.is_empty() {
+            String::new()
+        } else {
+            format!(" {}", self.unit)
+        };
+        let wrong = if !value.is_finite() {
+            Some("is not a finite number")
+        } else if value < self.low {
+            Some("is below the sensible range")
+        } else if value > self.high {
+            Some("is above the sensible range")
+        } else {
+            None
+        };
+        match wrong {
+            Some(why) => Err((format!("{value}{unit} {why}"), self.valid())),
+            None => Ok(()),
+        }
+    }
+
+    /// What would be valid, for messages: the bounds and the reason.
+    pub fn valid(&self) -> String {
+        let unit = if self.unit.is_empty() {
+            String::new()
+        } else {
+            format!(" {}", self.unit)
+        };
+        format!(
+            "expected {}{unit} to {}{unit} ({})",
+            self.low, self.high, self.reason
+        )
+    }
+}

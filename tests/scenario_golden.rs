@@ -13,7 +13,12 @@ use std::path::Path;
 fn check(demo: &str) {
     let output = Command::cargo_bin("brayfin")
         .expect("the brayfin binary is built for integration tests")
-        .args(["compare", &format!("scenarios/{demo}.toml"), "--format", "json"])
+        .args([
+            "compare",
+            &format!("scenarios/{demo}.toml"),
+            "--format",
+            "json",
+        ])
         .output()
         .expect("brayfin runs");
     assert!(

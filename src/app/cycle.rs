@@ -39,7 +39,11 @@ fn read(
     text: &str,
     parse: fn(&str) -> std::result::Result<f64, UnitError>,
 ) -> Result<f64> {
-    parse(text).map_err(|e| flag_error(flag, e))
+    let value = parse(text).map_err(|e| flag_error(flag, e))?;
+    // The scenario's declared range of the key this flag stands for.
+    crate::scenario::check_flag_value(flag, value)
+        .map_err(|why| Error::Input(format!("--{flag}: {why}")))?;
+    Ok(value)
 }
 
 /// The engine, gas model and fuel the flags describe.

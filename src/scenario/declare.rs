@@ -12,7 +12,7 @@
 //! ([`docs_tables`], checked by `tests/scenario_docs.rs`).
 
 use super::candidate::Candidate;
-use super::ranges::{Limits, Range};
+use super::ranges::{shown, Limits, Range};
 use super::types::Scenario;
 use crate::units::{self, Kind, UnitError};
 use rust_decimal::prelude::{FromPrimitive, ToPrimitive};
@@ -332,7 +332,9 @@ fn row<T>(key: &Key<T>, shown_path: &str) -> String {
             };
             format!(
                 "{}{unit} to {}{unit}: {}",
-                limits.low, limits.high, limits.reason
+                shown(limits.low),
+                shown(limits.high),
+                limits.reason
             )
         }
         (Some(range), None) => range.valid().trim_start_matches("expected ").to_string(),
@@ -372,6 +374,17 @@ pub fn docs_tables() -> Vec<(String, String)> {
         "candidate".to_string(),
         format!("{HEADER}\n{}", rows.join("\n")),
     ));
+    let rows: Vec<String> = declared_key_paths()
+        .into_iter()
+        .map(|(path, kind)| format!("| `{path}` | {kind} |"))
+        .collect();
+    tables.push((
+        "key paths".to_string(),
+        format!(
+            "| key path | unit kind (internal unit as in *Values and units*) |\n| --- | --- |\n{}",
+            rows.join("\n")
+        ),
+    ));
     tables
 }
 
@@ -386,4 +399,40 @@ pub fn declared_key_paths() -> Vec<(String, &'static str)> {
         .filter(|k| k.access.is_some())
         .filter_map(|k| Some((format!("candidate.{}", k.path), kind_text(k.kind()?))));
     shared.chain(candidate).collect()
+}
+
+/// The scenario key each numeric `cycle` flag stands for (the same ranges
+/// hold on the command line as in a file).
+const FLAG_KEYS: &[(&str, &str)] = &[
+    ("ambient-temperature", "site.ambient_temperature"),
+    ("ambient-pressure", "site.ambient_pressure"),
+    ("pressure-ratio", "pressure_ratio"),
+    ("turbine-inlet-temperature", "turbine_inlet_temperature"),
+    ("compressor-efficiency", "compressor_efficiency"),
+    ("turbine-efficiency", "turbine_efficiency"),
+    ("combustor-pressure-loss", "combustor_pressure_loss"),
+    ("regenerator-effectiveness", "regenerator.effectiveness"),
+    (
+        "regenerator-pressure-loss",
+        "regenerator.air_side_pressure_loss",
+    ),
+    ("intercool-temperature", "intercooler.exit_temperature"),
+    ("reheat-temperature", "reheat.temperature"),
+    ("net-output", "net_output"),
+];
+
+/// Check the value of a `cycle` flag (named without its dashes, e.g.
+/// `pressure-ratio`; value in the internal unit) against the declared range
+/// of the scenario key it stands for. `Err` is one line: what is wrong and
+/// what would be valid. A flag with no scenario key passes.
+pub fn check_flag_value(flag: &str, value: f64) -> Result<(), String> {
+    let Some((_, path)) = FLAG_KEYS.iter().find(|(f, _)| *f == flag) else {
+        return Ok(());
+    };
+    let checked = if path.starts_with("site.") {
+        check_scenario_value(path, value)
+    } else {
+        check_candidate_value(path, value)
+    };
+    checked.map_err(|(problem, valid)| format!("{problem}; {valid}"))
 }

@@ -31,7 +31,9 @@ mod values;
 mod warnings;
 
 pub use context::{AppliedDefault, InputLine};
-pub use declare::{check_candidate_value, check_scenario_value, declared_key_paths, docs_tables};
+pub use declare::{
+    check_candidate_value, check_flag_value, check_scenario_value, declared_key_paths, docs_tables,
+};
 pub use error::{KeyError, ScenarioError};
 pub use load::{load, parse, LoadedScenario};
 pub use ranges::HOURS_PER_LEAP_YEAR;

@@ -4,6 +4,17 @@
 /// Hours in a leap year, the most a year can operate (366 × 24).
 pub const HOURS_PER_LEAP_YEAR: f64 = 8784.0;
 
+/// A number as a message shows it: as Rust prints it, except very large
+/// or very small magnitudes in exponent form (`1e308`, not 309 digits).
+pub(crate) fn shown(value: f64) -> String {
+    let magnitude = value.abs();
+    if value.is_finite() && value != 0.0 && !(1e-4..1e9).contains(&magnitude) {
+        format!("{value:e}")
+    } else {
+        format!("{value}")
+    }
+}
+
 /// The valid range of a numeric value.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub(crate) enum Range {
@@ -56,7 +67,7 @@ impl Range {
             _ => None,
         };
         match wrong {
-            Some(why) => Err((format!("{value} {why}"), self.valid())),
+            Some(why) => Err((format!("{} {why}", shown(value)), self.valid())),
             None => Ok(()),
         }
     }
@@ -108,6 +119,9 @@ mod tests {
         assert!(Range::Whole(1, 60).check(30.5).is_err());
         assert!(Range::Whole(1, 60).check(61.0).is_err());
         assert!(Range::Positive.check(f64::NAN).is_err());
+        assert_eq!(shown(1e308), "1e308");
+        assert_eq!(shown(1.3), "1.3");
+        assert_eq!(shown(2e6), "2000000");
     }
 }
 
@@ -145,7 +159,7 @@ impl Limits {
             None
         };
         match wrong {
-            Some(why) => Err((format!("{value}{unit} {why}"), self.valid())),
+            Some(why) => Err((format!("{}{unit} {why}", shown(value)), self.valid())),
             None => Ok(()),
         }
     }
@@ -159,7 +173,9 @@ impl Limits {
         };
         format!(
             "expected {}{unit} to {}{unit} ({})",
-            self.low, self.high, self.reason
+            shown(self.low),
+            shown(self.high),
+            self.reason
         )
     }
 }

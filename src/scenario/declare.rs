@@ -436,3 +436,88 @@ pub fn check_flag_value(flag: &str, value: f64) -> Result<(), String> {
     };
     checked.map_err(|(problem, valid)| format!("{problem}; {valid}"))
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    /// A scenario giving only what is required.
+    const MINIMAL: &str = r#"
+[scenario]
+title = "Minimal"
+date = 2025-01-01
+currency = "USD"
+baseline = "standard"
+
+[fuel]
+composition = "methane"
+price = "4 USD/GJ"
+price_basis = "lhv"
+
+[economics]
+commercial_operation = 2026-01-01
+service_life_years = 20
+discount_rate = "7 %"
+
+[operation]
+hours_per_year = "4000 h"
+
+[[candidate]]
+id = "standard"
+capital_cost = "40000000 USD"
+net_output = "40 MW"
+pressure_ratio = 16
+turbine_inlet_temperature = "1450 K"
+compressor_efficiency = "86 %"
+turbine_efficiency = "89 %"
+"#;
+
+    #[test]
+    fn recorded_defaults_are_the_declared_defaults() {
+        let loaded = match crate::scenario::parse(MINIMAL, "minimal.toml") {
+            Ok(loaded) => loaded,
+            Err(e) => panic!("{e}"),
+        };
+        let mut matched = 0;
+        for applied in &loaded.applied_defaults {
+            let path = applied
+                .key
+                .strip_prefix("candidate[standard].")
+                .unwrap_or(&applied.key);
+            let declared = scenario_keys()
+                .find(|k| k.path == path)
+                .map(|k| k.presence)
+                .or_else(|| {
+                    candidate_keys()
+                        .find(|k| k.path == path)
+                        .map(|k| k.presence)
+                });
+            let Some(Presence::Default { text, .. }) = declared else {
+                continue;
+            };
+            // Money defaults are recorded with the currency and unit
+            // ("0 USD/kW-yr"); the declaration states the number.
+            assert!(
+                applied.value.starts_with(text),
+                "{}: recorded {:?}, declared {text:?}",
+                applied.key,
+                applied.value
+            );
+            matched += 1;
+        }
+        // Every declared default of a key outside optional parts
+        // (regenerator, intercooler, reheat, cold-air constants) applies.
+        let expected = scenario_keys()
+            .map(|k| (k.path, k.presence))
+            .chain(candidate_keys().map(|k| (k.path, k.presence)))
+            .filter(|(path, presence)| {
+                matches!(presence, Presence::Default { .. })
+                    && !["regenerator.", "intercooler.", "reheat."]
+                        .iter()
+                        .any(|p| path.starts_with(p))
+                    && !["cp_kj_per_kg_k", "specific_heat_ratio"].contains(path)
+            })
+            .count();
+        assert_eq!(matched, expected);
+    }
+}

@@ -3,7 +3,10 @@
 //! `candidate_costs.rs`). The reader is `candidate_reader.rs`.
 
 use super::declare::{money_from_f64, money_to_f64, Key, Presence, SetResult, Shape};
-use super::ranges::Range;
+use super::ranges::{
+    Range, AMBIENT_P_KPA, AMBIENT_P_REASON, AMBIENT_T_K, AMBIENT_T_REASON, AMOUNT_HIGH,
+    AMOUNT_REASON,
+};
 use crate::units::Kind;
 use rust_decimal::Decimal;
 
@@ -194,17 +197,10 @@ const LOSS_REASON: &str =
 const HOT_LOW: f64 = 180.0;
 const HOT_HIGH: f64 = 2300.0;
 const HOT_REASON: &str = "about 2230 K is the adiabatic flame temperature of stoichiometric methane in air (common practice); the low end is the coldest air, and the value must also be above ambient";
-/// Ambient conditions of a rating: the same bounds as `[site]`.
-const AMBIENT_T_REASON: &str =
-    "the coldest and hottest air temperatures recorded on Earth, about 184 K and 330 K (from memory), with margin";
-const AMBIENT_P_REASON: &str = "from above the highest sites anything is built (about 50 kPa at 5.5 km, ISO 2533) to below-sea-level sites in a strong high (about 108 kPa), with margin";
 /// Pressure ratios (overall, or of a split).
 const RATIO_LOW: f64 = 1.5;
 const RATIO_HIGH: f64 = 80.0;
 const RATIO_REASON: &str = "industrial and aero-derivative gas turbines run at about 4 to 45; below 1.5 a cycle makes almost no work (common practice)";
-/// Amounts of money (capital, an overhaul): catches unit slips.
-const AMOUNT_HIGH: f64 = 1e13;
-const AMOUNT_REASON: &str = "an amount in any currency; larger is a unit slip";
 
 /// The keys of a `[[candidate]]` table (paths relative to the candidate),
 /// in the order the docs list them. `costs` keys are in `candidate_costs.rs`.
@@ -566,7 +562,7 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
             Ok(())
         },
     )
-    .within(180.0, 340.0, "K", AMBIENT_T_REASON),
+    .within(AMBIENT_T_K.0, AMBIENT_T_K.1, "K", AMBIENT_T_REASON),
     K::number(
         "rating.pressure",
         Kind::Pressure,
@@ -579,7 +575,7 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
             Ok(())
         },
     )
-    .within(30.0, 120.0, "kPa", AMBIENT_P_REASON),
+    .within(AMBIENT_P_KPA.0, AMBIENT_P_KPA.1, "kPa", AMBIENT_P_REASON),
     K::number(
         "rating.relative_humidity",
         Kind::Fraction,

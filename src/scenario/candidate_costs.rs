@@ -4,7 +4,7 @@ use super::candidate::{Candidate, CandidateCosts, ResidualValue};
 use super::context::Context;
 use super::declare::{keys_in, money_from_f64, money_to_f64, Key, Presence, Shape};
 use super::error::ScenarioError;
-use super::ranges::Range;
+use super::ranges::{Range, AMOUNT_HIGH, AMOUNT_REASON, PRICE_HIGH, PRICE_REASON};
 use super::reader::{type_error, TableReader};
 use super::tree::NodeValue;
 use super::values::{date_of_node, in_currency, money_or_zero};
@@ -17,9 +17,6 @@ type K = Key<Candidate>;
 
 /// Fractions of a construction schedule must sum to 1 within this.
 const SCHEDULE_SUM_TOLERANCE: f64 = 1e-9;
-
-const PRICE_HIGH: f64 = 1e7;
-const PRICE_REASON: &str = "a price per unit in any currency; larger is a unit slip";
 
 /// The keys of a candidate's `costs` table (paths relative to the
 /// candidate).
@@ -75,7 +72,7 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
             Ok(())
         },
     )
-    .within(0.0, 1e13, "", "an amount in any currency; larger is a unit slip"),
+    .within(0.0, AMOUNT_HIGH, "", AMOUNT_REASON),
     K::number(
         "costs.degradation_per_year",
         Kind::Fraction,

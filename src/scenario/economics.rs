@@ -4,7 +4,7 @@
 use super::context::Context;
 use super::declare::{keys_in, money_from_f64, money_to_f64, Key, Presence, Shape};
 use super::error::ScenarioError;
-use super::ranges::Range;
+use super::ranges::{Range, PRICE_HIGH, PRICE_REASON, RATE_HIGH, RATE_LOW, RATE_REASON};
 use super::reader::TableReader;
 use super::tree::Node;
 use super::types::{Economics, RateBasis, Scenario, Timing};
@@ -14,15 +14,6 @@ use crate::units::{self, Kind};
 type Read<T> = Result<T, ScenarioError>;
 /// Declarations of this section are keys into the whole [`Scenario`].
 type K = Key<Scenario>;
-
-/// Yearly rates (discount, inflation, escalation): the bounds and why.
-const RATE_LOW: f64 = -0.5;
-const RATE_HIGH: f64 = 1.0;
-const RATE_REASON: &str = "a planning rate per year; beyond −50 % or +100 % a year the discounting of a multi-year ledger says nothing (common practice)";
-/// Money per unit (prices, values per kW-yr or MWh): an upper bound that
-/// catches unit slips and keeps sums far from overflow in any currency.
-const PRICE_HIGH: f64 = 1e7;
-const PRICE_REASON: &str = "a price per unit in any currency; larger is a unit slip";
 
 /// The keys of `[economics]`.
 pub(crate) const KEYS: &[Key<Scenario>] = &[

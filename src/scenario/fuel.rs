@@ -5,7 +5,7 @@
 use super::context::Context;
 use super::declare::{keys_in, money_from_f64, money_to_f64, Key, Presence, SetResult, Shape};
 use super::error::ScenarioError;
-use super::ranges::Range;
+use super::ranges::{Range, RATE_HIGH, RATE_LOW, RATE_REASON};
 use super::reader::{quantity_of_node, record_node, type_error, TableReader};
 use super::suggest::did_you_mean;
 use super::tree::{Node, NodeValue};
@@ -91,7 +91,7 @@ pub(crate) const KEYS: &[Key<Scenario>] = &[
             Ok(())
         },
     )
-    .within(-0.5, 1.0, "", "a planning rate per year; beyond −50 % or +100 % a year the discounting of a multi-year ledger says nothing (common practice)"),
+    .within(RATE_LOW, RATE_HIGH, "", RATE_REASON),
     K::plain("fuel.price_path", Shape::Table, Presence::Optional { text: "none" }, "`{ 2027 = \"4.20 USD/MMBtu\", 2028 = \"4.35 USD/MMBtu\" }`: prices by calendar year, contiguous, covering the commercial-operation year; later years escalate from the last at `escalation`. Replaces `price` (not both); `price` is then the path's value in the commercial-operation year"),
 ];
 

@@ -4,6 +4,30 @@
 /// Hours in a leap year, the most a year can operate (366 × 24).
 pub const HOURS_PER_LEAP_YEAR: f64 = 8784.0;
 
+/// Yearly rates (discount, inflation, escalations): lowest sensible value.
+pub(crate) const RATE_LOW: f64 = -0.5;
+/// Yearly rates: highest sensible value.
+pub(crate) const RATE_HIGH: f64 = 1.0;
+/// Why yearly rates are bounded so.
+pub(crate) const RATE_REASON: &str = "a planning rate per year; beyond −50 % or +100 % a year the discounting of a multi-year ledger says nothing (common practice)";
+/// Money per unit (per kW-yr, per MWh, per t): highest sensible value in
+/// any currency.
+pub(crate) const PRICE_HIGH: f64 = 1e7;
+/// Why prices per unit are bounded so.
+pub(crate) const PRICE_REASON: &str = "a price per unit in any currency; larger is a unit slip";
+/// Amounts of money (capital, an overhaul): highest sensible value.
+pub(crate) const AMOUNT_HIGH: f64 = 1e13;
+/// Why amounts are bounded so.
+pub(crate) const AMOUNT_REASON: &str = "an amount in any currency; larger is a unit slip";
+/// Ambient air temperature: lowest and highest sensible values, K.
+pub(crate) const AMBIENT_T_K: (f64, f64) = (180.0, 340.0);
+/// Why ambient temperatures are bounded so.
+pub(crate) const AMBIENT_T_REASON: &str = "the coldest and hottest air temperatures recorded on Earth, about 184 K and 330 K (from memory), with margin";
+/// Ambient pressure: lowest and highest sensible values, kPa.
+pub(crate) const AMBIENT_P_KPA: (f64, f64) = (30.0, 120.0);
+/// Why ambient pressures are bounded so.
+pub(crate) const AMBIENT_P_REASON: &str = "from above the highest sites anything is built (about 50 kPa at 5.5 km, ISO 2533) to below-sea-level sites in a strong high (about 108 kPa), with margin";
+
 /// A number as a message shows it: as Rust prints it, except very large
 /// or very small magnitudes in exponent form (`1e308`, not 309 digits).
 pub(crate) fn shown(value: f64) -> String {

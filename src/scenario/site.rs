@@ -4,7 +4,7 @@
 use super::context::Context;
 use super::declare::{keys_in, Key, Presence, Shape};
 use super::error::ScenarioError;
-use super::ranges::Range;
+use super::ranges::{Range, AMBIENT_P_KPA, AMBIENT_P_REASON, AMBIENT_T_K, AMBIENT_T_REASON};
 use super::reader::TableReader;
 use super::tree::Node;
 use super::types::{Scenario, Site};
@@ -40,7 +40,7 @@ pub(crate) const KEYS: &[Key<Scenario>] = &[
             Ok(())
         },
     )
-    .within(180.0, 340.0, "K", "the coldest and hottest air temperatures recorded on Earth, about 184 K and 330 K (from memory), with margin"),
+    .within(AMBIENT_T_K.0, AMBIENT_T_K.1, "K", AMBIENT_T_REASON),
     // 101.325 kPa: ISO 2314 / ISO 3977-2 reference ambient (from memory).
     K::number(
         "site.ambient_pressure",
@@ -54,7 +54,7 @@ pub(crate) const KEYS: &[Key<Scenario>] = &[
             Ok(())
         },
     )
-    .within(30.0, 120.0, "kPa", "from above the highest sites anything is built (about 50 kPa at 5.5 km, ISO 2533) to below-sea-level sites in a strong high (about 108 kPa), with margin"),
+    .within(AMBIENT_P_KPA.0, AMBIENT_P_KPA.1, "kPa", AMBIENT_P_REASON),
     K::plain("site.elevation", Shape::Quantity(Kind::Length), Presence::Optional { text: "none" }, "instead of `ambient_pressure` (not both): pressure by ISO 2533, p = 101.325 kPa · (1 − 2.25577e-5 · z/m)^5.25588, for −500 m to 11 000 m"),
 ];
 

@@ -118,13 +118,7 @@ pub(crate) fn read_costs(
     let fixed_om_per_kw_year =
         money_or_zero(ctx, &t, "fixed_om", units::price_per_kw_year, "/kW-yr")?;
     let variable_om_per_mwh = money_or_zero(ctx, &t, "variable_om", units::price_per_mwh, "/MWh")?;
-    let overhaul_interval_hours = t.quantity_or(
-        ctx,
-        "overhaul_interval",
-        units::duration_h,
-        0.0,
-        "0 h (no overhauls)",
-    )?;
+    let overhaul_interval_hours = t.declared_at(ctx, KEYS, "costs.overhaul_interval")?;
     let overhaul_cost = money_or_zero(ctx, &t, "overhaul_cost", units::money, "")?;
     if !overhaul_cost.is_zero() && overhaul_interval_hours <= 0.0 {
         return Err(t.error(
@@ -134,10 +128,8 @@ pub(crate) fn read_costs(
             "expected an overhaul_interval above 0 h, e.g. \"24000 h\"",
         ));
     }
-    let degradation_per_year =
-        t.quantity_or(ctx, "degradation_per_year", units::fraction, 0.0, "0 %")?;
-    let recoverable_fraction =
-        t.quantity_or(ctx, "recoverable_fraction", units::fraction, 0.0, "0 %")?;
+    let degradation_per_year = t.declared_at(ctx, KEYS, "costs.degradation_per_year")?;
+    let recoverable_fraction = t.declared_at(ctx, KEYS, "costs.recoverable_fraction")?;
     let residual_value = read_residual(ctx, &t)?;
     let construction_schedule = read_schedule(ctx, &t, cod)?;
     Ok(CandidateCosts {

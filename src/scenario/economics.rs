@@ -140,14 +140,14 @@ pub(crate) fn read_economics(ctx: &mut Context, node: &Node) -> Read<Economics> 
         "nominal" => RateBasis::Nominal,
         _ => RateBasis::Real,
     };
-    let inflation = r.quantity_or(ctx, "inflation", units::fraction, 0.0, "0 %")?;
+    let inflation = r.declared_at(ctx, KEYS, "economics.inflation")?;
     let timing = match r.choice(ctx, "timing", &["end-of-year", "mid-year"], "end-of-year")? {
         "mid-year" => Timing::MidYear,
         _ => Timing::EndOfYear,
     };
     let carbon_price_per_tonne =
         money_or_zero(ctx, &r, "carbon_price", units::price_per_tonne, "/t")?;
-    let carbon_escalation = r.quantity_or(ctx, "carbon_escalation", units::fraction, 0.0, "0 %")?;
+    let carbon_escalation = r.declared_at(ctx, KEYS, "economics.carbon_escalation")?;
     let capacity_value_per_kw_year = money_or_zero(
         ctx,
         &r,

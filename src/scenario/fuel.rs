@@ -185,7 +185,7 @@ pub(crate) fn read_fuel(
             ))
         }
     };
-    let escalation = r.quantity_or(ctx, "escalation", units::fraction, 0.0, "0 %")?;
+    let escalation = r.declared_at(ctx, KEYS, "fuel.escalation")?;
     let price = money(ctx, &r, "price", units::price_per_gj)?;
     let price_written = price.and_then(|_| {
         ctx.inputs

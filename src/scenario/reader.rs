@@ -233,23 +233,6 @@ impl<'a> TableReader<'a> {
             .ok_or_else(|| self.missing(ctx, key, valid))
     }
 
-    /// A quantity, or `default` (recorded as `default_text`, which must
-    /// state the same value) when absent.
-    pub fn quantity_or<T>(
-        &self,
-        ctx: &mut Context,
-        key: &str,
-        parse: impl Fn(&str) -> Result<T, UnitError>,
-        default: T,
-        default_text: &str,
-    ) -> Read<T> {
-        if let Some(value) = self.quantity(ctx, key, &parse)? {
-            return Ok(value);
-        }
-        self.default(ctx, key, default_text);
-        Ok(default)
-    }
-
     /// A numeric key read as its declaration says: parsed by its unit
     /// kind; when absent, its declared default (recorded) or a "missing"
     /// error if it is required; `None` for an optional key left out. The
@@ -279,6 +262,26 @@ impl<'a> TableReader<'a> {
             )),
             Presence::RequiredUnless { .. } | Presence::Optional { .. } => Ok(None),
         }
+    }
+
+    /// [`TableReader::declared`] for the key declared at `path` in `keys`;
+    /// a path with no declaration is an error (a fault in brayfin, caught
+    /// by the tests).
+    pub fn declared_at<T>(
+        &self,
+        ctx: &mut Context,
+        keys: &'static [Key<T>],
+        path: &str,
+    ) -> Read<f64> {
+        let Some(key) = keys.iter().find(|k| k.path == path) else {
+            return Err(self.error(
+                ctx,
+                path.rsplit('.').next().unwrap_or(path),
+                "is not declared (a fault in brayfin)",
+                "expected a declared key",
+            ));
+        };
+        Ok(self.declared(ctx, key)?.unwrap_or(f64::NAN))
     }
 
     /// Read every declared numeric key of this table (declarations in

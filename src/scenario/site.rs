@@ -62,14 +62,7 @@ pub(crate) const KEYS: &[Key<Scenario>] = &[
 pub(crate) fn read_site(ctx: &mut Context, node: &Node) -> Read<Site> {
     let r = TableReader::new(ctx, "site", node, &keys_in(KEYS, "site"))?;
     let name = r.string(ctx, "name")?;
-    // 15 degC, 101.325 kPa: ISO 2314 / ISO 3977-2 reference ambient (from memory).
-    let ambient_temperature_k = r.quantity_or(
-        ctx,
-        "ambient_temperature",
-        units::temperature_k,
-        288.15,
-        "288.15 K",
-    )?;
+    let ambient_temperature_k = r.declared_at(ctx, KEYS, "site.ambient_temperature")?;
     let pressure = r.quantity(ctx, "ambient_pressure", units::pressure_kpa)?;
     let elevation_m = r.quantity(ctx, "elevation", units::length_m)?;
     let ambient_pressure_kpa = match (pressure, elevation_m) {

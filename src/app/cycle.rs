@@ -18,7 +18,13 @@ use crate::{Error, Result};
 /// Run `brayfin cycle`.
 pub fn run(args: &CycleArgs) -> Result<()> {
     let (config, gas, fuel) = inputs(args)?;
-    let result = solve(&config, &gas, &fuel).map_err(|e| cycle_error(&e))?;
+    let result = match solve(&config, &gas, &fuel).map_err(|e| cycle_error(&e)) {
+        Err(Error::Input(message)) => return Err(Error::Input(message)),
+        other => {
+            sensible_ranges(&config)?;
+            other?
+        }
+    };
     let view = CycleView::new(&result, &fuel, units_of(args.units));
     print(&render(&view, text_format(args.format))?)
 }
@@ -108,6 +114,49 @@ fn inputs(args: &CycleArgs) -> Result<(EngineConfig, GasModel, Fuel)> {
     };
     let fuel = Fuel::parse(&args.fuel).map_err(|e| Error::Input(format!("--fuel: {e}")))?;
     Ok((config, gas, fuel))
+}
+
+/// The scenario's declared sensible ranges hold for the flags too (checked
+/// after the solver's own checks, whose messages come first).
+fn sensible_ranges(c: &EngineConfig) -> Result<()> {
+    let net_output = match c.sizing {
+        Some(Sizing::NetOutputKw(kw)) => Some(kw),
+        _ => None,
+    };
+    let intercool = c.intercooler.and_then(|i| match i.exit {
+        IntercoolerExit::TemperatureK(t) => Some(t),
+        IntercoolerExit::Effectiveness(_) => None,
+    });
+    let values = [
+        ("ambient-temperature", Some(c.ambient_temperature_k)),
+        ("ambient-pressure", Some(c.ambient_pressure_kpa)),
+        ("pressure-ratio", Some(c.pressure_ratio)),
+        (
+            "turbine-inlet-temperature",
+            Some(c.turbine_inlet_temperature_k),
+        ),
+        ("compressor-efficiency", Some(c.compressor_efficiency)),
+        ("turbine-efficiency", Some(c.turbine_efficiency)),
+        ("combustor-pressure-loss", Some(c.combustor_pressure_loss)),
+        (
+            "regenerator-effectiveness",
+            c.regenerator.map(|r| r.effectiveness),
+        ),
+        (
+            "regenerator-pressure-loss",
+            c.regenerator.map(|r| r.air_side_pressure_loss),
+        ),
+        ("intercool-temperature", intercool),
+        ("reheat-temperature", c.reheat.map(|r| r.temperature_k)),
+        ("net-output", net_output),
+    ];
+    for (flag, value) in values {
+        if let Some(value) = value {
+            crate::scenario::check_flag_value(flag, value)
+                .map_err(|why| Error::Input(format!("--{flag}: {why}")))?;
+        }
+    }
+    Ok(())
 }
 
 /// The command-line flag that sets an [`EngineConfig`] field.

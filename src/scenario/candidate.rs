@@ -1,6 +1,17 @@
-//! A candidate (one bid): its engine configuration and its costs.
+//! The `[[candidate]]` tables (one bid each): the typed candidate and the
+//! declaration of every candidate key except those of `costs` (see
+//! `candidate_costs.rs`). The reader is `candidate_reader.rs`.
 
+use super::declare::{money_from_f64, money_to_f64, Key, Presence, SetResult, Shape};
+use super::ranges::{
+    Range, AMBIENT_P_KPA, AMBIENT_P_REASON, AMBIENT_T_K, AMBIENT_T_REASON, AMOUNT_HIGH,
+    AMOUNT_REASON,
+};
+use crate::units::Kind;
 use rust_decimal::Decimal;
+
+/// Candidate declarations are keys into one [`Candidate`].
+type K = Key<Candidate>;
 
 /// Gas property model a candidate's cycle is solved with.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -60,6 +71,18 @@ pub struct ReheatSpec {
     pub pressure_split: Option<f64>,
     /// Reheat combustor exit temperature, K.
     pub temperature_k: f64,
+}
+
+/// The ambient condition a candidate's rating is stated at (`[candidate.rating]`),
+/// ISO 3977-2 / ISO 2314 reference conditions by default (from memory).
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct RatingCondition {
+    /// Compressor inlet air temperature of the rating, K.
+    pub temperature_k: f64,
+    /// Ambient pressure of the rating, kPa.
+    pub pressure_kpa: f64,
+    /// Relative humidity of the rating, fraction of one.
+    pub relative_humidity: f64,
 }
 
 /// Value left at the end of the service life (a credit).
@@ -137,6 +160,433 @@ pub struct Candidate {
     pub intercooler: Option<IntercoolerSpec>,
     /// Reheat combustor, if fitted.
     pub reheat: Option<ReheatSpec>,
+    /// The ambient condition the bid's rating (net output, heat rate) is
+    /// stated at. Read and stored; used by off-design (coming), not yet by
+    /// the design-point solver.
+    pub rating: RatingCondition,
     /// O&M, overhaul, degradation, residual value, construction schedule.
     pub costs: CandidateCosts,
 }
+/// Set `*slot` to `value`, or say which optional part is missing.
+fn set_in<T>(slot: Option<&mut T>, value: T, part: &str) -> SetResult {
+    match slot {
+        Some(s) => {
+            *s = value;
+            Ok(())
+        }
+        None => Err(format!("this candidate has no {part}")),
+    }
+}
+
+fn cold_air(c: &mut Candidate) -> Result<(&mut f64, &mut f64), String> {
+    match &mut c.gas_model {
+        GasModelSpec::ColdAir { cp_kj_per_kg_k, k } => Ok((cp_kj_per_kg_k, k)),
+        _ => Err("this candidate's gas model is not cold-air".into()),
+    }
+}
+
+/// Efficiencies of turbomachines: below this no gas turbine makes net work.
+const MACHINE_EFFICIENCY_LOW: f64 = 0.3;
+const MACHINE_EFFICIENCY_REASON: &str =
+    "turbomachinery efficiencies run from about 0.8 to 0.93; below 0.3 no cycle makes net work (common practice)";
+/// Pressure losses as fractions.
+const LOSS_HIGH: f64 = 0.5;
+const LOSS_REASON: &str =
+    "a few per cent in practice; half the pressure lost leaves no cycle (common practice)";
+/// Temperatures a flame or a hot section can reach.
+const HOT_LOW: f64 = 180.0;
+const HOT_HIGH: f64 = 2300.0;
+const HOT_REASON: &str = "about 2230 K is the adiabatic flame temperature of stoichiometric methane in air (common practice); the low end is the coldest air, and the value must also be above ambient";
+/// Pressure ratios (overall, or of a split).
+const RATIO_LOW: f64 = 1.5;
+const RATIO_HIGH: f64 = 80.0;
+const RATIO_REASON: &str = "industrial and aero-derivative gas turbines run at about 4 to 45; below 1.5 a cycle makes almost no work (common practice)";
+
+/// The keys of a `[[candidate]]` table (paths relative to the candidate),
+/// in the order the docs list them. `costs` keys are in `candidate_costs.rs`.
+pub(crate) const KEYS: &[Key<Candidate>] = &[
+    K::plain("id", Shape::Text, Presence::Required { example: "\"premium\"" }, "unique; a letter, then letters, digits, `-`, `_`; at most 64 characters"),
+    K::plain("label", Shape::Text, Presence::Optional { text: "the id" }, "name shown in reports"),
+    K::number(
+        "capital_cost",
+        Kind::Money,
+        Range::NonNegative,
+        Presence::Required { example: "\"48500000 USD\"" },
+        "installed capital cost",
+        |c| Some(money_to_f64(c.capital_cost)),
+        |c, v| {
+            c.capital_cost = money_from_f64(v)?;
+            Ok(())
+        },
+    )
+    .within(0.0, AMOUNT_HIGH, "", AMOUNT_REASON),
+    K::number(
+        "net_output",
+        Kind::Power,
+        Range::Positive,
+        Presence::Required { example: "\"45 MW\"" },
+        "rated net electrical output",
+        |c| Some(c.net_output_kw),
+        |c, v| {
+            c.net_output_kw = v;
+            Ok(())
+        },
+    )
+    .within(1.0, 2e6, "kW", "from a 1 kW micro-turbine to twice the largest single gas turbines (about 0.6 GW, from memory)"),
+    K::plain("gas_model", Shape::Choice(&["air", "products", "cold-air"]), Presence::Default { text: "air", value: 0.0 }, "variable-property air, combustion products through the turbine (needs a fuel composition), or the cold-air standard"),
+    K::number(
+        "cp_kj_per_kg_k",
+        Kind::Number,
+        Range::Positive,
+        Presence::Default { text: "1.005", value: 1.005 },
+        "cold-air only: constant cp, kJ/(kg·K) (cold-air standard of the engineering thermodynamics texts, common practice)",
+        |c| match c.gas_model {
+            GasModelSpec::ColdAir { cp_kj_per_kg_k, .. } => Some(cp_kj_per_kg_k),
+            _ => None,
+        },
+        |c, v| {
+            *cold_air(c)?.0 = v;
+            Ok(())
+        },
+    )
+    .within(0.5, 5.0, "kJ/(kg·K)", "air is about 1.0 and combustion products about 1.15; 0.5 to 5 covers any gas a turbine breathes"),
+    K::number(
+        "specific_heat_ratio",
+        Kind::Number,
+        Range::AboveOne,
+        Presence::Default { text: "1.4", value: 1.4 },
+        "cold-air only: k = cp/cv",
+        |c| match c.gas_model {
+            GasModelSpec::ColdAir { k, .. } => Some(k),
+            _ => None,
+        },
+        |c, v| {
+            *cold_air(c)?.1 = v;
+            Ok(())
+        },
+    )
+    .within(1.01, 1.67, "", "from heavy polyatomic gases (about 1.05) to the monatomic limit 5/3 of kinetic theory"),
+    K::number(
+        "pressure_ratio",
+        Kind::Number,
+        Range::AboveOne,
+        Presence::Required { example: "18" },
+        "overall compressor pressure ratio",
+        |c| Some(c.pressure_ratio),
+        |c, v| {
+            c.pressure_ratio = v;
+            Ok(())
+        },
+    )
+    .within(RATIO_LOW, RATIO_HIGH, "", RATIO_REASON),
+    K::number(
+        "turbine_inlet_temperature",
+        Kind::Temperature,
+        Range::Positive,
+        Presence::Required { example: "\"1450 K\"" },
+        "combustor exit temperature; above ambient",
+        |c| Some(c.turbine_inlet_temperature_k),
+        |c, v| {
+            c.turbine_inlet_temperature_k = v;
+            Ok(())
+        },
+    )
+    .within(HOT_LOW, HOT_HIGH, "K", HOT_REASON),
+    K::number(
+        "compressor_efficiency",
+        Kind::Fraction,
+        Range::Efficiency,
+        Presence::Required { example: "\"88 %\"" },
+        "compressor efficiency on `efficiency_basis`",
+        |c| Some(c.compressor_efficiency),
+        |c, v| {
+            c.compressor_efficiency = v;
+            Ok(())
+        },
+    )
+    .within(MACHINE_EFFICIENCY_LOW, 1.0, "", MACHINE_EFFICIENCY_REASON),
+    K::number(
+        "turbine_efficiency",
+        Kind::Fraction,
+        Range::Efficiency,
+        Presence::Required { example: "\"90 %\"" },
+        "turbine efficiency on `efficiency_basis`",
+        |c| Some(c.turbine_efficiency),
+        |c, v| {
+            c.turbine_efficiency = v;
+            Ok(())
+        },
+    )
+    .within(MACHINE_EFFICIENCY_LOW, 1.0, "", MACHINE_EFFICIENCY_REASON),
+    K::plain("efficiency_basis", Shape::Choice(&["isentropic", "polytropic"]), Presence::Default { text: "isentropic", value: 0.0 }, "what the compressor and turbine efficiencies mean"),
+    K::number(
+        "inlet_pressure_loss",
+        Kind::Fraction,
+        Range::Loss,
+        Presence::Default { text: "0 %", value: 0.0 },
+        "inlet duct and filter loss, fraction of ambient pressure",
+        |c| Some(c.inlet_pressure_loss),
+        |c, v| {
+            c.inlet_pressure_loss = v;
+            Ok(())
+        },
+    )
+    .within(0.0, LOSS_HIGH, "", LOSS_REASON),
+    K::number(
+        "exhaust_pressure_loss",
+        Kind::Fraction,
+        Range::Loss,
+        Presence::Default { text: "0 %", value: 0.0 },
+        "exhaust loss, fraction of ambient pressure",
+        |c| Some(c.exhaust_pressure_loss),
+        |c, v| {
+            c.exhaust_pressure_loss = v;
+            Ok(())
+        },
+    )
+    .within(0.0, LOSS_HIGH, "", LOSS_REASON),
+    K::number(
+        "combustor_pressure_loss",
+        Kind::Fraction,
+        Range::Loss,
+        Presence::Default { text: "0 %", value: 0.0 },
+        "combustor loss, fraction of combustor inlet pressure",
+        |c| Some(c.combustor_pressure_loss),
+        |c, v| {
+            c.combustor_pressure_loss = v;
+            Ok(())
+        },
+    )
+    .within(0.0, LOSS_HIGH, "", LOSS_REASON),
+    K::number(
+        "combustion_efficiency",
+        Kind::Fraction,
+        Range::Efficiency,
+        Presence::Default { text: "100 %", value: 1.0 },
+        "fraction of the fuel's heating value released",
+        |c| Some(c.combustion_efficiency),
+        |c, v| {
+            c.combustion_efficiency = v;
+            Ok(())
+        },
+    )
+    .within(0.5, 1.0, "", "gas-turbine combustors burn above 0.99 of their fuel; below 0.5 it is not a combustor (common practice)"),
+    K::number(
+        "mechanical_efficiency",
+        Kind::Fraction,
+        Range::Efficiency,
+        Presence::Default { text: "100 %", value: 1.0 },
+        "efficiency of the shaft train (bearings, gearbox)",
+        |c| Some(c.mechanical_efficiency),
+        |c, v| {
+            c.mechanical_efficiency = v;
+            Ok(())
+        },
+    )
+    .within(0.5, 1.0, "", "shaft trains lose a few per cent at most (common practice)"),
+    K::number(
+        "generator_efficiency",
+        Kind::Fraction,
+        Range::Efficiency,
+        Presence::Default { text: "100 %", value: 1.0 },
+        "generator efficiency",
+        |c| Some(c.generator_efficiency),
+        |c, v| {
+            c.generator_efficiency = v;
+            Ok(())
+        },
+    )
+    .within(0.5, 1.0, "", "utility generators run at about 0.97 to 0.99 (common practice)"),
+    K::number(
+        "auxiliary_load",
+        Kind::Fraction,
+        Range::Loss,
+        Presence::Default { text: "0 %", value: 0.0 },
+        "auxiliary load, fraction of gross electrical output",
+        |c| Some(c.auxiliary_load_fraction),
+        |c, v| {
+            c.auxiliary_load_fraction = v;
+            Ok(())
+        },
+    )
+    .within(0.0, LOSS_HIGH, "", "a few per cent in practice; a plant using half its output is not a generating plant (common practice)"),
+    K::plain("regenerator", Shape::Table, Presence::Optional { text: "none" }, "a regenerator (recuperator) heating compressor air with exhaust"),
+    K::number(
+        "regenerator.effectiveness",
+        Kind::Fraction,
+        Range::OpenFraction,
+        Presence::Required { example: "\"85 %\"" },
+        "thermal effectiveness",
+        |c| c.regenerator.map(|r| r.effectiveness),
+        |c, v| {
+            set_in(
+                c.regenerator.as_mut().map(|r| &mut r.effectiveness),
+                v,
+                "regenerator",
+            )
+        },
+    ),
+    K::number(
+        "regenerator.air_side_pressure_loss",
+        Kind::Fraction,
+        Range::Loss,
+        Presence::Default { text: "0 %", value: 0.0 },
+        "air-side loss, fraction of air-side inlet pressure",
+        |c| c.regenerator.map(|r| r.air_side_pressure_loss),
+        |c, v| {
+            set_in(
+                c.regenerator
+                    .as_mut()
+                    .map(|r| &mut r.air_side_pressure_loss),
+                v,
+                "regenerator",
+            )
+        },
+    )
+    .within(0.0, LOSS_HIGH, "", LOSS_REASON),
+    K::number(
+        "regenerator.gas_side_pressure_loss",
+        Kind::Fraction,
+        Range::Loss,
+        Presence::Default { text: "0 %", value: 0.0 },
+        "gas-side loss, fraction of gas-side inlet pressure",
+        |c| c.regenerator.map(|r| r.gas_side_pressure_loss),
+        |c, v| {
+            set_in(
+                c.regenerator
+                    .as_mut()
+                    .map(|r| &mut r.gas_side_pressure_loss),
+                v,
+                "regenerator",
+            )
+        },
+    )
+    .within(0.0, LOSS_HIGH, "", LOSS_REASON),
+    K::plain("intercooler", Shape::Table, Presence::Optional { text: "none" }, "an intercooler between a low- and a high-pressure compressor"),
+    K::number(
+        "intercooler.pressure_split",
+        Kind::Number,
+        Range::AboveOne,
+        Presence::Optional { text: "geometric mean (√pressure_ratio)" },
+        "low-pressure compressor ratio, below `pressure_ratio`",
+        |c| c.intercooler.and_then(|i| i.pressure_split),
+        |c, v| {
+            set_in(
+                c.intercooler.as_mut().map(|i| &mut i.pressure_split),
+                Some(v),
+                "intercooler",
+            )
+        },
+    )
+    .within(1.0, RATIO_HIGH, "", RATIO_REASON),
+    K::number(
+        "intercooler.exit_temperature",
+        Kind::Temperature,
+        Range::Positive,
+        Presence::Optional { text: "exactly one of this and `effectiveness`" },
+        "temperature the air is cooled to",
+        |c| c.intercooler.and_then(|i| i.exit_temperature_k),
+        |c, v| {
+            set_in(
+                c.intercooler
+                    .as_mut()
+                    .and_then(|i| i.exit_temperature_k.as_mut()),
+                v,
+                "intercooler exit temperature",
+            )
+        },
+    )
+    .within(180.0, 600.0, "K", "a cooler cools towards ambient (at least 180 K) and never above a compressor delivery temperature"),
+    K::number(
+        "intercooler.effectiveness",
+        Kind::Fraction,
+        Range::Efficiency,
+        Presence::Optional { text: "exactly one of this and `exit_temperature`" },
+        "effectiveness towards ambient temperature",
+        |c| c.intercooler.and_then(|i| i.effectiveness),
+        |c, v| {
+            set_in(
+                c.intercooler
+                    .as_mut()
+                    .and_then(|i| i.effectiveness.as_mut()),
+                v,
+                "intercooler effectiveness",
+            )
+        },
+    ),
+    K::plain("reheat", Shape::Table, Presence::Optional { text: "none" }, "a reheat combustor between a high- and a low-pressure turbine"),
+    K::number(
+        "reheat.pressure_split",
+        Kind::Number,
+        Range::AboveOne,
+        Presence::Optional { text: "geometric mean of the expansion" },
+        "high-pressure turbine expansion ratio, below `pressure_ratio`",
+        |c| c.reheat.and_then(|r| r.pressure_split),
+        |c, v| {
+            set_in(
+                c.reheat.as_mut().map(|r| &mut r.pressure_split),
+                Some(v),
+                "reheat combustor",
+            )
+        },
+    )
+    .within(1.0, RATIO_HIGH, "", RATIO_REASON),
+    K::number(
+        "reheat.temperature",
+        Kind::Temperature,
+        Range::Positive,
+        Presence::Required { example: "\"1400 K\"" },
+        "reheat combustor exit temperature; above ambient",
+        |c| c.reheat.map(|r| r.temperature_k),
+        |c, v| {
+            set_in(
+                c.reheat.as_mut().map(|r| &mut r.temperature_k),
+                v,
+                "reheat combustor",
+            )
+        },
+    )
+    .within(HOT_LOW, HOT_HIGH, "K", HOT_REASON),
+    K::plain("rating", Shape::Table, Presence::Optional { text: "ISO 3977-2 reference conditions" }, "the ambient condition the bid's rating is stated at; used by off-design (coming), not yet by the design-point solver"),
+    // 15 degC, 101.325 kPa, 60 %: ISO 3977-2 / ISO 2314 reference
+    // conditions (from memory).
+    K::number(
+        "rating.temperature",
+        Kind::Temperature,
+        Range::Positive,
+        Presence::Default { text: "288.15 K", value: 288.15 },
+        "compressor inlet air temperature of the rating",
+        |c| Some(c.rating.temperature_k),
+        |c, v| {
+            c.rating.temperature_k = v;
+            Ok(())
+        },
+    )
+    .within(AMBIENT_T_K.0, AMBIENT_T_K.1, "K", AMBIENT_T_REASON),
+    K::number(
+        "rating.pressure",
+        Kind::Pressure,
+        Range::Positive,
+        Presence::Default { text: "101.325 kPa", value: 101.325 },
+        "ambient pressure of the rating",
+        |c| Some(c.rating.pressure_kpa),
+        |c, v| {
+            c.rating.pressure_kpa = v;
+            Ok(())
+        },
+    )
+    .within(AMBIENT_P_KPA.0, AMBIENT_P_KPA.1, "kPa", AMBIENT_P_REASON),
+    K::number(
+        "rating.relative_humidity",
+        Kind::Fraction,
+        Range::Fraction,
+        Presence::Default { text: "60 %", value: 0.6 },
+        "relative humidity of the rating",
+        |c| Some(c.rating.relative_humidity),
+        |c, v| {
+            c.rating.relative_humidity = v;
+            Ok(())
+        },
+    ),
+    K::plain("costs", Shape::Table, Presence::Optional { text: "all zero" }, "O&M, overhauls, degradation, residual value, construction schedule (below)"),
+];

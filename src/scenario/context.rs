@@ -71,9 +71,9 @@ impl<'t> Context<'t> {
             file: self.file.clone(),
             line,
             column,
-            field: field.to_string(),
-            problem: problem.into(),
-            valid: valid.into(),
+            field: shorten(&one_line(field), QUOTE_LIMIT),
+            problem: shorten_quoted(&one_line(&problem.into())),
+            valid: one_line(&valid.into()),
         }
     }
 
@@ -100,5 +100,79 @@ pub(crate) fn locate(spans: &BTreeMap<String, Range<usize>>, field: &str) -> Opt
         }
         let cut = path.rfind(['.', '['])?;
         path = &path[..cut];
+    }
+}
+
+/// The most characters of a value a message quotes before an ellipsis.
+pub(crate) const QUOTE_LIMIT: usize = 80;
+
+/// `text` on one line: line breaks and other control characters escaped.
+pub(crate) fn one_line(text: &str) -> String {
+    if !text.chars().any(char::is_control) {
+        return text.to_string();
+    }
+    text.chars()
+        .flat_map(|c| {
+            let shown: Vec<char> = if c.is_control() {
+                c.escape_default().collect()
+            } else {
+                vec![c]
+            };
+            shown
+        })
+        .collect()
+}
+
+/// `text` cut to at most `limit` characters, with an ellipsis when cut.
+pub(crate) fn shorten(text: &str, limit: usize) -> String {
+    if text.chars().count() <= limit {
+        return text.to_string();
+    }
+    let mut cut: String = text.chars().take(limit.saturating_sub(1)).collect();
+    cut.push('…');
+    cut
+}
+
+/// Every double-quoted value in `text` cut to [`QUOTE_LIMIT`] characters
+/// (a value of a megabyte is not echoed in full), and the whole message
+/// to a few quoted values' worth.
+pub(crate) fn shorten_quoted(text: &str) -> String {
+    let mut out = String::with_capacity(text.len().min(4 * QUOTE_LIMIT));
+    let mut inside = false;
+    let mut run = 0usize;
+    let mut prev = '\0';
+    for c in text.chars() {
+        if c == '"' && prev != '\\' {
+            inside = !inside;
+            run = 0;
+            out.push(c);
+        } else if inside {
+            run += 1;
+            if run < QUOTE_LIMIT {
+                out.push(c);
+            } else if run == QUOTE_LIMIT {
+                out.push('…');
+            }
+        } else {
+            out.push(c);
+        }
+        prev = c;
+    }
+    shorten(&out, 6 * QUOTE_LIMIT)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn long_values_are_cut_with_an_ellipsis() {
+        let long = format!("\"{}\" is not a valid id", "a".repeat(10_000));
+        let short = shorten_quoted(&long);
+        assert!(short.chars().count() < 120, "{short}");
+        assert!(short.contains('…'));
+        assert!(short.ends_with("is not a valid id"));
+        assert_eq!(shorten_quoted("\"air\" is fine"), "\"air\" is fine");
+        assert_eq!(one_line("a\nb"), "a\\nb");
     }
 }

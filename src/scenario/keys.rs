@@ -2,9 +2,9 @@
 //! (`--vary`, `[uncertainty]`). Values are in each key's internal unit (see
 //! `docs/scenario.md`, "Key paths").
 
-use super::candidate_fields::CANDIDATE_FIELDS;
+use super::candidate::Candidate;
+use super::declare::{candidate_keys, scenario_keys, Access, Key};
 use super::error::KeyError;
-use super::fields::{CandidateField, ScenarioField, SCENARIO_FIELDS};
 use super::suggest::closest;
 use super::types::Scenario;
 use super::validate::cross_check;
@@ -13,9 +13,19 @@ use crate::units::Kind;
 /// A parsed key path.
 pub(crate) enum Target<'k> {
     /// A field of the shared sections.
-    Shared(&'static ScenarioField),
+    Shared(&'static Key<Scenario>, Access<Scenario>),
     /// A candidate field, for every candidate (`None`) or the one with this id.
-    Candidate(Option<&'k str>, &'static CandidateField),
+    Candidate(Option<&'k str>, &'static Key<Candidate>, Access<Candidate>),
+}
+
+/// The declared keys that are key paths (numeric, with a place in the
+/// typed scenario).
+fn shared_fields() -> impl Iterator<Item = (&'static Key<Scenario>, Access<Scenario>)> {
+    scenario_keys().filter_map(|k| Some((k, k.access?)))
+}
+
+fn candidate_fields() -> impl Iterator<Item = (&'static Key<Candidate>, Access<Candidate>)> {
+    candidate_keys().filter_map(|k| Some((k, k.access?)))
 }
 
 /// Parse `key` into what it points at, with a did-you-mean when unknown.
@@ -31,10 +41,9 @@ pub(crate) fn resolve<'k>(scenario: &Scenario, key: &'k str) -> Result<Target<'k
         (None, None)
     };
     let Some(rest) = rest else {
-        return SCENARIO_FIELDS
-            .iter()
-            .find(|f| f.key == key)
-            .map(Target::Shared)
+        return shared_fields()
+            .find(|(f, _)| f.path == key)
+            .map(|(f, a)| Target::Shared(f, a))
             .ok_or_else(|| unknown(key));
     };
     if let Some(id) = id {
@@ -46,11 +55,11 @@ pub(crate) fn resolve<'k>(scenario: &Scenario, key: &'k str) -> Result<Target<'k
             });
         }
     }
-    match CANDIDATE_FIELDS.iter().find(|f| f.key == rest) {
-        Some(field) => Ok(Target::Candidate(id, field)),
+    match candidate_fields().find(|(f, _)| f.path == rest) {
+        Some((field, access)) => Ok(Target::Candidate(id, field, access)),
         None => Err(KeyError::Unknown {
             key: key.to_string(),
-            suggestion: closest(rest, CANDIDATE_FIELDS.iter().map(|f| f.key)).map(
+            suggestion: closest(rest, candidate_fields().map(|(f, _)| f.path)).map(
                 |name| match id {
                     Some(id) => format!("candidate[{id}].{name}"),
                     None => format!("candidate.{name}"),
@@ -61,13 +70,11 @@ pub(crate) fn resolve<'k>(scenario: &Scenario, key: &'k str) -> Result<Target<'k
 }
 
 fn unknown(key: &str) -> KeyError {
-    let generic: Vec<String> = CANDIDATE_FIELDS
-        .iter()
-        .map(|f| format!("candidate.{}", f.key))
+    let generic: Vec<String> = candidate_fields()
+        .map(|(f, _)| format!("candidate.{}", f.path))
         .collect();
-    let all = SCENARIO_FIELDS
-        .iter()
-        .map(|f| f.key)
+    let all = shared_fields()
+        .map(|(f, _)| f.path)
         .chain(generic.iter().map(String::as_str));
     KeyError::Unknown {
         key: key.to_string(),
@@ -87,10 +94,11 @@ fn candidate_ids(scenario: &Scenario) -> String {
 /// The unit kind of the value `key` points at (how a value for it is
 /// written with a unit).
 pub(crate) fn kind_of_key(scenario: &Scenario, key: &str) -> Result<Kind, KeyError> {
-    Ok(match resolve(scenario, key)? {
-        Target::Shared(field) => field.kind,
-        Target::Candidate(_, field) => field.kind,
-    })
+    let kind = match resolve(scenario, key)? {
+        Target::Shared(field, _) => field.kind(),
+        Target::Candidate(_, field, _) => field.kind(),
+    };
+    kind.ok_or_else(|| unknown(key))
 }
 
 impl Scenario {
@@ -100,20 +108,19 @@ impl Scenario {
     /// not apply (e.g. regenerator fields when no candidate has one) are
     /// left out.
     pub fn numeric_keys(&self) -> Vec<String> {
-        let mut keys: Vec<String> = SCENARIO_FIELDS
-            .iter()
-            .filter(|f| (f.get)(self).is_some())
-            .map(|f| f.key.to_string())
+        let mut keys: Vec<String> = shared_fields()
+            .filter(|(_, a)| (a.get)(self).is_some())
+            .map(|(f, _)| f.path.to_string())
             .collect();
-        for field in CANDIDATE_FIELDS {
-            if self.candidates.iter().any(|c| (field.get)(c).is_some()) {
-                keys.push(format!("candidate.{}", field.key));
+        for (field, access) in candidate_fields() {
+            if self.candidates.iter().any(|c| (access.get)(c).is_some()) {
+                keys.push(format!("candidate.{}", field.path));
             }
         }
         for candidate in &self.candidates {
-            for field in CANDIDATE_FIELDS {
-                if (field.get)(candidate).is_some() {
-                    keys.push(format!("candidate[{}].{}", candidate.id, field.key));
+            for (field, access) in candidate_fields() {
+                if (access.get)(candidate).is_some() {
+                    keys.push(format!("candidate[{}].{}", candidate.id, field.path));
                 }
             }
         }
@@ -124,20 +131,20 @@ impl Scenario {
     /// accepted when every candidate having the field has the same value.
     pub fn get_numeric(&self, key: &str) -> Result<f64, KeyError> {
         match resolve(self, key)? {
-            Target::Shared(field) => (field.get)(self).ok_or_else(|| not_applicable(key)),
-            Target::Candidate(id, field) => {
+            Target::Shared(_, access) => (access.get)(self).ok_or_else(|| not_applicable(key)),
+            Target::Candidate(id, field, access) => {
                 let mut values = self
                     .candidates
                     .iter()
                     .filter(|c| id.is_none_or(|id| c.id == id))
-                    .filter_map(|c| (field.get)(c).map(|v| (c, v)));
+                    .filter_map(|c| (access.get)(c).map(|v| (c, v)));
                 let Some((first, value)) = values.next() else {
                     return Err(not_applicable(key));
                 };
                 if values.any(|(_, v)| v != value) {
                     return Err(KeyError::Ambiguous {
                         key: key.to_string(),
-                        example: format!("candidate[{}].{}", first.id, field.key),
+                        example: format!("candidate[{}].{}", first.id, field.path),
                     });
                 }
                 Ok(value)
@@ -151,19 +158,17 @@ impl Scenario {
     /// error the scenario is left unchanged.
     pub fn set_numeric(&mut self, key: &str, value_si: f64) -> Result<(), KeyError> {
         let target = resolve(self, key)?;
-        let range = match &target {
-            Target::Shared(field) => field.range,
-            Target::Candidate(_, field) => field.range,
+        let checked = match &target {
+            Target::Shared(field, _) => field.check(value_si),
+            Target::Candidate(_, field, _) => field.check(value_si),
         };
-        range
-            .check(value_si)
-            .map_err(|(problem, valid)| KeyError::OutOfRange {
-                key: key.to_string(),
-                problem,
-                valid,
-            })?;
+        checked.map_err(|(problem, valid)| KeyError::OutOfRange {
+            key: key.to_string(),
+            problem,
+            valid,
+        })?;
         let result = match target {
-            Target::Shared(field) => {
+            Target::Shared(_, field) => {
                 let old = (field.get)(self);
                 let outcome = (field.set)(self, value_si);
                 self.finish_set(key, outcome, |s| {
@@ -172,10 +177,8 @@ impl Scenario {
                     }
                 })
             }
-            Target::Candidate(id, field) => {
-                let selected = |c: &super::candidate::Candidate| {
-                    id.map_or((field.get)(c).is_some(), |id| c.id == id)
-                };
+            Target::Candidate(id, _, field) => {
+                let selected = |c: &Candidate| id.map_or((field.get)(c).is_some(), |id| c.id == id);
                 let olds: Vec<Option<f64>> = self
                     .candidates
                     .iter()

@@ -2,13 +2,15 @@
 //! scenario, validate, and keep what the report needs (defaults applied,
 //! inputs as given, file hash).
 
-use super::candidate_section::read_candidates;
+use super::candidate_reader::read_candidates;
 use super::context::{locate, AppliedDefault, Context, InputLine};
+use super::economics::read_economics;
 use super::error::ScenarioError;
-use super::fuel_section::read_fuel;
-use super::operation_section::read_operation;
+use super::fuel::read_fuel;
+use super::operation::read_operation;
 use super::reader::TableReader;
-use super::sections::{read_economics, read_meta, read_site};
+use super::scenario_table::read_meta;
+use super::site::read_site;
 use super::tree::{line_column, parse_document, Node, NodeValue};
 use super::types::Scenario;
 use super::uncertainty_section::read_uncertainty;
@@ -51,11 +53,34 @@ const SECTIONS: &[&str] = &[
 /// Read and load the scenario file at `path`.
 pub fn load(path: &Path) -> Result<LoadedScenario, ScenarioError> {
     let label = path.display().to_string();
-    let text = std::fs::read_to_string(path).map_err(|source| ScenarioError::Read {
+    let bytes = std::fs::read(path).map_err(|source| ScenarioError::Read {
         file: label.clone(),
         source,
     })?;
+    let text = utf8_text(bytes, &label)?;
     parse(&text, &label)
+}
+
+/// The file's bytes as text; a file that is not UTF-8 is bad input, placed
+/// at the line, column and byte offset of its first bad byte.
+pub(crate) fn utf8_text(bytes: Vec<u8>, label: &str) -> Result<String, ScenarioError> {
+    String::from_utf8(bytes).map_err(|e| {
+        let offset = e.utf8_error().valid_up_to();
+        let bytes = e.as_bytes();
+        let valid = std::str::from_utf8(&bytes[..offset]).unwrap_or_default();
+        let (line, column) = line_column(valid, offset);
+        ScenarioError::At {
+            file: label.to_string(),
+            line,
+            column,
+            field: "file encoding".to_string(),
+            problem: format!(
+                "byte {offset} (0x{:02X}) is not UTF-8 text",
+                bytes.get(offset).copied().unwrap_or_default()
+            ),
+            valid: "expected a text file saved as UTF-8 (plain ASCII is UTF-8)".to_string(),
+        }
+    })
 }
 
 /// Load a scenario from its text; `file_label` names it in messages.
@@ -205,6 +230,19 @@ impl LoadedScenario {
 #[cfg(test)]
 mod tests {
     use super::sha256_hex;
+
+    #[test]
+    fn a_file_that_is_not_utf8_is_bad_input_at_its_first_bad_byte() {
+        let bytes = b"[scenario]\ntitle = \"caf\xE9\"\n".to_vec();
+        let message = super::utf8_text(bytes, "latin1.toml")
+            .err()
+            .map(|e| e.to_string())
+            .unwrap_or_default();
+        assert!(
+            message.starts_with("latin1.toml:2:13: file encoding: byte 23 (0xE9)"),
+            "{message}"
+        );
+    }
 
     #[test]
     fn sha256_matches_the_fips_180_example() {

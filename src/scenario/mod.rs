@@ -1,36 +1,42 @@
 //! Scenario files: TOML in, a validated, typed [`Scenario`] out.
+//!
+//! Every key is declared once, in the file named after its section
+//! (`scenario_table.rs`, `site.rs`, `fuel.rs`, `economics.rs`,
+//! `operation.rs`, `candidate.rs`, `candidate_costs.rs`; `[[uncertainty]]`
+//! in `uncertainty_section.rs`); `declare.rs` holds the mechanism.
 
 mod candidate;
+mod candidate_costs;
+mod candidate_reader;
+mod context;
+mod declare;
+mod economics;
 mod error;
+mod fuel;
+mod keys;
+mod load;
+mod operation;
+mod ranges;
+mod reader;
+mod scenario_table;
+mod site;
+mod suggest;
 mod tree;
 mod types;
 mod uncertainty;
-
-pub use error::{KeyError, ScenarioError};
-pub use types::*;
-mod context;
-mod reader;
-mod suggest;
-
-pub use context::{AppliedDefault, InputLine};
-mod ranges;
-pub use ranges::HOURS_PER_LEAP_YEAR;
-mod candidate_fields;
-mod candidate_section;
-mod costs_section;
-mod fields;
-mod fuel_section;
-mod keys;
-mod load;
-mod operation_section;
-mod sections;
 mod uncertainty_check;
 mod uncertainty_section;
 mod validate;
 mod values;
-
-pub use load::{load, parse, LoadedScenario};
-pub use sections::iso_2533_pressure_kpa;
 mod warnings;
 
+pub use context::{AppliedDefault, InputLine};
+pub use declare::{
+    check_candidate_value, check_flag_value, check_scenario_value, declared_key_paths, docs_tables,
+};
+pub use error::{KeyError, ScenarioError};
+pub use load::{load, parse, LoadedScenario};
+pub use ranges::HOURS_PER_LEAP_YEAR;
+pub use site::iso_2533_pressure_kpa;
+pub use types::*;
 pub use warnings::engineering_warnings;

@@ -4,6 +4,41 @@
 /// Hours in a leap year, the most a year can operate (366 × 24).
 pub const HOURS_PER_LEAP_YEAR: f64 = 8784.0;
 
+/// Yearly rates (discount, inflation, escalations): lowest sensible value.
+pub(crate) const RATE_LOW: f64 = -0.5;
+/// Yearly rates: highest sensible value.
+pub(crate) const RATE_HIGH: f64 = 1.0;
+/// Why yearly rates are bounded so.
+pub(crate) const RATE_REASON: &str = "a planning rate per year; beyond −50 % or +100 % a year the discounting of a multi-year ledger says nothing (common practice)";
+/// Money per unit (per kW-yr, per MWh, per t): highest sensible value in
+/// any currency.
+pub(crate) const PRICE_HIGH: f64 = 1e7;
+/// Why prices per unit are bounded so.
+pub(crate) const PRICE_REASON: &str = "a price per unit in any currency; larger is a unit slip";
+/// Amounts of money (capital, an overhaul): highest sensible value.
+pub(crate) const AMOUNT_HIGH: f64 = 1e13;
+/// Why amounts are bounded so.
+pub(crate) const AMOUNT_REASON: &str = "an amount in any currency; larger is a unit slip";
+/// Ambient air temperature: lowest and highest sensible values, K.
+pub(crate) const AMBIENT_T_K: (f64, f64) = (180.0, 340.0);
+/// Why ambient temperatures are bounded so.
+pub(crate) const AMBIENT_T_REASON: &str = "the coldest and hottest air temperatures recorded on Earth, about 184 K and 330 K (from memory), with margin";
+/// Ambient pressure: lowest and highest sensible values, kPa.
+pub(crate) const AMBIENT_P_KPA: (f64, f64) = (30.0, 120.0);
+/// Why ambient pressures are bounded so.
+pub(crate) const AMBIENT_P_REASON: &str = "from above the highest sites anything is built (about 50 kPa at 5.5 km, ISO 2533) to below-sea-level sites in a strong high (about 108 kPa), with margin";
+
+/// A number as a message shows it: as Rust prints it, except very large
+/// or very small magnitudes in exponent form (`1e308`, not 309 digits).
+pub(crate) fn shown(value: f64) -> String {
+    let magnitude = value.abs();
+    if value.is_finite() && value != 0.0 && !(1e-4..1e9).contains(&magnitude) {
+        format!("{value:e}")
+    } else {
+        format!("{value}")
+    }
+}
+
 /// The valid range of a numeric value.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub(crate) enum Range {
@@ -56,7 +91,7 @@ impl Range {
             _ => None,
         };
         match wrong {
-            Some(why) => Err((format!("{value} {why}"), self.valid())),
+            Some(why) => Err((format!("{} {why}", shown(value)), self.valid())),
             None => Ok(()),
         }
     }
@@ -108,5 +143,63 @@ mod tests {
         assert!(Range::Whole(1, 60).check(30.5).is_err());
         assert!(Range::Whole(1, 60).check(61.0).is_err());
         assert!(Range::Positive.check(f64::NAN).is_err());
+        assert_eq!(shown(1e308), "1e308");
+        assert_eq!(shown(1.3), "1.3");
+        assert_eq!(shown(2e6), "2000000");
+    }
+}
+
+/// Physically sensible bounds of a value in its internal unit, inclusive,
+/// with the reason they are where they are. Checked after the [`Range`]
+/// (which keeps its sign and openness messages), so a value that passes
+/// the sign rule but makes no physical sense is still refused at load.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct Limits {
+    /// Lowest valid value, internal unit.
+    pub low: f64,
+    /// Highest valid value, internal unit.
+    pub high: f64,
+    /// The internal unit as printed after a number (`"K"`, `""`).
+    pub unit: &'static str,
+    /// Why the bounds are where they are (shown in messages and the docs).
+    pub reason: &'static str,
+}
+
+impl Limits {
+    /// Check `value`; on failure return (what is wrong, what would be valid).
+    pub fn check(&self, value: f64) -> Result<(), (String, String)> {
+        let unit = if self.unit.is_empty() {
+            String::new()
+        } else {
+            format!(" {}", self.unit)
+        };
+        let wrong = if !value.is_finite() {
+            Some("is not a finite number")
+        } else if value < self.low {
+            Some("is below the sensible range")
+        } else if value > self.high {
+            Some("is above the sensible range")
+        } else {
+            None
+        };
+        match wrong {
+            Some(why) => Err((format!("{}{unit} {why}", shown(value)), self.valid())),
+            None => Ok(()),
+        }
+    }
+
+    /// What would be valid, for messages: the bounds and the reason.
+    pub fn valid(&self) -> String {
+        let unit = if self.unit.is_empty() {
+            String::new()
+        } else {
+            format!(" {}", self.unit)
+        };
+        format!(
+            "expected {}{unit} to {}{unit} ({})",
+            shown(self.low),
+            shown(self.high),
+            self.reason
+        )
     }
 }

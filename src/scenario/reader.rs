@@ -2,6 +2,7 @@
 //! with units, defaults recorded, every error placed at its line and column.
 
 use super::context::{AppliedDefault, Context, InputLine};
+use super::declare::{value_of_kind, Key, Presence};
 use super::error::ScenarioError;
 use super::suggest::did_you_mean;
 use super::tree::{Entry, Node, NodeValue};
@@ -232,21 +233,78 @@ impl<'a> TableReader<'a> {
             .ok_or_else(|| self.missing(ctx, key, valid))
     }
 
-    /// A quantity, or `default` (recorded as `default_text`, which must
-    /// state the same value) when absent.
-    pub fn quantity_or<T>(
+    /// A numeric key read as its declaration says: parsed by its unit
+    /// kind; when absent, its declared default (recorded) or a "missing"
+    /// error if it is required; `None` for an optional key left out. The
+    /// range is checked with the whole scenario (see `validate.rs`).
+    pub fn declared<T>(&self, ctx: &mut Context, key: &Key<T>) -> Read<Option<f64>> {
+        let name = key.name();
+        let Some(kind) = key.kind() else {
+            return Err(self.error(
+                ctx,
+                name,
+                "is declared without a unit kind (a fault in brayfin)",
+                "expected a numeric declaration",
+            ));
+        };
+        if let Some(value) = self.quantity(ctx, name, |t| value_of_kind(kind, t))? {
+            return Ok(Some(value));
+        }
+        match key.presence {
+            Presence::Default { text, value } => {
+                self.default(ctx, name, text);
+                Ok(Some(value))
+            }
+            Presence::Required { example } => Err(self.missing(
+                ctx,
+                name,
+                &format!("expected the {}, e.g. {example}", key.doc),
+            )),
+            Presence::RequiredUnless { .. } | Presence::Optional { .. } => Ok(None),
+        }
+    }
+
+    /// [`TableReader::declared`] for the key declared at `path` in `keys`;
+    /// a path with no declaration is an error (a fault in brayfin, caught
+    /// by the tests).
+    pub fn declared_at<T>(
         &self,
         ctx: &mut Context,
-        key: &str,
-        parse: impl Fn(&str) -> Result<T, UnitError>,
-        default: T,
-        default_text: &str,
-    ) -> Read<T> {
-        if let Some(value) = self.quantity(ctx, key, &parse)? {
-            return Ok(value);
+        keys: &'static [Key<T>],
+        path: &str,
+    ) -> Read<f64> {
+        let Some(key) = keys.iter().find(|k| k.path == path) else {
+            return Err(self.error(
+                ctx,
+                path.rsplit('.').next().unwrap_or(path),
+                "is not declared (a fault in brayfin)",
+                "expected a declared key",
+            ));
+        };
+        Ok(self.declared(ctx, key)?.unwrap_or(f64::NAN))
+    }
+
+    /// Read every declared numeric key of this table (declarations in
+    /// `keys` whose table is `table`) into `target` through its setter:
+    /// the value given, or its declared default.
+    pub fn declared_into<T>(
+        &self,
+        ctx: &mut Context,
+        keys: &'static [Key<T>],
+        table: &str,
+        target: &mut T,
+    ) -> Read<()> {
+        for key in keys.iter().filter(|k| k.table() == table) {
+            let Some(access) = key.access else {
+                continue;
+            };
+            if let Some(value) = self.declared(ctx, key)? {
+                (access.set)(target, value).map_err(|why| {
+                    self.error(ctx, key.name(), why, "expected a key that applies here")
+                })?;
+            }
         }
-        self.default(ctx, key, default_text);
-        Ok(default)
+        Ok(())
     }
 
     /// Record that `key` took `value` by default.

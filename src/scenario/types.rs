@@ -8,8 +8,8 @@
 //! MWh).
 
 pub use super::candidate::{
-    Candidate, CandidateCosts, EfficiencyBasis, GasModelSpec, IntercoolerSpec, RegeneratorSpec,
-    ReheatSpec, ResidualValue,
+    Candidate, CandidateCosts, EfficiencyBasis, GasModelSpec, IntercoolerSpec, RatingCondition,
+    RegeneratorSpec, ReheatSpec, ResidualValue,
 };
 pub use super::uncertainty::{Distribution, UncertainInput};
 use rust_decimal::Decimal;
@@ -142,6 +142,20 @@ pub struct FuelSpec {
     /// Explicit prices by calendar year (contiguous, ascending), currency per
     /// GJ on `price_basis`; empty when none was given.
     pub price_path: Vec<(i32, Decimal)>,
+    /// `price` exactly as the file wrote it (number and unit, e.g. `3.85`
+    /// and `USD/MMBtu`), so a report can echo it beside the per-GJ value;
+    /// `None` when the price came from `price_path`.
+    pub price_written: Option<WrittenQuantity>,
+}
+
+/// A quantity as the file wrote it.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct WrittenQuantity {
+    /// The number as written, e.g. `"3.85"`.
+    pub number: String,
+    /// The unit as written, e.g. `"USD/MMBtu"`; empty for a bare number
+    /// (then the internal unit).
+    pub unit: String,
 }
 
 /// Whether rates and escalations are real (constant money) or nominal.

@@ -2,6 +2,7 @@
 //! truncation and sensitivity swing, each value written with the key's unit.
 
 use super::context::Context;
+use super::declare::value_of_kind;
 use super::error::ScenarioError;
 use super::keys::kind_of_key;
 use super::reader::{quantity_of_node, type_error, TableReader};
@@ -9,7 +10,6 @@ use super::tree::{Node, NodeValue};
 use super::types::Scenario;
 use super::uncertainty::{Distribution, UncertainInput};
 use crate::units::{self, Kind, UnitError};
-use rust_decimal::prelude::ToPrimitive;
 
 type Read<T> = Result<T, ScenarioError>;
 
@@ -34,28 +34,6 @@ const PARAMETERS: &[(&str, &[&str])] = &[
     ("normal", &["mean", "sigma"]),
     ("lognormal", &["median", "mu", "sigma"]),
 ];
-
-/// A value of `kind` in its internal unit (money amounts as `f64`).
-fn value_of_kind(kind: Kind, text: &str) -> Result<f64, UnitError> {
-    let money = |v: units::MoneyValue| v.amount.to_f64().unwrap_or(f64::NAN);
-    match kind {
-        Kind::Temperature => units::temperature_k(text),
-        Kind::Pressure => units::pressure_kpa(text),
-        Kind::Power => units::power_kw(text),
-        Kind::Fraction => units::fraction(text),
-        Kind::Number => units::number(text),
-        Kind::HeatRate => units::heat_rate_kj_per_kwh(text),
-        Kind::SpecificEnergy => units::specific_energy_kj_per_kg(text),
-        Kind::Length => units::length_m(text),
-        Kind::Duration => units::duration_h(text),
-        Kind::EmissionFactor => units::emission_factor_kg_per_gj(text),
-        Kind::Money => units::money(text).map(money),
-        Kind::FuelPrice => units::price_per_gj(text).map(money),
-        Kind::PricePerTonne => units::price_per_tonne(text).map(money),
-        Kind::PricePerEnergy => units::price_per_mwh(text).map(money),
-        Kind::PricePerCapacity => units::price_per_kw_year(text).map(money),
-    }
-}
 
 /// A difference of `kind` (a standard deviation): for temperatures the
 /// scale's offset is removed, so `"5 degC"` is 5 K, not 278.15 K.

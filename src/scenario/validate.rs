@@ -3,8 +3,7 @@
 //! and after every set through a key path.
 
 use super::candidate::{GasModelSpec, ResidualValue};
-use super::candidate_fields::CANDIDATE_FIELDS;
-use super::fields::SCENARIO_FIELDS;
+use super::declare::{candidate_keys, scenario_keys};
 use super::types::{FuelComposition, Scenario};
 
 /// A rule a scenario breaks: the field, what is wrong, what would be valid.
@@ -20,29 +19,23 @@ pub(crate) struct Violation {
 
 /// Check every numeric field against its range.
 pub(crate) fn check_ranges(scenario: &Scenario) -> Result<(), Violation> {
-    for field in SCENARIO_FIELDS {
-        if let Some(value) = (field.get)(scenario) {
-            field
-                .range
-                .check(value)
-                .map_err(|(problem, valid)| Violation {
-                    field: field.key.to_string(),
-                    problem,
-                    valid,
-                })?;
+    for field in scenario_keys() {
+        if let Some(value) = field.access.and_then(|a| (a.get)(scenario)) {
+            field.check(value).map_err(|(problem, valid)| Violation {
+                field: field.path.to_string(),
+                problem,
+                valid,
+            })?;
         }
     }
     for candidate in &scenario.candidates {
-        for field in CANDIDATE_FIELDS {
-            if let Some(value) = (field.get)(candidate) {
-                field
-                    .range
-                    .check(value)
-                    .map_err(|(problem, valid)| Violation {
-                        field: format!("candidate[{}].{}", candidate.id, field.key),
-                        problem,
-                        valid,
-                    })?;
+        for field in candidate_keys() {
+            if let Some(value) = field.access.and_then(|a| (a.get)(candidate)) {
+                field.check(value).map_err(|(problem, valid)| Violation {
+                    field: format!("candidate[{}].{}", candidate.id, field.path),
+                    problem,
+                    valid,
+                })?;
             }
         }
     }

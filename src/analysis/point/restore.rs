@@ -29,6 +29,7 @@ pub(super) fn fuel(dst: &mut FuelSpec, src: &FuelSpec) {
         price_basis,
         escalation,
         price_path,
+        price_written,
     } = src;
     dst.name.clone_from(name);
     if dst.composition != *composition {
@@ -38,6 +39,7 @@ pub(super) fn fuel(dst: &mut FuelSpec, src: &FuelSpec) {
     dst.price_basis = *price_basis;
     dst.escalation = *escalation;
     dst.price_path.clone_from(price_path);
+    dst.price_written.clone_from(price_written);
 }
 
 /// `dst` becomes equal to `src`.
@@ -96,6 +98,7 @@ pub(super) fn candidate(dst: &mut Candidate, src: &Candidate) {
         regenerator,
         intercooler,
         reheat,
+        rating,
         costs: src_costs,
     } = src;
     dst.id.clone_from(id);
@@ -118,6 +121,7 @@ pub(super) fn candidate(dst: &mut Candidate, src: &Candidate) {
     dst.regenerator = *regenerator;
     dst.intercooler = *intercooler;
     dst.reheat = *reheat;
+    dst.rating = *rating;
     costs(&mut dst.costs, src_costs);
 }
 

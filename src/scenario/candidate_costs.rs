@@ -1,8 +1,10 @@
-//! Reading a candidate's `costs` table.
+//! A candidate's `costs` table (`[candidate.costs]`): its keys and reader.
 
-use super::candidate::{CandidateCosts, ResidualValue};
+use super::candidate::{Candidate, CandidateCosts, ResidualValue};
 use super::context::Context;
+use super::declare::{keys_in, money_from_f64, money_to_f64, Key, Presence, Shape};
 use super::error::ScenarioError;
+use super::ranges::{Range, AMOUNT_HIGH, AMOUNT_REASON, PRICE_HIGH, PRICE_REASON};
 use super::reader::{type_error, TableReader};
 use super::tree::NodeValue;
 use super::values::{date_of_node, in_currency, money_or_zero};
@@ -10,9 +12,95 @@ use crate::units::{self, Kind};
 use chrono::NaiveDate;
 
 type Read<T> = Result<T, ScenarioError>;
+/// Candidate declarations are keys into one [`Candidate`].
+type K = Key<Candidate>;
 
 /// Fractions of a construction schedule must sum to 1 within this.
 const SCHEDULE_SUM_TOLERANCE: f64 = 1e-9;
+
+/// The keys of a candidate's `costs` table (paths relative to the
+/// candidate).
+pub(crate) const KEYS: &[Key<Candidate>] = &[
+    K::number(
+        "costs.fixed_om",
+        Kind::PricePerCapacity,
+        Range::NonNegative,
+        Presence::Default { text: "0", value: 0.0 },
+        "fixed O&M per kW of rated output per year",
+        |c| Some(money_to_f64(c.costs.fixed_om_per_kw_year)),
+        |c, v| {
+            c.costs.fixed_om_per_kw_year = money_from_f64(v)?;
+            Ok(())
+        },
+    )
+    .within(0.0, PRICE_HIGH, "", PRICE_REASON),
+    K::number(
+        "costs.variable_om",
+        Kind::PricePerEnergy,
+        Range::NonNegative,
+        Presence::Default { text: "0", value: 0.0 },
+        "variable O&M per MWh generated",
+        |c| Some(money_to_f64(c.costs.variable_om_per_mwh)),
+        |c, v| {
+            c.costs.variable_om_per_mwh = money_from_f64(v)?;
+            Ok(())
+        },
+    )
+    .within(0.0, PRICE_HIGH, "", PRICE_REASON),
+    K::number(
+        "costs.overhaul_interval",
+        Kind::Duration,
+        Range::NonNegative,
+        Presence::Default { text: "0 h (no overhauls)", value: 0.0 },
+        "operating hours between major overhauls; `\"0 h\"` = none",
+        |c| Some(c.costs.overhaul_interval_hours),
+        |c, v| {
+            c.costs.overhaul_interval_hours = v;
+            Ok(())
+        },
+    )
+    .within(0.0, 1e6, "h", "about 114 years of continuous running; any longer interval means no overhaul in a service life"),
+    K::number(
+        "costs.overhaul_cost",
+        Kind::Money,
+        Range::NonNegative,
+        Presence::Default { text: "0", value: 0.0 },
+        "cost of one overhaul; needs an interval above 0",
+        |c| Some(money_to_f64(c.costs.overhaul_cost)),
+        |c, v| {
+            c.costs.overhaul_cost = money_from_f64(v)?;
+            Ok(())
+        },
+    )
+    .within(0.0, AMOUNT_HIGH, "", AMOUNT_REASON),
+    K::number(
+        "costs.degradation_per_year",
+        Kind::Fraction,
+        Range::Loss,
+        Presence::Default { text: "0 %", value: 0.0 },
+        "heat-rate rise per year of operation",
+        |c| Some(c.costs.degradation_per_year),
+        |c, v| {
+            c.costs.degradation_per_year = v;
+            Ok(())
+        },
+    )
+    .within(0.0, 0.2, "", "a fraction of a per cent to a few per cent a year in practice (common practice); 20 % a year would double the heat rate in five"),
+    K::number(
+        "costs.recoverable_fraction",
+        Kind::Fraction,
+        Range::Fraction,
+        Presence::Default { text: "0 %", value: 0.0 },
+        "share of the degradation an overhaul recovers",
+        |c| Some(c.costs.recoverable_fraction),
+        |c, v| {
+            c.costs.recoverable_fraction = v;
+            Ok(())
+        },
+    ),
+    K::plain("costs.residual_value", Shape::Quantity(Kind::Fraction), Presence::Default { text: "0 %", value: 0.0 }, "at end of life: a fraction of capital (`\"5 %\"`) or an amount (`\"600000 USD\"`)"),
+    K::plain("costs.construction", Shape::Array, Presence::Optional { text: "all capital at commercial operation" }, "`[{ date = 2026-01-15, fraction = \"40 %\" }, …]`: capital spent before commercial operation; dates ascending, on or before it; fractions summing to 100 %"),
+];
 
 /// Read `costs` of the candidate being read by `r` (all keys optional,
 /// defaults zero; a missing table is all defaults).
@@ -26,31 +114,11 @@ pub(crate) fn read_costs(
         value: NodeValue::Table(Vec::new()),
     };
     let node = r.node(ctx, "costs").unwrap_or(&empty);
-    let t = TableReader::new(
-        ctx,
-        &r.field("costs"),
-        node,
-        &[
-            "fixed_om",
-            "variable_om",
-            "overhaul_interval",
-            "overhaul_cost",
-            "degradation_per_year",
-            "recoverable_fraction",
-            "residual_value",
-            "construction",
-        ],
-    )?;
+    let t = TableReader::new(ctx, &r.field("costs"), node, &keys_in(KEYS, "costs"))?;
     let fixed_om_per_kw_year =
         money_or_zero(ctx, &t, "fixed_om", units::price_per_kw_year, "/kW-yr")?;
     let variable_om_per_mwh = money_or_zero(ctx, &t, "variable_om", units::price_per_mwh, "/MWh")?;
-    let overhaul_interval_hours = t.quantity_or(
-        ctx,
-        "overhaul_interval",
-        units::duration_h,
-        0.0,
-        "0 h (no overhauls)",
-    )?;
+    let overhaul_interval_hours = t.declared_at(ctx, KEYS, "costs.overhaul_interval")?;
     let overhaul_cost = money_or_zero(ctx, &t, "overhaul_cost", units::money, "")?;
     if !overhaul_cost.is_zero() && overhaul_interval_hours <= 0.0 {
         return Err(t.error(
@@ -60,10 +128,8 @@ pub(crate) fn read_costs(
             "expected an overhaul_interval above 0 h, e.g. \"24000 h\"",
         ));
     }
-    let degradation_per_year =
-        t.quantity_or(ctx, "degradation_per_year", units::fraction, 0.0, "0 %")?;
-    let recoverable_fraction =
-        t.quantity_or(ctx, "recoverable_fraction", units::fraction, 0.0, "0 %")?;
+    let degradation_per_year = t.declared_at(ctx, KEYS, "costs.degradation_per_year")?;
+    let recoverable_fraction = t.declared_at(ctx, KEYS, "costs.recoverable_fraction")?;
     let residual_value = read_residual(ctx, &t)?;
     let construction_schedule = read_schedule(ctx, &t, cod)?;
     Ok(CandidateCosts {

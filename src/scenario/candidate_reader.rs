@@ -1,11 +1,14 @@
-//! Reading the `[[candidate]]` array: one bid each, with optional
-//! regenerator, intercooler and reheat tables and a costs table.
+//! Reading the `[[candidate]]` array (keys declared in `candidate.rs`): one
+//! bid each, with optional regenerator, intercooler, reheat and rating
+//! tables and a costs table.
 
 use super::candidate::{
-    Candidate, EfficiencyBasis, GasModelSpec, IntercoolerSpec, RegeneratorSpec, ReheatSpec,
+    Candidate, EfficiencyBasis, GasModelSpec, IntercoolerSpec, RatingCondition, RegeneratorSpec,
+    ReheatSpec, KEYS,
 };
+use super::candidate_costs::read_costs;
 use super::context::Context;
-use super::costs_section::read_costs;
+use super::declare::{find, keys_in, Key};
 use super::error::ScenarioError;
 use super::reader::{type_error, TableReader};
 use super::tree::{Node, NodeValue};
@@ -15,31 +18,20 @@ use chrono::NaiveDate;
 
 type Read<T> = Result<T, ScenarioError>;
 
-const CANDIDATE_KEYS: &[&str] = &[
-    "id",
-    "label",
-    "capital_cost",
-    "net_output",
-    "gas_model",
-    "cp_kj_per_kg_k",
-    "specific_heat_ratio",
-    "pressure_ratio",
-    "turbine_inlet_temperature",
-    "compressor_efficiency",
-    "turbine_efficiency",
-    "efficiency_basis",
-    "inlet_pressure_loss",
-    "exhaust_pressure_loss",
-    "combustor_pressure_loss",
-    "combustion_efficiency",
-    "mechanical_efficiency",
-    "generator_efficiency",
-    "auxiliary_load",
-    "regenerator",
-    "intercooler",
-    "reheat",
-    "costs",
-];
+/// Longest candidate id: ids head table columns and file names.
+const MAX_ID_CHARS: usize = 64;
+
+/// The declaration of `path` (a candidate key), or an error naming it.
+fn key(ctx: &Context, path: &str) -> Read<&'static Key<Candidate>> {
+    find(KEYS, path).ok_or_else(|| {
+        ctx.error_at_offset(
+            0,
+            path,
+            "is not declared (a fault in brayfin)",
+            "expected a declared candidate key",
+        )
+    })
+}
 
 /// Read every `[[candidate]]`; at least one, ids unique.
 pub(crate) fn read_candidates(
@@ -122,6 +114,15 @@ fn read_candidate(ctx: &mut Context, node: &Node, index: usize, cod: NaiveDate) 
             ))
         }
     };
+    if id.chars().count() > MAX_ID_CHARS {
+        let offset = id_entry.map_or(node.span.start, |e| e.node.span.start);
+        return Err(ctx.error_at_offset(
+            offset,
+            &id_field,
+            format!("is {} characters long", id.chars().count()),
+            format!("expected an id of at most {MAX_ID_CHARS} characters"),
+        ));
+    }
     if !is_valid_id(&id) {
         let offset = id_entry.map_or(node.span.start, |e| e.node.span.start);
         return Err(ctx.error_at_offset(
@@ -132,7 +133,7 @@ fn read_candidate(ctx: &mut Context, node: &Node, index: usize, cod: NaiveDate) 
         ));
     }
     let path = format!("candidate[{id}]");
-    let r = TableReader::new(ctx, &path, node, CANDIDATE_KEYS)?;
+    let r = TableReader::new(ctx, &path, node, &keys_in(KEYS, ""))?;
     r.string(ctx, "id")?;
     let label = match r.string(ctx, "label")? {
         Some(label) => label,
@@ -181,21 +182,22 @@ fn read_candidate(ctx: &mut Context, node: &Node, index: usize, cod: NaiveDate) 
         "polytropic" => EfficiencyBasis::Polytropic,
         _ => EfficiencyBasis::Isentropic,
     };
-    let fraction_or = |ctx: &mut Context, key: &str, default: f64, text: &str| {
-        r.quantity_or(ctx, key, units::fraction, default, text)
+    let mut number = |path: &str| -> Read<f64> {
+        let key = key(ctx, path)?;
+        Ok(r.declared(ctx, key)?.unwrap_or(f64::NAN))
     };
-    let inlet_pressure_loss = fraction_or(ctx, "inlet_pressure_loss", 0.0, "0 %")?;
-    let exhaust_pressure_loss = fraction_or(ctx, "exhaust_pressure_loss", 0.0, "0 %")?;
-    let combustor_pressure_loss = fraction_or(ctx, "combustor_pressure_loss", 0.0, "0 %")?;
-    let combustion_efficiency = fraction_or(ctx, "combustion_efficiency", 1.0, "100 %")?;
-    let mechanical_efficiency = fraction_or(ctx, "mechanical_efficiency", 1.0, "100 %")?;
-    let generator_efficiency = fraction_or(ctx, "generator_efficiency", 1.0, "100 %")?;
-    let auxiliary_load_fraction = fraction_or(ctx, "auxiliary_load", 0.0, "0 %")?;
+    let inlet_pressure_loss = number("inlet_pressure_loss")?;
+    let exhaust_pressure_loss = number("exhaust_pressure_loss")?;
+    let combustor_pressure_loss = number("combustor_pressure_loss")?;
+    let combustion_efficiency = number("combustion_efficiency")?;
+    let mechanical_efficiency = number("mechanical_efficiency")?;
+    let generator_efficiency = number("generator_efficiency")?;
+    let auxiliary_load_fraction = number("auxiliary_load")?;
     let regenerator = read_regenerator(ctx, &r)?;
     let intercooler = read_intercooler(ctx, &r)?;
     let reheat = read_reheat(ctx, &r)?;
     let costs = read_costs(ctx, &r, cod)?;
-    Ok(Candidate {
+    let mut candidate = Candidate {
         id,
         label,
         capital_cost,
@@ -216,8 +218,29 @@ fn read_candidate(ctx: &mut Context, node: &Node, index: usize, cod: NaiveDate) 
         regenerator,
         intercooler,
         reheat,
+        // Every rating key has a declared default, so each NaN is
+        // overwritten by `read_rating` (and a NaN left would fail the
+        // range check).
+        rating: RatingCondition {
+            temperature_k: f64::NAN,
+            pressure_kpa: f64::NAN,
+            relative_humidity: f64::NAN,
+        },
         costs,
-    })
+    };
+    read_rating(ctx, &r, &mut candidate)?;
+    Ok(candidate)
+}
+
+/// `[candidate.rating]`: every declared `rating.*` key, read generically.
+fn read_rating(ctx: &mut Context, r: &TableReader, candidate: &mut Candidate) -> Read<()> {
+    let empty = Node {
+        span: r.span.clone(),
+        value: NodeValue::Table(Vec::new()),
+    };
+    let node = r.node(ctx, "rating").unwrap_or(&empty);
+    let t = TableReader::new(ctx, &r.field("rating"), node, &keys_in(KEYS, "rating"))?;
+    t.declared_into(ctx, KEYS, "rating", candidate)
 }
 
 fn read_gas_model(ctx: &mut Context, r: &TableReader) -> Read<GasModelSpec> {
@@ -240,8 +263,11 @@ fn read_gas_model(ctx: &mut Context, r: &TableReader) -> Read<GasModelSpec> {
         // cp = 1.005 kJ/(kg·K), k = 1.4: the cold-air standard of the
         // engineering thermodynamics texts (common practice).
         "cold-air" => GasModelSpec::ColdAir {
-            cp_kj_per_kg_k: r.quantity_or(ctx, "cp_kj_per_kg_k", units::number, 1.005, "1.005")?,
-            k: r.quantity_or(ctx, "specific_heat_ratio", units::number, 1.4, "1.4")?,
+            cp_kj_per_kg_k: r
+                .declared(ctx, key(ctx, "cp_kj_per_kg_k")?)?
+                .unwrap_or(f64::NAN),
+            k: r.declared(ctx, key(ctx, "specific_heat_ratio")?)?
+                .unwrap_or(f64::NAN),
         },
         _ => GasModelSpec::Air,
     })
@@ -251,27 +277,16 @@ fn sub_table<'a>(
     ctx: &mut Context,
     r: &TableReader,
     key: &str,
-    allowed: &[&str],
     node: &'a Node,
 ) -> Read<TableReader<'a>> {
-    TableReader::new(ctx, &r.field(key), node, allowed)
+    TableReader::new(ctx, &r.field(key), node, &keys_in(KEYS, key))
 }
 
 fn read_regenerator(ctx: &mut Context, r: &TableReader) -> Read<Option<RegeneratorSpec>> {
     let Some(node) = r.node(ctx, "regenerator") else {
         return Ok(None);
     };
-    let t = sub_table(
-        ctx,
-        r,
-        "regenerator",
-        &[
-            "effectiveness",
-            "air_side_pressure_loss",
-            "gas_side_pressure_loss",
-        ],
-        node,
-    )?;
+    let t = sub_table(ctx, r, "regenerator", node)?;
     Ok(Some(RegeneratorSpec {
         effectiveness: t.required_quantity(
             ctx,
@@ -279,20 +294,12 @@ fn read_regenerator(ctx: &mut Context, r: &TableReader) -> Read<Option<Regenerat
             units::fraction,
             "expected an effectiveness such as \"85 %\"",
         )?,
-        air_side_pressure_loss: t.quantity_or(
-            ctx,
-            "air_side_pressure_loss",
-            units::fraction,
-            0.0,
-            "0 %",
-        )?,
-        gas_side_pressure_loss: t.quantity_or(
-            ctx,
-            "gas_side_pressure_loss",
-            units::fraction,
-            0.0,
-            "0 %",
-        )?,
+        air_side_pressure_loss: t
+            .declared(ctx, key(ctx, "regenerator.air_side_pressure_loss")?)?
+            .unwrap_or(f64::NAN),
+        gas_side_pressure_loss: t
+            .declared(ctx, key(ctx, "regenerator.gas_side_pressure_loss")?)?
+            .unwrap_or(f64::NAN),
     }))
 }
 
@@ -300,13 +307,7 @@ fn read_intercooler(ctx: &mut Context, r: &TableReader) -> Read<Option<Intercool
     let Some(node) = r.node(ctx, "intercooler") else {
         return Ok(None);
     };
-    let t = sub_table(
-        ctx,
-        r,
-        "intercooler",
-        &["pressure_split", "exit_temperature", "effectiveness"],
-        node,
-    )?;
+    let t = sub_table(ctx, r, "intercooler", node)?;
     let pressure_split = t.quantity(ctx, "pressure_split", units::number)?;
     if pressure_split.is_none() {
         t.default(ctx, "pressure_split", "geometric mean (√pressure_ratio)");
@@ -334,7 +335,7 @@ fn read_reheat(ctx: &mut Context, r: &TableReader) -> Read<Option<ReheatSpec>> {
     let Some(node) = r.node(ctx, "reheat") else {
         return Ok(None);
     };
-    let t = sub_table(ctx, r, "reheat", &["pressure_split", "temperature"], node)?;
+    let t = sub_table(ctx, r, "reheat", node)?;
     let pressure_split = t.quantity(ctx, "pressure_split", units::number)?;
     if pressure_split.is_none() {
         t.default(ctx, "pressure_split", "geometric mean of the expansion");

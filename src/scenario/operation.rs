@@ -1,25 +1,50 @@
-//! Reading the `[operation]` section: hours per year, a dispatch profile and
-//! the part-load heat-rate curve.
+//! The `[operation]` section: hours per year, a dispatch profile and the
+//! part-load heat-rate curve.
 
 use super::context::Context;
+use super::declare::{keys_in, Key, Presence, SetResult, Shape};
 use super::error::ScenarioError;
 use super::ranges::{Range, HOURS_PER_LEAP_YEAR};
 use super::reader::{type_error, TableReader};
 use super::tree::{Node, NodeValue};
-use super::types::{DispatchBlock, Operation, PartLoadPoint};
+use super::types::{DispatchBlock, Operation, PartLoadPoint, Scenario};
 use super::values::checked;
-use crate::units;
+use crate::units::{self, Kind};
 
 type Read<T> = Result<T, ScenarioError>;
+/// Declarations of this section are keys into the whole [`Scenario`].
+type K = Key<Scenario>;
+
+/// The keys of `[operation]`.
+pub(crate) const KEYS: &[Key<Scenario>] = &[
+    K::number(
+        "operation.hours_per_year",
+        Kind::Duration,
+        Range::HoursPerYear,
+        Presence::RequiredUnless { text: "`dispatch` (then the dispatch total)" },
+        "operating hours per year; setting it through a key path scales every dispatch block in proportion",
+        |s| Some(s.operation.hours_per_year),
+        set_hours_per_year,
+    ),
+    K::plain("operation.dispatch", Shape::Array, Presence::Optional { text: "every hour at full load" }, "`[{ load = \"100 %\", hours = 2000 }, { load = \"75 %\", hours = 1000 }]`; loads in (0, 100 %], hours ≥ 0, total ≤ 8784. With `hours_per_year` too, the total must equal it"),
+    K::plain("operation.part_load", Shape::Array, Presence::Optional { text: "none" }, "`[{ load = \"75 %\", heat_rate_ratio = 1.07 }, …]`: heat rate at that load ÷ full-load heat rate. Loads strictly ascending or descending; ratios ≥ 1 and not rising with load; exactly 1.0 at 100 % (added if absent). Required when any dispatch load is below 100 %, and must reach down to the lowest dispatch load (no extrapolation)"),
+];
+
+/// Scale every dispatch block so the hours sum to `hours`.
+fn set_hours_per_year(s: &mut Scenario, hours: f64) -> SetResult {
+    let old = s.operation.hours_per_year;
+    if !s.operation.dispatch.is_empty() && old > 0.0 {
+        for block in &mut s.operation.dispatch {
+            block.hours *= hours / old;
+        }
+    }
+    s.operation.hours_per_year = hours;
+    Ok(())
+}
 
 /// Read `[operation]`.
 pub(crate) fn read_operation(ctx: &mut Context, node: &Node) -> Read<Operation> {
-    let r = TableReader::new(
-        ctx,
-        "operation",
-        node,
-        &["hours_per_year", "dispatch", "part_load"],
-    )?;
+    let r = TableReader::new(ctx, "operation", node, &keys_in(KEYS, "operation"))?;
     let hours = checked(
         ctx,
         &r,

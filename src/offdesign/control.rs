@@ -1,0 +1,189 @@
+//! Part-load control: from a requested load to the vane setting and firing
+//! temperature that give it, within the exhaust temperature limit.
+
+use super::error::OffDesignError;
+use super::machine::{Machine, Matched};
+use super::roots::{increasing_root, Eval, Found};
+use super::{Ambient, Limit, Strategy};
+use crate::cycle::CycleError;
+
+/// Output is matched to the target within this fraction of it.
+const LOAD_TOLERANCE: f64 = 1e-10;
+/// The exhaust temperature is held to its limit within this, K.
+const EXHAUST_TOLERANCE_K: f64 = 1e-8;
+/// Bracket width at which a search stops, relative to the variable.
+const BRACKET_TOLERANCE: f64 = 1e-13;
+
+/// A cycle refusal met while searching: below the valid region (no net
+/// work, firing below the compressor delivery) or a real error.
+fn undefined_or<T>(e: CycleError) -> Result<Eval<T>, OffDesignError> {
+    match e {
+        CycleError::NoNetWork { .. } => Ok(None),
+        CycleError::Invalid {
+            field: "turbine_inlet_temperature_k" | "regenerator.effectiveness",
+            ..
+        } => Ok(None),
+        source => Err(OffDesignError::Cycle {
+            context: "off-design point".into(),
+            source,
+        }),
+    }
+}
+
+fn cycle_error(source: CycleError) -> OffDesignError {
+    OffDesignError::Cycle {
+        context: "off-design point".into(),
+        source,
+    }
+}
+
+impl Machine {
+    /// The state at `vanes` with the firing temperature at its rated value,
+    /// unless the exhaust limit binds first (then lowered to hold it).
+    pub(crate) fn at_vanes(
+        &self,
+        ambient: &Ambient,
+        vanes: f64,
+    ) -> Result<(Matched, Limit), OffDesignError> {
+        let rated_firing = self.design.turbine_inlet_temperature_k;
+        let hot = self
+            .matched(ambient, vanes, rated_firing)
+            .map_err(cycle_error)?;
+        let over = hot.turbine_exit_k() - self.exhaust_limit_k;
+        if over <= EXHAUST_TOLERANCE_K {
+            return Ok((hot, Limit::FiringTemperature));
+        }
+        // Exhaust temperature rises with firing temperature at fixed vanes:
+        // lower the firing temperature until it sits at the limit.
+        let lo = hot.delivery_k();
+        // About 1.3 K of exhaust per K of firing near design (first guess).
+        let x0 = rated_firing - over / 1.3;
+        let found = increasing_root(
+            |t3| match self.matched(ambient, vanes, t3) {
+                Ok(m) => Ok(Some((m.turbine_exit_k() - self.exhaust_limit_k, m))),
+                Err(e) => undefined_or(e),
+            },
+            lo,
+            (rated_firing, over, hot),
+            x0,
+            EXHAUST_TOLERANCE_K,
+            BRACKET_TOLERANCE * rated_firing,
+        )?;
+        match found {
+            Found::Root(m) => Ok((m, Limit::ExhaustTemperature)),
+            Found::Undefined => Err(OffDesignError::NoOperatingPoint(format!(
+                "the exhaust temperature limit {:.2} K cannot be held at {:.2} K ambient with the guide vanes at {:.3} of rated flow: the machine makes no net work at any firing temperature that keeps its exhaust that cool",
+                self.exhaust_limit_k, ambient.temperature_k, vanes
+            ))),
+        }
+    }
+
+    /// Base load at `ambient`: vanes open, rated firing temperature unless
+    /// the exhaust limit binds first.
+    pub(crate) fn base(&self, ambient: &Ambient) -> Result<(Matched, Limit), OffDesignError> {
+        self.at_vanes(ambient, 1.0)
+    }
+
+    /// At fixed `vanes`, lower the firing temperature from `top` until the
+    /// output is `target_kw`.
+    fn at_output_by_firing(
+        &self,
+        ambient: &Ambient,
+        top: Matched,
+        target_kw: f64,
+    ) -> Result<Matched, OffDesignError> {
+        let vanes = top.vanes;
+        let hi_t3 = top.firing_temperature_k;
+        let lo = top.delivery_k();
+        let top_kw = top.net_output_kw();
+        // Output is roughly linear in firing temperature above the point of
+        // no net work, which lies some way above the compressor delivery.
+        let zero_guess = lo + 0.45 * (hi_t3 - lo);
+        let x0 = zero_guess + (hi_t3 - zero_guess) * target_kw / top_kw;
+        let found = increasing_root(
+            |t3| match self.matched(ambient, vanes, t3) {
+                Ok(m) => Ok(Some((m.net_output_kw() - target_kw, m))),
+                Err(e) => undefined_or(e),
+            },
+            lo,
+            (hi_t3, top_kw - target_kw, top),
+            x0,
+            LOAD_TOLERANCE * target_kw,
+            BRACKET_TOLERANCE * hi_t3,
+        )?;
+        match found {
+            Found::Root(m) => Ok(m),
+            Found::Undefined => Err(OffDesignError::NoOperatingPoint(format!(
+                "no firing temperature gives {target_kw:.1} kW at {:.2} K ambient with the guide vanes at {vanes:.3} of rated flow",
+                ambient.temperature_k
+            ))),
+        }
+    }
+
+    /// Guide-vane control below base load: close the vanes holding the
+    /// exhaust at its limit (firing temperature at most rated), down to the
+    /// minimum airflow; below that, lower the firing temperature.
+    pub(crate) fn by_guide_vanes(
+        &self,
+        ambient: &Ambient,
+        base: Matched,
+        target_kw: f64,
+    ) -> Result<(Matched, Limit), OffDesignError> {
+        let w_min = self.control.minimum_airflow;
+        let (closed, closed_limit) = self.at_vanes(ambient, w_min)?;
+        let closed_kw = closed.net_output_kw();
+        if closed_kw <= target_kw {
+            if (closed_kw - target_kw).abs() <= LOAD_TOLERANCE * target_kw {
+                return Ok((closed, closed_limit));
+            }
+            let base_kw = base.net_output_kw();
+            // First guess: output roughly proportional to air flow.
+            let x0 = w_min + (1.0 - w_min) * (target_kw - closed_kw) / (base_kw - closed_kw);
+            let found = increasing_root(
+                |w| {
+                    let (m, limit) = self.at_vanes(ambient, w)?;
+                    Ok(Some((m.net_output_kw() - target_kw, (m, limit))))
+                },
+                w_min,
+                (1.0, base_kw - target_kw, (base, Limit::FiringTemperature)),
+                x0,
+                LOAD_TOLERANCE * target_kw,
+                BRACKET_TOLERANCE,
+            )?;
+            return match found {
+                Found::Root(found) => Ok(found),
+                Found::Undefined => Err(OffDesignError::NoConvergence {
+                    what: "guide-vane",
+                    last_change: f64::NAN,
+                }),
+            };
+        }
+        let m = self.at_output_by_firing(ambient, closed, target_kw)?;
+        Ok((m, Limit::MinimumAirflow))
+    }
+
+    /// Firing-temperature control: vanes open, firing temperature lowered
+    /// until the output is the target.
+    pub(crate) fn by_firing_temperature(
+        &self,
+        ambient: &Ambient,
+        base: Matched,
+        target_kw: f64,
+    ) -> Result<(Matched, Limit), OffDesignError> {
+        let m = self.at_output_by_firing(ambient, base, target_kw)?;
+        Ok((m, Limit::FixedAirflow))
+    }
+
+    /// The control's answer for `target_kw` below base load.
+    pub(crate) fn part_load(
+        &self,
+        ambient: &Ambient,
+        base: Matched,
+        target_kw: f64,
+    ) -> Result<(Matched, Limit), OffDesignError> {
+        match self.control.strategy {
+            Strategy::GuideVanes => self.by_guide_vanes(ambient, base, target_kw),
+            Strategy::FiringTemperature => self.by_firing_temperature(ambient, base, target_kw),
+        }
+    }
+}

@@ -114,7 +114,7 @@ impl Machine {
         match found {
             Found::Root(m) => Ok(m),
             Found::Undefined => Err(OffDesignError::NoOperatingPoint(format!(
-                "no firing temperature gives {target_kw:.1} kW at {:.2} K ambient with the guide vanes at {vanes:.3} of rated flow",
+                "no firing temperature gives {target_kw:.1} kW at {:.2} K ambient with the guide vanes at {vanes:.3} of rated flow (below some firing temperature the machine makes no net work, or a regenerator's hot side would be colder than its air side); raise the minimum load",
                 ambient.temperature_k
             ))),
         }

@@ -33,7 +33,8 @@ fn rating_point_is_the_design_solve() {
             let design = cycle::solve(&at_iso, &gas, &fuel).unwrap();
             let flows = design.flows.unwrap();
             for control in [guide_vanes(), firing_temperature()] {
-                let machine = Machine::calibrate(&config, dry_iso(), control, gas, &fuel).unwrap();
+                let machine =
+                    Machine::calibrate(&config, 0.0, dry_iso(), control, gas, &fuel).unwrap();
                 let p = machine.solve(dry_iso(), Load::BASE).unwrap();
                 let close = |a: f64, b: f64, what: &str| {
                     assert!(
@@ -42,11 +43,23 @@ fn rating_point_is_the_design_solve() {
                     )
                 };
                 close(p.net_output_kw, flows.net_output_kw, "net output");
-                close(p.heat_rate_kj_per_kwh, design.heat_rate_kj_per_kwh, "heat rate");
-                close(p.thermal_efficiency, design.thermal_efficiency, "efficiency");
+                close(
+                    p.heat_rate_kj_per_kwh,
+                    design.heat_rate_kj_per_kwh,
+                    "heat rate",
+                );
+                close(
+                    p.thermal_efficiency,
+                    design.thermal_efficiency,
+                    "efficiency",
+                );
                 close(p.air_flow_kg_per_s, flows.air_flow_kg_per_s, "air flow");
                 close(p.fuel_flow_kg_per_s, flows.fuel_flow_kg_per_s, "fuel flow");
-                close(p.stack_temperature_k, design.exhaust_temperature_k, "stack T");
+                close(
+                    p.stack_temperature_k,
+                    design.exhaust_temperature_k,
+                    "stack T",
+                );
                 close(p.pressure_ratio, at_iso.pressure_ratio, "pressure ratio");
                 close(
                     p.firing_temperature_k,
@@ -71,7 +84,8 @@ fn first_law_closes_on_the_whole_grid() {
     for file in ["corvel-bay-peaker.toml", "kestrel-point-retrofit.toml"] {
         for (id, config, gas, fuel) in demo_candidates(file) {
             for control in [guide_vanes(), firing_temperature()] {
-                let machine = Machine::calibrate(&config, dry_iso(), control, gas, &fuel).unwrap();
+                let machine =
+                    Machine::calibrate(&config, 0.0, dry_iso(), control, gas, &fuel).unwrap();
                 for i in 0..12 {
                     let ambient = Ambient::dry(263.15 + 5.0 * i as f64, 101.325);
                     let base = machine.solve(ambient, Load::BASE).unwrap();
@@ -97,10 +111,11 @@ fn first_law_closes_on_the_whole_grid() {
                             p.net_output_kw
                         );
                         assert!(
-                            p.exhaust_temperature_k
-                                <= machine.exhaust_temperature_limit_k() + 1e-6
+                            p.exhaust_temperature_k <= machine.exhaust_temperature_limit_k() + 1e-6
                         );
-                        assert!(p.firing_temperature_k <= config.turbine_inlet_temperature_k + 1e-9);
+                        assert!(
+                            p.firing_temperature_k <= config.turbine_inlet_temperature_k + 1e-9
+                        );
                     }
                 }
             }
@@ -141,9 +156,12 @@ fn altitude_scales_output_with_pressure() {
 fn hot_day_lapse_is_in_the_usual_range() {
     let machine = demo_machine(DEMO, "standard", guide_vanes());
     let iso = machine.solve(dry_iso(), Load::BASE).unwrap();
-    let hot = machine.solve(Ambient::dry(303.15, 101.325), Load::BASE).unwrap();
+    let hot = machine
+        .solve(Ambient::dry(303.15, 101.325), Load::BASE)
+        .unwrap();
     let output_per_k = (hot.net_output_kw / iso.net_output_kw - 1.0) / 15.0 * 100.0;
-    let heat_rate_per_k = (hot.heat_rate_kj_per_kwh / iso.heat_rate_kj_per_kwh - 1.0) / 15.0 * 100.0;
+    let heat_rate_per_k =
+        (hot.heat_rate_kj_per_kwh / iso.heat_rate_kj_per_kwh - 1.0) / 15.0 * 100.0;
     assert!(
         (-0.9..=-0.5).contains(&output_per_k),
         "output lapse {output_per_k} %/K"
@@ -204,14 +222,23 @@ fn guide_vanes_beat_firing_temperature_at_part_load() {
         let vanes = demo_machine(DEMO, id, guide_vanes());
         let firing = demo_machine(DEMO, id, firing_temperature());
         for load in loads {
-            let (v, f) = (heat_rate_ratio(&vanes, load), heat_rate_ratio(&firing, load));
+            let (v, f) = (
+                heat_rate_ratio(&vanes, load),
+                heat_rate_ratio(&firing, load),
+            );
             assert!(v < f, "{id} load {load}: guide vanes {v} vs firing {f}");
         }
     }
     let vanes = demo_machine(DEMO, "standard", guide_vanes());
     let firing = demo_machine(DEMO, "standard", firing_temperature());
     for load in [0.9, 0.8, 0.7, 0.6] {
-        let (v, f) = (heat_rate_ratio(&vanes, load), heat_rate_ratio(&firing, load));
-        assert!((v / f - 1.0).abs() < 0.005, "standard at {load}: {v} vs {f}");
+        let (v, f) = (
+            heat_rate_ratio(&vanes, load),
+            heat_rate_ratio(&firing, load),
+        );
+        assert!(
+            (v / f - 1.0).abs() < 0.005,
+            "standard at {load}: {v} vs {f}"
+        );
     }
 }

@@ -49,10 +49,15 @@ proptest! {
     }
 
     /// Heat rate rises as load falls (every published part-load curve of a
-    /// single-shaft machine; Saravanamuttoo et al., from memory).
+    /// simple-cycle single-shaft machine; Saravanamuttoo et al., from
+    /// memory), for every machine but the regenerated one under guide-vane
+    /// control: on a cold day that one's exhaust is below its limit at base
+    /// load, closing the vanes at rated firing warms the exhaust, and the
+    /// regenerator recovers more, so its heat rate can dip slightly just
+    /// below base load (found by this test at 240 K, 93 % → 92 % load).
     #[test]
     fn heat_rate_rises_as_load_falls(
-        which in 0usize..6,
+        which in prop::sample::select(vec![0usize, 1, 2, 3, 5]),
         t in 240.0f64..320.0,
         load in 0.45f64..1.0,
         drop in 0.01f64..0.05,

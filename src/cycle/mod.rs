@@ -62,6 +62,8 @@ mod cold_tests;
 mod components;
 mod compression;
 mod config;
+#[cfg(test)]
+mod detail_tests;
 mod error;
 mod hot;
 mod solver;

@@ -41,7 +41,9 @@ pub enum OffDesignError {
         source: CycleError,
     },
     /// Internal: an iteration that did not converge. Never expected.
-    #[error("internal: the {what} iteration did not converge (last relative change {last_change:e})")]
+    #[error(
+        "internal: the {what} iteration did not converge (last relative change {last_change:e})"
+    )]
     NoConvergence {
         /// Which iteration.
         what: &'static str,

@@ -167,16 +167,6 @@ impl Control {
     }
 }
 
-/// Humid air is not modelled yet: the cycle works with dry air, so a
-/// humidity other than 0 is refused rather than ignored.
-pub(crate) fn humidity_not_modelled(field: &'static str) -> OffDesignError {
-    OffDesignError::invalid(
-        field,
-        "humid air is not modelled yet",
-        "expected 0 (dry air)",
-    )
-}
-
 /// What sets the operating point.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
 #[serde(rename_all = "kebab-case")]
@@ -258,9 +248,6 @@ impl Machine {
     /// leave no operating point.
     pub fn solve(&self, ambient: Ambient, load: Load) -> Result<OffDesignPoint, OffDesignError> {
         self.check_ambient(&ambient)?;
-        if ambient.relative_humidity != 0.0 {
-            return Err(humidity_not_modelled("ambient.relative_humidity"));
-        }
         let fraction = load.0;
         let minimum = self.control.minimum_load;
         if !(fraction <= 1.0) || !(fraction >= minimum) {
@@ -292,8 +279,7 @@ impl Machine {
         limit: Limit,
     ) -> OffDesignPoint {
         let r = &m.result;
-        let fuel_flow =
-            m.air_flow_kg_per_s * r.heat_input_kj_per_kg / self.fuel.lhv_kj_per_kg();
+        let fuel_flow = m.air_flow_kg_per_s * r.heat_input_kj_per_kg / self.fuel.lhv_kj_per_kg();
         OffDesignPoint {
             ambient_temperature_k: ambient.temperature_k,
             ambient_pressure_kpa: ambient.pressure_kpa,

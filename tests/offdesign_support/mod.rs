@@ -37,7 +37,7 @@ pub fn demo_machine(file: &str, id: &str, control: Control) -> Machine {
         .into_iter()
         .find(|(cid, ..)| cid == id)
         .expect("candidate present");
-    Machine::calibrate(&config, dry_iso(), control, gas, &fuel).expect("calibrates")
+    Machine::calibrate(&config, 0.0, dry_iso(), control, gas, &fuel).expect("calibrates")
 }
 
 /// ISO 3977-2 temperature and pressure, dry air.

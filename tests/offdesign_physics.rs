@@ -78,7 +78,8 @@ fn rating_point_is_the_design_solve() {
 /// control down to 50 %: below that a regenerated machine on a cold day
 /// would fire below its regenerator's reversal and is refused): net work = heat in − heat out to 1e-9 of
 /// the heat input (the cycle solver's own closure, as a design point), and
-/// the output is the requested fraction of that ambient's base load.
+/// the output is the requested fraction of that ambient's base load (to
+/// 1e-8, the control's tolerance).
 #[test]
 fn first_law_closes_on_the_whole_grid() {
     for file in ["corvel-bay-peaker.toml", "kestrel-point-retrofit.toml"] {
@@ -106,12 +107,12 @@ fn first_law_closes_on_the_whole_grid() {
                         );
                         let target = load * base.net_output_kw;
                         assert!(
-                            ((p.net_output_kw - target) / target).abs() <= 1e-9,
+                            ((p.net_output_kw - target) / target).abs() <= 1e-8,
                             "{id} output {} for target {target}",
                             p.net_output_kw
                         );
                         assert!(
-                            p.exhaust_temperature_k <= machine.exhaust_temperature_limit_k() + 1e-6
+                            p.exhaust_temperature_k <= machine.exhaust_temperature_limit_k() + 1e-5
                         );
                         assert!(
                             p.firing_temperature_k <= config.turbine_inlet_temperature_k + 1e-9

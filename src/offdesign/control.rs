@@ -2,15 +2,16 @@
 //! temperature that give it, within the exhaust temperature limit.
 
 use super::error::OffDesignError;
-use super::machine::{Machine, Matched};
+use super::machine::{Hint, Machine, Matched};
 use super::roots::{increasing_root, Eval, Found};
 use super::{Ambient, Limit, Strategy};
 use crate::cycle::CycleError;
 
-/// Output is matched to the target within this fraction of it.
-const LOAD_TOLERANCE: f64 = 1e-10;
+/// Output is matched to the target within this fraction of it (above the
+/// matching's own noise of about 1e-9).
+const LOAD_TOLERANCE: f64 = 1e-8;
 /// The exhaust temperature is held to its limit within this, K.
-const EXHAUST_TOLERANCE_K: f64 = 1e-8;
+const EXHAUST_TOLERANCE_K: f64 = 1e-6;
 /// Bracket width at which a search stops, relative to the variable.
 const BRACKET_TOLERANCE: f64 = 1e-13;
 
@@ -44,10 +45,11 @@ impl Machine {
         &self,
         ambient: &Ambient,
         vanes: f64,
+        hint: Option<Hint>,
     ) -> Result<(Matched, Limit), OffDesignError> {
         let rated_firing = self.design.turbine_inlet_temperature_k;
         let hot = self
-            .matched(ambient, vanes, rated_firing)
+            .matched(ambient, vanes, rated_firing, hint)
             .map_err(cycle_error)?;
         let over = hot.turbine_exit_k() - self.exhaust_limit_k;
         if over <= EXHAUST_TOLERANCE_K {
@@ -58,9 +60,14 @@ impl Machine {
         let lo = hot.delivery_k();
         // About 1.3 K of exhaust per K of firing near design (first guess).
         let x0 = rated_firing - over / 1.3;
+        let cooling = self.turbine_cooling;
+        let mut hint = Some(hot.hint(cooling));
         let found = increasing_root(
-            |t3| match self.matched(ambient, vanes, t3) {
-                Ok(m) => Ok(Some((m.turbine_exit_k() - self.exhaust_limit_k, m))),
+            |t3| match self.matched(ambient, vanes, t3, hint) {
+                Ok(m) => {
+                    hint = Some(m.hint(cooling));
+                    Ok(Some((m.turbine_exit_k() - self.exhaust_limit_k, m)))
+                }
                 Err(e) => undefined_or(e),
             },
             lo,
@@ -81,7 +88,7 @@ impl Machine {
     /// Base load at `ambient`: vanes open, rated firing temperature unless
     /// the exhaust limit binds first.
     pub(crate) fn base(&self, ambient: &Ambient) -> Result<(Matched, Limit), OffDesignError> {
-        self.at_vanes(ambient, 1.0)
+        self.at_vanes(ambient, 1.0, None)
     }
 
     /// At fixed `vanes`, lower the firing temperature from `top` until the
@@ -100,9 +107,14 @@ impl Machine {
         // no net work, which lies some way above the compressor delivery.
         let zero_guess = lo + 0.45 * (hi_t3 - lo);
         let x0 = zero_guess + (hi_t3 - zero_guess) * target_kw / top_kw;
+        let cooling = self.turbine_cooling;
+        let mut hint = Some(top.hint(cooling));
         let found = increasing_root(
-            |t3| match self.matched(ambient, vanes, t3) {
-                Ok(m) => Ok(Some((m.net_output_kw() - target_kw, m))),
+            |t3| match self.matched(ambient, vanes, t3, hint) {
+                Ok(m) => {
+                    hint = Some(m.hint(cooling));
+                    Ok(Some((m.net_output_kw() - target_kw, m)))
+                }
                 Err(e) => undefined_or(e),
             },
             lo,
@@ -130,7 +142,8 @@ impl Machine {
         target_kw: f64,
     ) -> Result<(Matched, Limit), OffDesignError> {
         let w_min = self.control.minimum_airflow;
-        let (closed, closed_limit) = self.at_vanes(ambient, w_min)?;
+        let cooling = self.turbine_cooling;
+        let (closed, closed_limit) = self.at_vanes(ambient, w_min, Some(base.hint(cooling)))?;
         let closed_kw = closed.net_output_kw();
         if closed_kw <= target_kw {
             if (closed_kw - target_kw).abs() <= LOAD_TOLERANCE * target_kw {
@@ -139,9 +152,11 @@ impl Machine {
             let base_kw = base.net_output_kw();
             // First guess: output roughly proportional to air flow.
             let x0 = w_min + (1.0 - w_min) * (target_kw - closed_kw) / (base_kw - closed_kw);
+            let mut hint = Some(closed.hint(cooling));
             let found = increasing_root(
                 |w| {
-                    let (m, limit) = self.at_vanes(ambient, w)?;
+                    let (m, limit) = self.at_vanes(ambient, w, hint)?;
+                    hint = Some(m.hint(cooling));
                     Ok(Some((m.net_output_kw() - target_kw, (m, limit))))
                 },
                 w_min,

@@ -12,13 +12,11 @@ use crate::cycle::{self, CycleResult, EngineConfig, GasModel, Sizing};
 use crate::fuel::Fuel;
 use crate::thermo::{MAX_TEMPERATURE_K, MIN_TEMPERATURE_K};
 
-/// Relative change of pressure ratio and turbine efficiency at which the
-/// matching iteration stops.
-const MATCH_TOLERANCE: f64 = 1e-12;
-/// After a few iterations the change can stall near 1e-11, the noise floor
-/// of the cycle's own inverse solves (T from h and s to about 1e-12 K/K);
-/// a change this small is then accepted.
-const MATCH_FLOOR: f64 = 1e-10;
+/// The matching stops when the nozzle equation holds and the turbine
+/// efficiency agrees with its loading to this, relative (1e-9 of the
+/// pressure ratio moves the output by about 1e-9 of itself: far below any
+/// physical meaning, and three cycle solves from a cold start).
+const MATCH_TOLERANCE: f64 = 1e-9;
 
 /// A gas turbine fixed at its rating: air flow, turbine flow capacity and
 /// component design points set by the design solve at the rating condition.
@@ -35,7 +33,19 @@ pub struct Machine {
     /// Turbine flow capacity m₃√T₃/p₃ at the first nozzle, kg·K^½/(s·kPa).
     pub(crate) flow_capacity: f64,
     pub(crate) turbine_isentropic_drop_kj_per_kg: f64,
+    /// Mass through the first nozzle per kg of air at the rating.
+    pub(crate) nozzle_mass: f64,
     pub(crate) exhaust_limit_k: f64,
+}
+
+/// What a matched point passes to the next one nearby, to start its
+/// iteration close to the answer.
+#[derive(Debug, Clone, Copy)]
+pub(crate) struct Hint {
+    /// Mass through the first nozzle per kg of air, `1 − c + f`.
+    pub nozzle_mass: f64,
+    /// Turbine efficiency.
+    pub turbine_efficiency: f64,
 }
 
 /// One matched operating state: the cycle at the matched pressure ratio.
@@ -60,6 +70,14 @@ impl Matched {
     /// temperature.
     pub fn turbine_exit_k(&self) -> f64 {
         state(&self.result, "4").map_or(f64::NAN, |s| s.temperature_k)
+    }
+
+    /// This point as the start of a nearby one.
+    pub fn hint(&self, cooling: f64) -> Hint {
+        Hint {
+            nozzle_mass: nozzle_mass_per_kg_air(&self.result, cooling),
+            turbine_efficiency: self.turbine_efficiency,
+        }
     }
 
     /// Compressor delivery temperature (state 2), K.
@@ -153,9 +171,8 @@ impl Machine {
             last_change: f64::NAN,
         })?;
         let t3 = config.turbine_inlet_temperature_k;
-        let flow_capacity =
-            flows.air_flow_kg_per_s * nozzle_mass_per_kg_air(&point, turbine_cooling) * t3.sqrt()
-                / p3;
+        let nozzle_mass = nozzle_mass_per_kg_air(&point, turbine_cooling);
+        let flow_capacity = flows.air_flow_kg_per_s * nozzle_mass * t3.sqrt() / p3;
         let rated_exhaust = state(&point, "4").map_or(f64::NAN, |s| s.temperature_k);
         let exhaust_limit_k = control.exhaust_temperature_limit_k.unwrap_or(rated_exhaust);
         if exhaust_limit_k < rated_exhaust * (1.0 - 1e-12) {
@@ -174,6 +191,7 @@ impl Machine {
             air_flow_kg_per_s: flows.air_flow_kg_per_s,
             flow_capacity,
             turbine_isentropic_drop_kj_per_kg: drop,
+            nozzle_mass,
             exhaust_limit_k,
             design: config,
             turbine_cooling,
@@ -254,12 +272,13 @@ impl Machine {
     /// `m₁ (1 + f) √T₃ / p₃ = (m√T/p)_design`; the fuel–air ratio f and the
     /// turbine efficiency (from its loading) depend on the pressure ratio,
     /// so it is iterated (a contraction: f changes by about 1e-3 of itself
-    /// per 1 % of pressure ratio) until both change by less than 1e-12.
+    /// per 1 % of pressure ratio) until both agree to 1e-9.
     pub(crate) fn matched(
         &self,
         ambient: &Ambient,
         vanes: f64,
         firing_k: f64,
+        hint: Option<Hint>,
     ) -> Result<Matched, cycle::CycleError> {
         let d = &self.design;
         let speed = self.corrected_speed(ambient);
@@ -268,12 +287,20 @@ impl Machine {
             * (ambient.pressure_kpa / self.rating.pressure_kpa)
             * speed;
         let eta_c = d.compressor_efficiency * compressor_efficiency_factor(speed, vanes);
-        let mut eta_t = d.turbine_efficiency;
+        // A nearby matched point, if given, supplies the nozzle mass ratio
+        // and turbine efficiency to start from; else the rated ones.
+        let (nozzle_mass, mut eta_t) = match hint {
+            Some(h) => (h.nozzle_mass, h.turbine_efficiency),
+            None => (self.nozzle_mass, d.turbine_efficiency),
+        };
         // p₃ = r · p_amb · (p₃/(r p_amb))_rated: the losses are fractions.
         let mut ratio = self.design.pressure_ratio
             * (air_flow / self.air_flow_kg_per_s)
             * (firing_k / d.turbine_inlet_temperature_k).sqrt()
-            * (self.rating.pressure_kpa / ambient.pressure_kpa);
+            * (self.rating.pressure_kpa / ambient.pressure_kpa)
+            * (nozzle_mass / self.nozzle_mass);
+        // The last iterate and its nozzle residual, for a secant step.
+        let mut previous: Option<(f64, f64)> = None;
         let mut config = EngineConfig {
             ambient_temperature_k: ambient.temperature_k,
             ambient_pressure_kpa: ambient.pressure_kpa,
@@ -287,23 +314,35 @@ impl Machine {
             relative_humidity: ambient.relative_humidity,
         };
         let mut change = f64::INFINITY;
-        for iteration in 0..60 {
+        for _ in 0..60 {
             config.pressure_ratio = ratio;
             config.turbine_efficiency = eta_t;
             let result = cycle::solve_detailed(&config, &detail, &self.gas, &self.fuel)?;
+
             let (drop, p3) = isentropic_drop(&result).ok_or(cycle::CycleError::NoConvergence {
                 last_change: f64::NAN,
             })?;
             let capacity =
                 air_flow * nozzle_mass_per_kg_air(&result, self.turbine_cooling) * firing_k.sqrt()
                     / p3;
-            let next_ratio = ratio * capacity / self.flow_capacity;
+            let mapped = ratio * capacity / self.flow_capacity;
+            let residual = mapped - ratio;
+            // Secant on the nozzle residual once two iterates exist (the
+            // plain substitution converges linearly, at about 1/200 per
+            // step); the substitution itself otherwise.
+            let next_ratio = match previous {
+                Some((r0, g0)) if residual != g0 && r0 != ratio => {
+                    ratio - residual * (ratio - r0) / (residual - g0)
+                }
+                _ => mapped,
+            };
+            previous = Some((ratio, residual));
             let next_eta = d.turbine_efficiency
                 * turbine_efficiency_factor(drop / self.turbine_isentropic_drop_kj_per_kg);
-            change = ((next_ratio - ratio) / ratio)
+            change = (residual / ratio)
                 .abs()
                 .max(((next_eta - eta_t) / eta_t).abs());
-            if change <= MATCH_TOLERANCE || (iteration >= 8 && change <= MATCH_FLOOR) {
+            if change <= MATCH_TOLERANCE {
                 return Ok(Matched {
                     result,
                     air_flow_kg_per_s: air_flow,

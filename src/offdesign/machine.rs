@@ -162,11 +162,11 @@ impl Machine {
                 source,
             }
         })?;
-        let flows = point.flows.ok_or_else(|| OffDesignError::NoConvergence {
+        let flows = point.flows.ok_or(OffDesignError::NoConvergence {
             what: "sizing",
             last_change: f64::NAN,
         })?;
-        let (drop, p3) = isentropic_drop(&point).ok_or_else(|| OffDesignError::NoConvergence {
+        let (drop, p3) = isentropic_drop(&point).ok_or(OffDesignError::NoConvergence {
             what: "state table",
             last_change: f64::NAN,
         })?;

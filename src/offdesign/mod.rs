@@ -250,7 +250,7 @@ impl Machine {
         self.check_ambient(&ambient)?;
         let fraction = load.0;
         let minimum = self.control.minimum_load;
-        if !(fraction <= 1.0) || !(fraction >= minimum) {
+        if !(minimum..=1.0).contains(&fraction) {
             return Err(OffDesignError::Load {
                 load_percent: fraction * 100.0,
                 minimum_percent: minimum * 100.0,

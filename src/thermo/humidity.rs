@@ -94,7 +94,7 @@ pub fn humid_air(
         )));
     }
     let vapour = relative_humidity * saturation_pressure_kpa(temperature_k)? / pressure_kpa;
-    if !(vapour < 1.0) {
+    if !(0.0..1.0).contains(&vapour) {
         return Err(ThermoError::Composition(format!(
             "water vapour would be {:.1} % of the air at {pressure_kpa} kPa; expected a lower humidity or a higher pressure",
             vapour * 100.0

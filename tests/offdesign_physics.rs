@@ -243,3 +243,43 @@ fn guide_vanes_beat_firing_temperature_at_part_load() {
         );
     }
 }
+
+/// A cooled (15 %) machine rated at 60 % humidity (the ISO 3977-2 rating
+/// condition, from memory) reproduces its design solve at the rating, to
+/// 1e-9, and keeps the rated firing temperature there.
+#[test]
+fn cooled_humid_rating_point_is_the_design_solve() {
+    use brayfin::cycle::{Detail, EngineConfig, GasModel, Sizing};
+    use brayfin::fuel::Fuel;
+    let config = EngineConfig {
+        compressor_efficiency: 0.88,
+        turbine_efficiency: 0.90,
+        inlet_pressure_loss: 0.01,
+        exhaust_pressure_loss: 0.015,
+        combustor_pressure_loss: 0.04,
+        sizing: Some(Sizing::NetOutputKw(250_000.0)),
+        ..EngineConfig::ideal(17.0, 1700.0)
+    };
+    let fuel = Fuel::methane();
+    let detail = Detail {
+        turbine_cooling: 0.15,
+        relative_humidity: 0.6,
+    };
+    let design = cycle::solve_detailed(&config, &detail, &GasModel::Products, &fuel).unwrap();
+    let machine = Machine::calibrate(
+        &config,
+        0.15,
+        Ambient::ISO,
+        guide_vanes(),
+        GasModel::Products,
+        &fuel,
+    )
+    .unwrap();
+    let p = machine.solve(Ambient::ISO, Load::BASE).unwrap();
+    let flows = design.flows.unwrap();
+    assert!((p.net_output_kw / flows.net_output_kw - 1.0).abs() <= 1e-9);
+    assert!((p.thermal_efficiency / design.thermal_efficiency - 1.0).abs() <= 1e-9);
+    assert!((p.air_flow_kg_per_s / flows.air_flow_kg_per_s - 1.0).abs() <= 1e-9);
+    assert!((p.pressure_ratio / 17.0 - 1.0).abs() <= 1e-9);
+    assert_eq!(p.limit, Limit::FiringTemperature);
+}

@@ -149,6 +149,11 @@ impl Machine {
             if (closed_kw - target_kw).abs() <= LOAD_TOLERANCE * target_kw {
                 return Ok((closed, closed_limit));
             }
+            if closed_limit == Limit::ExhaustTemperature {
+                if let Some(m) = self.vane_segment(ambient, &base, &closed, target_kw) {
+                    return Ok((m, Limit::ExhaustTemperature));
+                }
+            }
             let base_kw = base.net_output_kw();
             // First guess: output roughly proportional to air flow.
             let x0 = w_min + (1.0 - w_min) * (target_kw - closed_kw) / (base_kw - closed_kw);
@@ -175,6 +180,88 @@ impl Machine {
         }
         let m = self.at_output_by_firing(ambient, closed, target_kw)?;
         Ok((m, Limit::MinimumAirflow))
+    }
+
+    /// The vane segment solved directly: find the vane setting w and firing
+    /// temperature T3 with output `target_kw` and the exhaust at its limit,
+    /// by Newton's method on the two equations (Jacobian by finite
+    /// differences once, then Broyden updates). Starts from the straight
+    /// line between the closed (`closed`) and open (`base`) ends. `None`
+    /// when it does not converge within its budget or lands on a firing
+    /// temperature above rated (a cold day, where the firing limit binds
+    /// first): the nested search then answers.
+    fn vane_segment(
+        &self,
+        ambient: &Ambient,
+        base: &Matched,
+        closed: &Matched,
+        target_kw: f64,
+    ) -> Option<Matched> {
+        let limit = self.exhaust_limit_k;
+        let rated = self.design.turbine_inlet_temperature_k;
+        let cooling = self.turbine_cooling;
+        let (p0, p1) = (closed.net_output_kw(), base.net_output_kw());
+        let s = (target_kw - p0) / (p1 - p0);
+        let mut x = [
+            closed.vanes + s * (base.vanes - closed.vanes),
+            closed.firing_temperature_k
+                + s * (base.firing_temperature_k - closed.firing_temperature_k),
+        ];
+        let mut hint = Some(base.hint(cooling));
+        let eval = |x: [f64; 2], hint: &mut Option<Hint>| -> Option<([f64; 2], Matched)> {
+            let m = self.matched(ambient, x[0], x[1], *hint).ok()?;
+            *hint = Some(m.hint(cooling));
+            let r = [
+                m.net_output_kw() / target_kw - 1.0,
+                (m.turbine_exit_k() - limit) / limit,
+            ];
+            Some((r, m))
+        };
+        let (mut r, mut m) = eval(x, &mut hint)?;
+        // Jacobian by forward differences.
+        let steps = [1e-5, 1e-5 * x[1]];
+        let mut jac = [[0.0; 2]; 2];
+        for (k, step) in steps.iter().enumerate() {
+            let mut xk = x;
+            xk[k] += step;
+            let (rk, _) = eval(xk, &mut hint)?;
+            for i in 0..2 {
+                jac[i][k] = (rk[i] - r[i]) / step;
+            }
+        }
+        for _ in 0..12 {
+            let converged = r[0].abs() <= LOAD_TOLERANCE
+                && (m.turbine_exit_k() - limit).abs() <= EXHAUST_TOLERANCE_K;
+            if converged {
+                let in_range = m.firing_temperature_k <= rated
+                    && m.vanes >= self.control.minimum_airflow
+                    && m.vanes <= 1.0;
+                return in_range.then_some(m);
+            }
+            let det = jac[0][0] * jac[1][1] - jac[0][1] * jac[1][0];
+            if !(det.is_finite() && det != 0.0) {
+                return None;
+            }
+            let dx = [
+                -(jac[1][1] * r[0] - jac[0][1] * r[1]) / det,
+                -(-jac[1][0] * r[0] + jac[0][0] * r[1]) / det,
+            ];
+            let next = [x[0] + dx[0], x[1] + dx[1]];
+            let (rn, mn) = eval(next, &mut hint)?;
+            // Broyden's update: J += ((Δr − J Δx) Δxᵀ) / (Δxᵀ Δx).
+            let norm = dx[0] * dx[0] + dx[1] * dx[1];
+            if norm > 0.0 {
+                for i in 0..2 {
+                    let predicted = jac[i][0] * dx[0] + jac[i][1] * dx[1];
+                    let miss = (rn[i] - r[i]) - predicted;
+                    for k in 0..2 {
+                        jac[i][k] += miss * dx[k] / norm;
+                    }
+                }
+            }
+            (x, r, m) = (next, rn, mn);
+        }
+        None
     }
 
     /// Firing-temperature control: vanes open, firing temperature lowered

@@ -60,6 +60,20 @@ impl Machine {
         let lo = hot.delivery_k();
         // About 1.3 K of exhaust per K of firing near design (first guess).
         let x0 = rated_firing - over / 1.3;
+        let limit_k = self.exhaust_limit_k;
+        let exhaust = |r: &crate::cycle::CycleResult, _air: f64| {
+            r.states
+                .iter()
+                .find(|s| s.id == "4")
+                .map_or(f64::NAN, |s| s.temperature_k)
+                - limit_k
+        };
+        // The folded search first; its root must lie in the bracket the
+        // nested search would use.
+        let fast = self.matched_to_goal(ambient, &hot, x0, lo, EXHAUST_TOLERANCE_K, exhaust);
+        if let Some(m) = fast.filter(|m| m.firing_temperature_k <= rated_firing) {
+            return Ok((m, Limit::ExhaustTemperature));
+        }
         let cooling = self.turbine_cooling;
         let mut hint = Some(hot.hint(cooling));
         let found = increasing_root(
@@ -107,6 +121,12 @@ impl Machine {
         // no net work, which lies some way above the compressor delivery.
         let zero_guess = lo + 0.45 * (hi_t3 - lo);
         let x0 = zero_guess + (hi_t3 - zero_guess) * target_kw / top_kw;
+        let output =
+            |r: &crate::cycle::CycleResult, air: f64| air * r.electrical_work_kj_per_kg - target_kw;
+        let fast = self.matched_to_goal(ambient, &top, x0, lo, LOAD_TOLERANCE * target_kw, output);
+        if let Some(m) = fast.filter(|m| m.firing_temperature_k <= hi_t3) {
+            return Ok(m);
+        }
         let cooling = self.turbine_cooling;
         let mut hint = Some(top.hint(cooling));
         let found = increasing_root(

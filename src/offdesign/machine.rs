@@ -16,7 +16,7 @@ use crate::thermo::{MAX_TEMPERATURE_K, MIN_TEMPERATURE_K};
 /// efficiency agrees with its loading to this, relative (1e-9 of the
 /// pressure ratio moves the output by about 1e-9 of itself: far below any
 /// physical meaning, and three cycle solves from a cold start).
-const MATCH_TOLERANCE: f64 = 1e-9;
+pub(super) const MATCH_TOLERANCE: f64 = 1e-9;
 
 /// A gas turbine fixed at its rating: air flow, turbine flow capacity and
 /// component design points set by the design solve at the rating condition.
@@ -92,7 +92,7 @@ fn state<'a>(r: &'a CycleResult, id: &str) -> Option<&'a cycle::StatePoint> {
 
 /// The turbine's isentropic enthalpy drop from its rotor inlet (state `3r`
 /// with cooling, else `3`), kJ/kg, and the turbine inlet pressure, kPa.
-fn isentropic_drop(r: &CycleResult) -> Option<(f64, f64)> {
+pub(super) fn isentropic_drop(r: &CycleResult) -> Option<(f64, f64)> {
     let s3 = state(r, "3")?;
     let rotor = state(r, "3r").unwrap_or(s3);
     let s4s = state(r, "4s")?;
@@ -104,7 +104,7 @@ fn isentropic_drop(r: &CycleResult) -> Option<(f64, f64)> {
 
 /// Mass through the first turbine nozzle per kg of compressor air: the
 /// combustor's share of the air plus all the fuel, `1 − c + f`.
-fn nozzle_mass_per_kg_air(r: &CycleResult, cooling: f64) -> f64 {
+pub(super) fn nozzle_mass_per_kg_air(r: &CycleResult, cooling: f64) -> f64 {
     1.0 - cooling + r.fuel_air_ratio.unwrap_or(0.0)
 }
 
@@ -366,93 +366,6 @@ impl Machine {
         Err(cycle::CycleError::NoConvergence {
             last_change: change,
         })
-    }
-}
-
-impl Machine {
-    /// Match at `vanes` while moving the firing temperature until
-    /// `goal(result, air_flow) = 0` (|goal| ≤ `tolerance`), the matching
-    /// iteration folded into the search: each step is one cycle solve that
-    /// updates the pressure ratio (nozzle equation, scaled by √T3 for the
-    /// firing step), the turbine efficiency, and the firing temperature (a
-    /// secant on `goal` anchored at the matched `start`). `None` when it
-    /// does not settle within its budget or steps outside
-    /// (`floor_k`, 2 × rated firing): the nested search then answers.
-    pub(crate) fn matched_to_goal(
-        &self,
-        ambient: &Ambient,
-        start: &Matched,
-        x0: f64,
-        floor_k: f64,
-        tolerance: f64,
-        goal: impl Fn(&CycleResult, f64) -> f64,
-    ) -> Option<Matched> {
-        let d = &self.design;
-        let air_flow = start.air_flow_kg_per_s;
-        let ceiling = 2.0 * d.turbine_inlet_temperature_k;
-        let mut t3 = x0;
-        let mut ratio = start.pressure_ratio * (x0 / start.firing_temperature_k).sqrt();
-        let mut eta_t = start.turbine_efficiency;
-        let mut anchor = (start.firing_temperature_k, goal(&start.result, air_flow));
-        let mut slope = f64::NAN;
-        let mut config = EngineConfig {
-            ambient_temperature_k: ambient.temperature_k,
-            ambient_pressure_kpa: ambient.pressure_kpa,
-            compressor_efficiency: start.compressor_efficiency,
-            sizing: Some(Sizing::AirFlowKgPerS(air_flow)),
-            ..d.clone()
-        };
-        let detail = cycle::Detail {
-            turbine_cooling: self.turbine_cooling,
-            relative_humidity: ambient.relative_humidity,
-        };
-        for _ in 0..30 {
-            if !(t3 > floor_k && t3 < ceiling && ratio.is_finite() && ratio > 1.0) {
-                return None;
-            }
-            config.pressure_ratio = ratio;
-            config.turbine_efficiency = eta_t;
-            config.turbine_inlet_temperature_k = t3;
-            let result = cycle::solve_detailed(&config, &detail, &self.gas, &self.fuel).ok()?;
-            let (drop, p3) = isentropic_drop(&result)?;
-            let capacity =
-                air_flow * nozzle_mass_per_kg_air(&result, self.turbine_cooling) * t3.sqrt() / p3;
-            let mapped = ratio * capacity / self.flow_capacity;
-            let next_eta = d.turbine_efficiency
-                * turbine_efficiency_factor(drop / self.turbine_isentropic_drop_kj_per_kg);
-            let change = ((mapped - ratio) / ratio)
-                .abs()
-                .max(((next_eta - eta_t) / eta_t).abs());
-            let g = goal(&result, air_flow);
-            if change <= MATCH_TOLERANCE && g.abs() <= tolerance {
-                return Some(Matched {
-                    result,
-                    air_flow_kg_per_s: air_flow,
-                    pressure_ratio: ratio,
-                    vanes: start.vanes,
-                    firing_temperature_k: t3,
-                    compressor_efficiency: start.compressor_efficiency,
-                    turbine_efficiency: eta_t,
-                });
-            }
-            // The slope of the goal in firing temperature, refreshed only
-            // over steps long enough that the pressure ratio's own
-            // convergence does not swamp it.
-            let (t0, g0) = anchor;
-            if (t3 - t0).abs() > 1e-3 && g != g0 {
-                slope = (g - g0) / (t3 - t0);
-                anchor = (t3, g);
-            }
-            let next_t3 = if g.abs() > tolerance && slope.is_finite() && slope != 0.0 {
-                t3 - g / slope
-            } else {
-                t3
-            };
-            ratio = mapped * (next_t3 / t3).sqrt();
-            eta_t = next_eta;
-            t3 = next_t3;
-        }
-        None
     }
 }
 

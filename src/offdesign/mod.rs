@@ -45,6 +45,7 @@
 pub mod characteristic;
 mod control;
 mod error;
+mod folded;
 mod machine;
 mod roots;
 

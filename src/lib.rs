@@ -12,6 +12,7 @@ pub mod cycle;
 pub mod error;
 pub mod finance;
 pub mod fuel;
+pub mod offdesign;
 pub mod report;
 pub mod scenario;
 pub mod thermo;

@@ -140,7 +140,7 @@ proptest! {
         prop_assume!(cfg.validate().is_ok());
         let eta_b = cfg.combustion_efficiency;
         let fast = cold::run(&cfg, &air, eta_b);
-        let slow = solver::run(&cfg, &AirStandard::new(air, eta_b));
+        let slow = solver::run(&cfg, &AirStandard::new(air, eta_b), 0.0);
         match (fast, slow) {
             (Some(fast), Ok(slow)) => agree(&fast, &slow, air.constant_cp_kj_per_kg_k())?,
             (None, Err(_)) => {}

@@ -181,6 +181,16 @@ pub(crate) trait Combustion {
     fn efficiency(&self) -> f64;
     /// Compressor air.
     fn air(&self) -> &Self::Gas;
+    /// The gas of `stream` (per kg of the air it was burned in) diluted
+    /// with unburned air so that the burned air is the fraction `share` of
+    /// the total: the stream per kg of all the air. Complete lean
+    /// combustion products plus air are the products of the same fuel in
+    /// all of the air.
+    fn diluted(
+        &self,
+        stream: &Stream<Self::Gas>,
+        share: f64,
+    ) -> Result<Stream<Self::Gas>, CycleError>;
     /// Heat `stream` (enthalpy `h_in` per kg of its gas) to `t_out_k`.
     /// `field` names the input that set `t_out_k`, for errors.
     fn burn(
@@ -216,6 +226,11 @@ impl<G: GasProperties + Clone> Combustion for AirStandard<G> {
 
     fn air(&self) -> &G {
         &self.air
+    }
+
+    fn diluted(&self, stream: &Stream<G>, _share: f64) -> Result<Stream<G>, CycleError> {
+        // Air-standard gas is air throughout and carries no fuel mass.
+        Ok(stream.clone())
     }
 
     // Inlined into the hot section, where the copy of the stream's gas
@@ -264,14 +279,30 @@ pub(crate) struct Products {
 impl Products {
     /// Products model for `fuel` (must be modelled) burning in dry air.
     pub fn new(air: Mixture, fuel: &Fuel, efficiency: f64) -> Result<Products, CycleError> {
-        let stoichiometry = fuel.stoichiometry().ok_or(CycleError::FuelNotModelled)?;
         let species = [&N2, &O2, &AR, &CO2, &H2O];
-        let mut air_kmol_per_kg = [0.0; 5];
-        for (slot, s) in air_kmol_per_kg.iter_mut().zip(species) {
+        let mut fractions = [0.0; 5];
+        for (slot, s) in fractions.iter_mut().zip(species) {
             *slot = DRY_AIR
                 .iter()
                 .find(|(a, _)| a.name == s.name)
-                .map_or(0.0, |(_, x)| x / air.molar_mass_kg_per_kmol());
+                .map_or(0.0, |(_, x)| *x);
+        }
+        Products::in_air(air, fractions, fuel, efficiency)
+    }
+
+    /// Products model for `fuel` burning in `air` whose mole fractions of
+    /// N2, O2, Ar, CO2, H2O are `fractions` (humid air carries H2O).
+    pub fn in_air(
+        air: Mixture,
+        fractions: [f64; 5],
+        fuel: &Fuel,
+        efficiency: f64,
+    ) -> Result<Products, CycleError> {
+        let stoichiometry = fuel.stoichiometry().ok_or(CycleError::FuelNotModelled)?;
+        let species = [&N2, &O2, &AR, &CO2, &H2O];
+        let mut air_kmol_per_kg = [0.0; 5];
+        for (slot, x) in air_kmol_per_kg.iter_mut().zip(fractions) {
+            *slot = x / air.molar_mass_kg_per_kmol();
         }
         let delta = stoichiometry.products_kmol_per_kg;
         let mut delta_enthalpy = Nasa7::zero(1000.0);
@@ -319,6 +350,21 @@ impl Combustion for Products {
 
     fn air(&self) -> &Mixture {
         &self.air
+    }
+
+    fn diluted(&self, stream: &Stream<Mixture>, share: f64) -> Result<Stream<Mixture>, CycleError> {
+        let fuel = share * stream.fuel_per_kg_air;
+        let gas = self.gas(fuel).map_err(|e| {
+            CycleError::invalid(
+                "turbine_cooling",
+                e.to_string(),
+                "expected a smaller fraction",
+            )
+        })?;
+        Ok(Stream {
+            gas,
+            fuel_per_kg_air: fuel,
+        })
     }
 
     fn burn(

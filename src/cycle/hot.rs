@@ -31,14 +31,20 @@ pub(crate) struct HotSection<'a, C> {
     pub reheat: Option<ReheatSplit>,
     pub efficiency: f64,
     pub basis: EfficiencyBasis,
+    /// Turbine cooling: fraction of the combustor-inlet air that bypasses
+    /// the combustor and mixes with its gas ahead of the rotor, [0, 1).
+    pub cooling: f64,
 }
 
 /// The hot section solved for one combustor inlet enthalpy.
 pub(crate) struct Hot<G> {
-    /// Main combustor exit.
+    /// Main combustor exit (per kg of the air it burns).
     pub burn: Burn<G>,
     /// State 3.
     pub turbine_inlet: Point,
+    /// With turbine cooling: the gas after the coolant has mixed in (per
+    /// kg of compressor inlet air) and the rotor inlet, state 3r.
+    pub cooled: Option<(Stream<G>, Point)>,
     /// High-pressure turbine end, reheat combustor exit and state 3b.
     pub reheat: Option<(StageEnd, Burn<G>, Point)>,
     /// Last turbine's end (states 4s, 4).
@@ -52,9 +58,18 @@ pub(crate) struct Hot<G> {
 impl<G> Hot<G> {
     /// The gas leaving the last turbine.
     pub fn exit_stream(&self) -> &Stream<G> {
-        match &self.reheat {
-            Some((_, burn, _)) => &burn.stream,
-            None => &self.burn.stream,
+        match (&self.reheat, &self.cooled) {
+            (Some((_, burn, _)), _) => &burn.stream,
+            (None, Some((stream, _))) => stream,
+            (None, None) => &self.burn.stream,
+        }
+    }
+
+    /// The gas entering the first rotor and its state.
+    fn rotor(&self) -> (&Stream<G>, Point) {
+        match &self.cooled {
+            Some((stream, point)) => (stream, *point),
+            None => (&self.burn.stream, self.turbine_inlet),
         }
     }
 }
@@ -79,6 +94,9 @@ impl<C: Combustion> HotSection<'_, C> {
             h: burn.h_out,
             s0: gas.standard_entropy_kj_per_kg_k(self.t3_k),
         };
+        if self.cooling > 0.0 {
+            return self.run_cooled(h_in, burn, turbine_inlet, previous);
+        }
         let m1 = burn.stream.mass_per_kg_air();
         let (eta, basis) = (self.efficiency, self.basis);
         match self.reheat {
@@ -91,6 +109,7 @@ impl<C: Combustion> HotSection<'_, C> {
                     fuel_energy: burn.fuel_energy_kj_per_kg_air,
                     burn,
                     turbine_inlet,
+                    cooled: None,
                     reheat: None,
                     last,
                 })
@@ -128,11 +147,120 @@ impl<C: Combustion> HotSection<'_, C> {
                     fuel_energy: burn.fuel_energy_kj_per_kg_air + second.fuel_energy_kj_per_kg_air,
                     burn,
                     turbine_inlet,
+                    cooled: None,
                     reheat: Some((hp, second, reheated)),
                     last,
                 })
             }
         }
+    }
+
+    /// The hot section with turbine cooling: the combustor burns the
+    /// fraction `1 − c` of the air entering it to state 3 (the firing
+    /// temperature); the rest, at the combustor inlet enthalpy `h_in`, mixes
+    /// adiabatically at constant pressure with the combustor gas ahead of
+    /// the rotor. Per kg of compressor inlet air the mixed gas holds the
+    /// fuel `(1 − c) f_c` and has the enthalpy
+    /// `h_3r = ((1 − c)(1 + f_c) h_3 + c h_in) / (1 + (1 − c) f_c)`; the
+    /// rotor inlet temperature T_3r follows from it on the mixed gas, and
+    /// the expansion starts there.
+    fn run_cooled(
+        &self,
+        h_in: f64,
+        burn: Burn<C::Gas>,
+        turbine_inlet: Point,
+        previous: Option<&Hot<C::Gas>>,
+    ) -> Result<Hot<C::Gas>, CycleError> {
+        let c = self.combustion;
+        let share = 1.0 - self.cooling;
+        let mixed = c.diluted(&burn.stream, share)?;
+        let m_mix = mixed.mass_per_kg_air();
+        let h_mix =
+            (share * burn.stream.mass_per_kg_air() * burn.h_out + self.cooling * h_in) / m_mix;
+        let guess = previous
+            .and_then(|p| p.cooled.as_ref().map(|(_, point)| point.t_k))
+            .unwrap_or(self.t3_k);
+        let t_mix = mixed
+            .gas
+            .temperature_from_enthalpy(h_mix, guess)
+            .map_err(data_range("turbine_cooling", "3r"))?;
+        let rotor = Point {
+            t_k: t_mix,
+            h: h_mix,
+            s0: mixed.gas.standard_entropy_kj_per_kg_k(t_mix),
+        };
+        let mut burn = burn;
+        burn.fuel_energy_kj_per_kg_air *= share;
+        let mut hot = Hot {
+            turbine_work: 0.0,
+            fuel_energy: burn.fuel_energy_kj_per_kg_air,
+            burn,
+            turbine_inlet,
+            cooled: Some((mixed, rotor)),
+            reheat: None,
+            last: StageEnd {
+                ideal: rotor,
+                actual: rotor,
+            },
+        };
+        self.expand_from_rotor(&mut hot, previous)?;
+        Ok(hot)
+    }
+
+    /// Expand from the rotor inlet of `hot` (through the reheat combustor,
+    /// if any), filling its turbine stages, work and fuel energy.
+    fn expand_from_rotor(
+        &self,
+        hot: &mut Hot<C::Gas>,
+        previous: Option<&Hot<C::Gas>>,
+    ) -> Result<(), CycleError> {
+        let c = self.combustion;
+        let (eta, basis) = (self.efficiency, self.basis);
+        let (stream, rotor) = hot.rotor();
+        let stream = stream.clone();
+        let m1 = stream.mass_per_kg_air();
+        match self.reheat {
+            None => {
+                let seed = previous.map(|p| &p.last);
+                let last = expand(&stream.gas, rotor, self.ln_turbine_ratio, eta, basis, seed)
+                    .map_err(data_range("turbine_inlet_temperature_k", "4"))?;
+                hot.turbine_work = m1 * (rotor.h - last.actual.h);
+                hot.last = last;
+            }
+            Some(split) => {
+                let seed = previous.and_then(|p| p.reheat.as_ref().map(|r| &r.0));
+                let hp = expand(&stream.gas, rotor, split.ln_hp, eta, basis, seed)
+                    .map_err(data_range("reheat.pressure_split", "3a"))?;
+                let t3a = hp.actual.t_k;
+                if !greater(split.t_k, t3a) {
+                    return Err(CycleError::invalid(
+                        "reheat.temperature_k",
+                        format!(
+                            "{} K is not above the high-pressure turbine exit {t3a:.2} K",
+                            split.t_k
+                        ),
+                        format!("expected a reheat temperature above {t3a:.2} K"),
+                    ));
+                }
+                let second = c.burn(&stream, hp.actual.h, split.t_k, "reheat.temperature_k")?;
+                let gas2 = &second.stream.gas;
+                let reheated = Point {
+                    t_k: split.t_k,
+                    h: second.h_out,
+                    s0: gas2.standard_entropy_kj_per_kg_k(split.t_k),
+                };
+                let seed = previous.map(|p| &p.last);
+                let last = expand(gas2, reheated, split.ln_lp, eta, basis, seed)
+                    .map_err(data_range("reheat.temperature_k", "4"))?;
+                let m2 = second.stream.mass_per_kg_air();
+                hot.turbine_work =
+                    m1 * (rotor.h - hp.actual.h) + m2 * (second.h_out - last.actual.h);
+                hot.fuel_energy += second.fuel_energy_kj_per_kg_air;
+                hot.reheat = Some((hp, second, reheated));
+                hot.last = last;
+            }
+        }
+        Ok(())
     }
 
     /// Move `hot` to another combustor inlet enthalpy `h_in`, when the gas
@@ -161,8 +289,13 @@ impl<C: Combustion> HotSection<'_, C> {
         p4: Pressure,
         reheat_loss: f64,
     ) {
-        let r1 = hot.burn.stream.gas.gas_constant_kj_per_kg_k();
-        table.push("3", "turbine inlet", hot.turbine_inlet, p3, r1);
+        let r_burn = hot.burn.stream.gas.gas_constant_kj_per_kg_k();
+        table.push("3", "turbine inlet", hot.turbine_inlet, p3, r_burn);
+        let (rotor_stream, _) = hot.rotor();
+        let r1 = rotor_stream.gas.gas_constant_kj_per_kg_k();
+        if let Some((_, rotor)) = &hot.cooled {
+            table.push("3r", "rotor inlet (after coolant mixing)", *rotor, p3, r1);
+        }
         let mut r_last = r1;
         if let (Some((hp, second, reheated)), Some(split)) = (&hot.reheat, self.reheat) {
             let p3a = p3.times(1.0 / split.r_hp, -split.ln_hp);

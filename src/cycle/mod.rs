@@ -14,6 +14,7 @@
 //! | `2`   | compressor exit                                  | always        |
 //! | `5`   | regenerator air exit (combustor inlet)           | regenerator   |
 //! | `3`   | turbine inlet (combustor exit)                   | always        |
+//! | `3r`  | rotor inlet, after the coolant has mixed in      | turbine cooling |
 //! | `3as` | high-pressure turbine exit, isentropic           | reheat        |
 //! | `3a`  | high-pressure turbine exit                       | reheat        |
 //! | `3b`  | reheat combustor exit                            | reheat        |
@@ -61,6 +62,8 @@ mod cold_tests;
 mod components;
 mod compression;
 mod config;
+#[cfg(test)]
+mod detail_tests;
 mod error;
 mod hot;
 mod solver;
@@ -73,6 +76,7 @@ pub use error::CycleError;
 
 use crate::fuel::Fuel;
 use crate::thermo::cold_air::{ColdAir, DEFAULT_CP_KJ_PER_KG_K, DEFAULT_K};
+use crate::thermo::humidity::humid_air;
 use crate::thermo::mixture::Mixture;
 use crate::units::KJ_PER_BTU;
 use components::{greater, AirStandard, Combustion, Products};
@@ -205,7 +209,56 @@ fn dry_air() -> &'static Mixture {
     AIR.get_or_init(Mixture::dry_air)
 }
 
-/// Solve `config` with gas model `gas` burning `fuel`.
+/// Refinements of the gas path that [`solve_detailed`] takes beside an
+/// [`EngineConfig`]: turbine cooling and ambient humidity. Both default to
+/// 0, which gives exactly (bit for bit) the result of [`solve`].
+#[derive(Debug, Clone, Copy, PartialEq, Default, Serialize)]
+pub struct Detail {
+    /// Fraction of the air entering the combustor that bypasses it and
+    /// mixes with the combustor gas ahead of the turbine rotor, [0, 1).
+    /// The coolant leaves at the combustor inlet state (compressor
+    /// delivery, or the regenerator air exit where there is one); mixing is
+    /// adiabatic at the combustor-exit pressure; the firing temperature
+    /// (`turbine_inlet_temperature_k`) is the combustor exit and the rotor
+    /// inlet temperature (state `3r`) follows from the mixed enthalpy.
+    pub turbine_cooling: f64,
+    /// Ambient relative humidity, 0 to 1: water vapour in the compressor
+    /// air, and so in the products ([`crate::thermo::humidity`]). Needs the
+    /// `air` or `products` gas model.
+    pub relative_humidity: f64,
+}
+
+impl Detail {
+    /// No cooling, dry air.
+    pub const NONE: Detail = Detail {
+        turbine_cooling: 0.0,
+        relative_humidity: 0.0,
+    };
+
+    /// Range checks, each naming its field.
+    pub fn validate(&self) -> Result<(), CycleError> {
+        let c = self.turbine_cooling;
+        if !(0.0..1.0).contains(&c) {
+            return Err(CycleError::invalid(
+                "turbine_cooling",
+                format!("{c} is outside [0, 1)"),
+                "expected a fraction of the combustor air ≥ 0 and < 1",
+            ));
+        }
+        let rh = self.relative_humidity;
+        if !(0.0..=1.0).contains(&rh) {
+            return Err(CycleError::invalid(
+                "relative_humidity",
+                format!("{rh} is outside 0 to 1 (above 1 is above saturation)"),
+                "expected a relative humidity from 0 to 1",
+            ));
+        }
+        Ok(())
+    }
+}
+
+/// Solve `config` with gas model `gas` burning `fuel`, dry air and no
+/// turbine cooling.
 ///
 /// Errors: an input out of range or an impossible combination (each naming
 /// its field), a fuel without composition for `products`, no net work, or
@@ -215,37 +268,89 @@ pub fn solve(
     gas: &GasModel,
     fuel: &Fuel,
 ) -> Result<CycleResult, CycleError> {
+    solve_detailed(config, &Detail::NONE, gas, fuel)
+}
+
+/// Solve `config` with the refinements `detail` (turbine cooling, humid
+/// air); as [`solve`] otherwise, and identical to it when `detail` is
+/// [`Detail::NONE`].
+///
+/// Errors: those of [`solve`]; a detail out of range; humidity with the
+/// cold-air model; humid air whose vapour would exceed the ambient pressure
+/// or at a temperature outside the saturation data (field
+/// `relative_humidity`).
+pub fn solve_detailed(
+    config: &EngineConfig,
+    detail: &Detail,
+    gas: &GasModel,
+    fuel: &Fuel,
+) -> Result<CycleResult, CycleError> {
     config.validate()?;
+    detail.validate()?;
     let eta_b = config.combustion_efficiency;
+    let cooling = detail.turbine_cooling;
+    let humid = if detail.relative_humidity > 0.0 {
+        if let GasModel::ColdAir { .. } = gas {
+            return Err(CycleError::invalid(
+                "relative_humidity",
+                "the cold-air model has fixed properties and carries no water vapour",
+                "use the air or products gas model, or a relative humidity of 0",
+            ));
+        }
+        Some(
+            humid_air(
+                config.ambient_temperature_k,
+                config.ambient_pressure_kpa,
+                detail.relative_humidity,
+            )
+            .map_err(|e| {
+                CycleError::invalid(
+                    "relative_humidity",
+                    e.to_string(),
+                    "expected a humidity the ambient can hold",
+                )
+            })?,
+        )
+    } else {
+        None
+    };
     match *gas {
         GasModel::ColdAir { cp_kj_per_kg_k, k } => {
             let air = ColdAir::new(cp_kj_per_kg_k, k)?;
-            match cold::run(config, &air, eta_b) {
+            let fast = if cooling == 0.0 {
+                cold::run(config, &air, eta_b)
+            } else {
+                None
+            };
+            match fast {
                 Some(solved) => finish(config, gas, fuel, solved, false),
-                None => solve_with(config, gas, fuel, &AirStandard::new(air, eta_b)),
+                None => solve_with(config, gas, fuel, &AirStandard::new(air, eta_b), cooling),
             }
         }
-        GasModel::Air => solve_with(
-            config,
-            gas,
-            fuel,
-            &AirStandard::new(dry_air().clone(), eta_b),
-        ),
+        GasModel::Air => {
+            let air = humid.map_or_else(|| dry_air().clone(), |(mix, _)| mix);
+            solve_with(config, gas, fuel, &AirStandard::new(air, eta_b), cooling)
+        }
         GasModel::Products => {
-            let model = Products::new(dry_air().clone(), fuel, eta_b)?;
-            solve_with(config, gas, fuel, &model)
+            let model = match humid {
+                None => Products::new(dry_air().clone(), fuel, eta_b)?,
+                Some((mix, fractions)) => Products::in_air(mix, fractions, fuel, eta_b)?,
+            };
+            solve_with(config, gas, fuel, &model, cooling)
         }
     }
 }
 
-/// Solve with the generic solver and combustor model `model`.
+/// Solve with the generic solver, combustor model `model` and turbine
+/// cooling fraction `cooling`.
 fn solve_with<C: Combustion>(
     config: &EngineConfig,
     gas: &GasModel,
     fuel: &Fuel,
     model: &C,
+    cooling: f64,
 ) -> Result<CycleResult, CycleError> {
-    let solved = solver::run(config, model)?;
+    let solved = solver::run(config, model, cooling)?;
     finish(config, gas, fuel, solved, C::COMPOSITION_FOLLOWS_FUEL)
 }
 

@@ -35,8 +35,13 @@ pub(crate) struct Solved {
     pub fuel_per_kg_air: f64,
 }
 
-/// Solve the cycle of `cfg` (already validated) with combustor model `c`.
-pub(crate) fn run<C: Combustion>(cfg: &EngineConfig, c: &C) -> Result<Solved, CycleError> {
+/// Solve the cycle of `cfg` (already validated) with combustor model `c`
+/// and the turbine-cooling fraction `cooling` (0: none).
+pub(crate) fn run<C: Combustion>(
+    cfg: &EngineConfig,
+    c: &C,
+    cooling: f64,
+) -> Result<Solved, CycleError> {
     let air = c.air();
     let r_air = air.gas_constant_kj_per_kg_k();
     let t3 = cfg.turbine_inlet_temperature_k;
@@ -89,6 +94,7 @@ pub(crate) fn run<C: Combustion>(cfg: &EngineConfig, c: &C) -> Result<Solved, Cy
         reheat: reheat_split(cfg, ln_turbine_ratio)?,
         efficiency: cfg.turbine_efficiency,
         basis: cfg.efficiency_basis,
+        cooling,
     };
 
     // The hot section with the compressor delivery entering the combustor;
@@ -224,9 +230,10 @@ fn regenerate<C: Combustion>(
         Ok(rg.effectiveness * air_side.min(gas_side))
     };
     let q0 = heat_passed(hot)?;
-    if !C::COMPOSITION_FOLLOWS_FUEL {
-        // The turbine gas does not depend on the fuel: q is final, and only
-        // the combustor's fuel energy changes.
+    if !C::COMPOSITION_FOLLOWS_FUEL && section.cooling == 0.0 {
+        // The turbine gas does not depend on the fuel (and, uncooled, the
+        // rotor inlet not on h5): q is final, and only the combustor's fuel
+        // energy changes.
         let h5 = h2 + q0;
         section.rebase(hot, h5)?;
         return Ok(h5);

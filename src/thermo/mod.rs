@@ -13,6 +13,7 @@
 //! entropies include the entropy of mixing and refer to 101.325 kPa.
 
 pub mod cold_air;
+pub mod humidity;
 pub mod mixture;
 pub mod nasa7;
 pub mod species;

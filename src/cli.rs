@@ -175,8 +175,9 @@ pub struct ReportArgs {
     /// Paper size.
     #[arg(long, value_enum, default_value = "a4")]
     pub paper: Paper,
-    /// Monte Carlo samples for the risk section (0 leaves it out).
-    #[arg(long, default_value_t = 2000)]
+    /// Monte Carlo samples for the risk section (0 leaves it out); the same
+    /// default as `brayfin risk`, so both print the same figures.
+    #[arg(long, default_value_t = crate::analysis::risk::DEFAULT_SAMPLES)]
     pub samples: usize,
     /// Random seed of the risk section.
     #[arg(long, default_value_t = 1)]
@@ -213,8 +214,8 @@ pub struct SweepArgs {
 pub struct RiskArgs {
     /// Scenario file (TOML).
     pub scenario: PathBuf,
-    /// Number of Monte Carlo samples.
-    #[arg(long, default_value_t = 10_000)]
+    /// Number of Monte Carlo samples (the same default as `brayfin report`).
+    #[arg(long, default_value_t = crate::analysis::risk::DEFAULT_SAMPLES)]
     pub samples: usize,
     /// Random seed; the same seed gives identical results on any thread count.
     #[arg(long, default_value_t = 1)]

@@ -12,12 +12,14 @@
 //!   [`MAX_DRAWS_PER_SAMPLE`] times. Every sample counted is valid; the
 //!   results are those of the distributions conditional on a valid
 //!   scenario, and the number of redraws is reported.
+//! - Before any draw, the file's own point goes through `compare`'s decimal
+//!   study, so `risk` refuses every file `compare` refuses, the same way.
 //! - Memory: two `f64` per sample and non-baseline candidate, nothing more
 //!   per sample (no ledger is kept).
 
 pub mod statistics;
 
-use super::compare::study_fuel;
+use super::compare::{run_study, study_fuel};
 use super::point::{Figures, PointModel};
 use super::sampling::{Sampler, Streams};
 use crate::finance::{round_for_presentation, DEFAULT_MINOR_UNIT_DECIMALS};
@@ -35,6 +37,11 @@ use statistics::{histogram, statistics, Bins, Statistics};
 /// three-candidate demo, about 480 MB at this maximum.
 pub const MAX_SAMPLES: usize = 10_000_000;
 
+/// Samples drawn when none is asked for, by `risk` and by `report`'s risk
+/// section alike, so the same scenario prints the same figures in both
+/// (both also print the count behind them).
+pub const DEFAULT_SAMPLES: usize = 10_000;
+
 /// Draws tried for one sample before the run is refused.
 pub const MAX_DRAWS_PER_SAMPLE: u32 = 100;
 
@@ -48,6 +55,9 @@ pub struct Draws {
     pub keys: Vec<String>,
     /// One sampler per key.
     pub samplers: Vec<Sampler>,
+    /// Per key, the 0-based index of its entry in the scenario's
+    /// `[[uncertainty]]` list (for locating an error at the entry).
+    pub entries: Vec<usize>,
 }
 
 /// The distributions of `loaded`'s `[[uncertainty]]` entries; an input
@@ -57,6 +67,7 @@ pub fn draws_of(loaded: &LoadedScenario) -> crate::Result<Draws> {
     let mut draws = Draws {
         keys: Vec::new(),
         samplers: Vec::new(),
+        entries: Vec::new(),
     };
     for (i, input) in loaded.scenario.uncertainty.iter().enumerate() {
         let Some(distribution) = input.distribution else {
@@ -70,6 +81,7 @@ pub fn draws_of(loaded: &LoadedScenario) -> crate::Result<Draws> {
         })?;
         draws.keys.push(input.key.clone());
         draws.samplers.push(sampler);
+        draws.entries.push(i);
     }
     if draws.keys.is_empty() {
         return Err(loaded.error_at(
@@ -124,9 +136,11 @@ struct Tally {
     first_reason: Option<(usize, String)>,
     /// (sample, reason) of the lowest sample with no valid draw.
     failed: Option<(usize, String)>,
+    /// The first refused draw of that sample (one value per key).
+    failed_draw: Option<(usize, Vec<f64>)>,
 }
 
-fn lowest(a: Option<(usize, String)>, b: Option<(usize, String)>) -> Option<(usize, String)> {
+fn lowest<T>(a: Option<(usize, T)>, b: Option<(usize, T)>) -> Option<(usize, T)> {
     match (a, b) {
         (Some(x), Some(y)) => Some(if y.0 < x.0 { y } else { x }),
         (x, y) => x.or(y),
@@ -139,6 +153,7 @@ impl Tally {
             redraws: self.redraws + other.redraws,
             first_reason: lowest(self.first_reason, other.first_reason),
             failed: lowest(self.failed, other.failed),
+            failed_draw: lowest(self.failed_draw, other.failed_draw),
         }
     }
 }
@@ -158,6 +173,10 @@ pub fn run_risk(
         )));
     }
     let scenario = &loaded.scenario;
+    // The file's own point first, through `compare`'s decimal study:
+    // whatever `compare` refuses (e.g. money past the decimal limit), `risk`
+    // refuses with the same message before drawing anything.
+    run_study(loaded)?;
     let draws = draws_of(loaded)?;
     let fuel = study_fuel(loaded)?;
     let baseline = scenario
@@ -199,6 +218,7 @@ pub fn run_risk(
                     let index = first + j;
                     let mut stream = streams.sample(index as u64);
                     let mut tally = Tally::default();
+                    let mut first_draw: Option<Vec<f64>> = None;
                     for _ in 0..MAX_DRAWS_PER_SAMPLE {
                         for (value, sampler) in drawn.iter_mut().zip(&draws.samplers) {
                             *value = sampler.quantile(stream.next_unit());
@@ -213,11 +233,13 @@ pub fn run_risk(
                                 tally.redraws += 1;
                                 if tally.first_reason.is_none() {
                                     tally.first_reason = Some((index, reason));
+                                    first_draw = Some(drawn.clone());
                                 }
                             }
                         }
                     }
                     tally.failed = tally.first_reason.clone();
+                    tally.failed_draw = first_draw.map(|d| (index, d));
                     tally
                 },
             )
@@ -227,12 +249,28 @@ pub fn run_risk(
         progress(done.min(samples), samples);
     }
     if let Some((index, reason)) = tally.failed {
-        return Err(Error::Input(format!(
-            "{}: sample {index}: no valid draw in {MAX_DRAWS_PER_SAMPLE} tries (first refusal: \
-             {reason}); narrow or truncate the [[uncertainty]] distributions so that the values \
-             they give are valid",
-            loaded.file_label
-        )));
+        let drawn = tally.failed_draw.map(|(_, d)| d).unwrap_or_default();
+        let culprit = culprit_of(&model, &draws, scenario, &drawn);
+        let message = format!(
+            "sample {index}: no valid draw in {MAX_DRAWS_PER_SAMPLE} tries (first refusal: \
+             {reason}); narrow or truncate {} so that the values it gives are valid",
+            match culprit {
+                Culprit::Alone(_) => "this entry's distribution",
+                Culprit::Together =>
+                    "the [[uncertainty]] distributions (no entry alone is refused; \
+                     this is the first one drawn)",
+            },
+        );
+        let k = match culprit {
+            Culprit::Alone(k) => k,
+            Culprit::Together => 0,
+        };
+        let entry = draws.entries.get(k).copied().unwrap_or(0);
+        let key = draws.keys.get(k).map(String::as_str).unwrap_or("");
+        return Err(loaded.error_at(
+            &format!("uncertainty[{}].key", entry + 1),
+            &format!("`{key}`: {message}"),
+        ));
     }
     let candidates = others
         .iter()
@@ -249,6 +287,43 @@ pub fn run_risk(
         first_redraw_reason: tally.first_reason.map(|(_, reason)| reason),
         candidates,
     })
+}
+
+/// Which `[[uncertainty]]` draw made a sample unsolvable.
+#[derive(Debug, Clone, Copy, PartialEq)]
+enum Culprit {
+    /// Draw `k` (index into the keys) alone, the others at their file values.
+    Alone(usize),
+    /// No draw alone: only their combination.
+    Together,
+}
+
+/// The first key whose drawn value alone (every other key at the file's
+/// value) the scenario or a solve refuses; `Together` when none does.
+fn culprit_of(
+    model: &PointModel,
+    draws: &Draws,
+    scenario: &crate::scenario::Scenario,
+    drawn: &[f64],
+) -> Culprit {
+    let nominal: Option<Vec<f64>> = draws
+        .keys
+        .iter()
+        .map(|key| scenario.get_numeric(key).ok())
+        .collect();
+    let Some(nominal) = nominal else {
+        return Culprit::Together;
+    };
+    let mut ws = model.workspace();
+    let mut figures = vec![Figures::default(); scenario.candidates.len()];
+    for (k, &value) in drawn.iter().enumerate() {
+        let mut point = nominal.clone();
+        point[k] = value;
+        if model.evaluate(&mut ws, &point, &mut figures).is_err() {
+            return Culprit::Alone(k);
+        }
+    }
+    Culprit::Together
 }
 
 /// Copy each other candidate's figures into `out`; a missing break-even

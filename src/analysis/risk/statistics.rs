@@ -30,6 +30,11 @@ pub struct Bins {
 /// About this many bins; round widths make it between about 8 and 21.
 pub const TARGET_BINS: f64 = 20.0;
 
+/// Most bins a histogram may have, whatever the values: the bin count is
+/// never sized from the data alone (a spread near the limits of `f64`
+/// would otherwise ask for billions of bins).
+pub const MAX_BINS: usize = 64;
+
 /// Smallest bin width: one minor currency unit (cent).
 const MIN_BIN_WIDTH: f64 = 0.01;
 
@@ -76,22 +81,44 @@ fn round_width(raw: f64) -> f64 {
         .unwrap_or(10.0 * magnitude)
 }
 
-/// Histogram of sorted, finite `values` with about [`TARGET_BINS`] bins of
-/// a round width, the first edge a whole multiple of the width at or below
-/// the smallest value. Equal values give one bin of the smallest width.
-/// Empty for no values.
+/// Histogram of sorted `values` with about [`TARGET_BINS`] bins of a round
+/// width, the first edge a whole multiple of the width at or below the
+/// smallest value. Equal values give one bin of the smallest width. At most
+/// [`MAX_BINS`] bins: where rounding of very large values would ask for
+/// more, the width grows tenfold until they fit. Empty for no values or any
+/// value that is not finite.
 pub fn histogram(sorted: &[f64]) -> Bins {
-    let (Some(&min), Some(&max)) = (sorted.first(), sorted.last()) else {
-        return Bins {
-            low: 0.0,
-            bin_width: MIN_BIN_WIDTH,
-            counts: Vec::new(),
-        };
+    let empty = Bins {
+        low: 0.0,
+        bin_width: MIN_BIN_WIDTH,
+        counts: Vec::new(),
     };
-    let width = round_width((max - min) / TARGET_BINS);
+    let (Some(&min), Some(&max)) = (sorted.first(), sorted.last()) else {
+        return empty;
+    };
+    if !min.is_finite() || !max.is_finite() || sorted.iter().any(|x| !x.is_finite()) {
+        return empty;
+    }
+    let mut width = round_width((max - min) / TARGET_BINS);
     // Edges are whole multiples of the width: exact in cents once rounded.
-    let low = ((min / width).floor() * width * 100.0).round() / 100.0;
-    let bins = (((max - low) / width).floor() as usize + 1).max(1);
+    let edge = |width: f64| ((min / width).floor() * width * 100.0).round() / 100.0;
+    let mut low = edge(width);
+    let mut span = ((max - low) / width).floor();
+    // Each pass multiplies the width by ten; 400 passes cover every finite
+    // ratio of f64 values, so the loop always ends.
+    for _ in 0..400 {
+        if span.is_finite() && span >= 0.0 && span < MAX_BINS as f64 {
+            break;
+        }
+        width *= 10.0;
+        low = edge(width);
+        span = ((max - low) / width).floor();
+    }
+    let bins = if span.is_finite() && span >= 0.0 {
+        (span as usize + 1).min(MAX_BINS)
+    } else {
+        1
+    };
     let mut counts = vec![0u64; bins];
     for &x in sorted {
         let index = (((x - low) / width).floor().max(0.0) as usize).min(bins - 1);
@@ -138,5 +165,26 @@ mod tests {
         let bins = histogram(&[42.0; 5]);
         assert_eq!(bins.counts, vec![5]);
         assert!(bins.low <= 42.0 && 42.0 < bins.low + bins.bin_width);
+    }
+
+    #[test]
+    fn huge_values_close_together_stay_within_the_bin_bound() {
+        // Regression: results near 1e27 one unit in the last place apart
+        // used to ask for about 2.5e13 bins of one cent (a 2e14-byte
+        // allocation that aborted the process).
+        let a = 1.0e27_f64;
+        let b = f64::from_bits(a.to_bits() + 3);
+        let bins = histogram(&[a, b]);
+        assert!(!bins.counts.is_empty() && bins.counts.len() <= MAX_BINS);
+        assert_eq!(bins.counts.iter().sum::<u64>(), 2);
+        let wide = histogram(&[-7.9e28, 0.0, 1.0e21]);
+        assert!(wide.counts.len() <= MAX_BINS);
+        assert_eq!(wide.counts.iter().sum::<u64>(), 3);
+    }
+
+    #[test]
+    fn values_that_are_not_finite_give_no_bins() {
+        assert!(histogram(&[1.0, f64::INFINITY]).counts.is_empty());
+        assert!(histogram(&[f64::NAN]).counts.is_empty());
     }
 }

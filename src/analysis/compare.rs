@@ -1,6 +1,7 @@
 //! Every candidate of a scenario through cycle, operation and ledger, and
 //! each set against the baseline: the study behind `compare` and `report`.
 
+use super::acceptance::contract_inputs;
 use super::engine::fuel_of;
 use super::evaluate::{ledger_inputs, solve, solve_at, Solved};
 use crate::finance::{
@@ -152,8 +153,15 @@ pub fn run_study(loaded: &LoadedScenario) -> crate::Result<Study> {
     let mut outcomes = Vec::with_capacity(scenario.candidates.len());
     for (index, candidate) in scenario.candidates.iter().enumerate() {
         let solved = solve_at(loaded, index, &fuel)?;
-        let inputs = ledger_inputs(scenario, candidate, &fuel, &solved.year)
-            .map_err(|e| finance_error(loaded, candidate, e))?;
+        // By the contract: the rated year without a guarantee, else the
+        // as-built machine and its settlement (see `analysis::acceptance`).
+        let (inputs, _) = contract_inputs(
+            scenario,
+            candidate,
+            &fuel,
+            solved.cycle.heat_rate_kj_per_kwh,
+        )
+        .map_err(|e| finance_error(loaded, candidate, e))?;
         let ledger = build_ledger(&inputs).map_err(|e| finance_error(loaded, candidate, e))?;
         let bid =
             bid_factors(&inputs, &capacity).map_err(|e| finance_error(loaded, candidate, e))?;

@@ -1,6 +1,7 @@
 //! Analysis: each candidate through cycle, operation and ledger, set against
 //! the baseline; sensitivity and risk. Plain typed values in and out.
 
+pub mod acceptance;
 pub mod compare;
 pub mod engine;
 pub mod evaluate;

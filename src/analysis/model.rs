@@ -60,6 +60,7 @@ fn ledger_rows(outcome: &CandidateOutcome) -> Vec<LedgerRowView> {
             replacement: money(r.replacement),
             capital: money(r.capital),
             residual: money(r.residual),
+            guarantee_settlement: money(r.guarantee_settlement),
             total: money(r.total),
             discount_factor: crate::finance::Money::to_f64(r.discount_factor),
             present_value: money(r.present_value),
@@ -304,6 +305,7 @@ fn candidate_view(loaded: &LoadedScenario, study: &Study, index: usize) -> Candi
             carbon: money(pv.carbon_cost),
             replacement: money(pv.replacement),
             residual: money(pv.residual),
+            guarantee_settlement: money(pv.guarantee_settlement),
         },
         cost_difference: (index != study.baseline_index).then(|| {
             let b = &baseline.ledger.summary.present_value;
@@ -317,6 +319,7 @@ fn candidate_view(loaded: &LoadedScenario, study: &Study, index: usize) -> Candi
                 carbon: money(pv.carbon_cost - b.carbon_cost),
                 replacement: money(pv.replacement - b.replacement),
                 residual: money(pv.residual - b.residual),
+                guarantee_settlement: money(pv.guarantee_settlement - b.guarantee_settlement),
             }
         }),
         cumulative_savings: if index == study.baseline_index {

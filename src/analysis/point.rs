@@ -15,13 +15,13 @@
 
 mod restore;
 
+use super::acceptance::contract_inputs;
 use super::engine::{engine_config_of, fuel_of, gas_model_of};
-use super::evaluate::ledger_inputs;
-use super::operation::annual_operation;
 use crate::cycle::{self, EngineConfig, GasModel};
 use crate::finance::{compare_summaries, summarize_ledger, LedgerInputs, LedgerSummary};
 use crate::fuel::Fuel;
 use crate::scenario::Scenario;
+use rust_decimal::prelude::ToPrimitive;
 
 /// What one candidate's figures are at one point.
 #[derive(Debug, Clone, Copy, PartialEq, Default)]
@@ -32,6 +32,12 @@ pub struct Figures {
     pub lifecycle_cost: f64,
     /// Against the baseline; `None` for the baseline itself.
     pub versus_baseline: Option<Versus>,
+    /// Damages the contract settles at the acceptance test (scenario
+    /// currency, after the cap); 0 without a guarantee.
+    pub damages: f64,
+    /// Whether the as-built heat rate or output fell short of the
+    /// guarantee beyond the tolerance; `false` without a guarantee.
+    pub shortfall_beyond_tolerance: bool,
 }
 
 /// A candidate against the baseline at one point (scenario currency).
@@ -255,14 +261,13 @@ impl<'s> PointModel<'s> {
                     heat_rate
                 }
             };
-            let year = annual_operation(&scenario.operation, candidate.net_output_kw, heat_rate);
             let ledger_error = |e: crate::finance::FinanceError| PointError::Ledger {
                 candidate: candidate.id.clone(),
                 message: e.to_string(),
             };
-            let inputs = ledger_inputs(scenario, candidate, fuel, &year)
-                .map_err(ledger_error)?
-                .to_f64();
+            let (inputs, settlement) =
+                contract_inputs(scenario, candidate, fuel, heat_rate).map_err(ledger_error)?;
+            let inputs = inputs.to_f64();
             let summary = match &ws.ledgers[i] {
                 Some((last, summary)) if *last == inputs => *summary,
                 _ => {
@@ -276,6 +281,11 @@ impl<'s> PointModel<'s> {
                 heat_rate_kj_per_kwh: heat_rate,
                 lifecycle_cost: summary.lifecycle_cost,
                 versus_baseline: None,
+                damages: settlement.map_or(0.0, |s| s.damages.to_f64().unwrap_or(f64::INFINITY)),
+                shortfall_beyond_tolerance: settlement.is_some_and(|s| {
+                    s.beyond_tolerance
+                        && (s.heat_rate_shortfall_percent > 0.0 || s.output_shortfall_percent > 0.0)
+                }),
             };
         }
         let Some(base) = ws.summaries[self.baseline] else {

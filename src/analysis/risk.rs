@@ -14,7 +14,10 @@
 //!   scenario, and the number of redraws is reported.
 //! - Before any draw, the file's own point goes through `compare`'s decimal
 //!   study, so `risk` refuses every file `compare` refuses, the same way.
-//! - Memory: two `f64` per sample and non-baseline candidate, nothing more
+//! - A candidate with a guarantee settles each sample's as-built draw by
+//!   its contract and runs as built (`analysis::acceptance`); the run
+//!   keeps its damages and whether it fell short beyond the tolerance.
+//! - Memory: four `f64` per sample and non-baseline candidate, nothing more
 //!   per sample (no ledger is kept).
 
 pub mod statistics;
@@ -23,7 +26,7 @@ use super::compare::{run_study, study_fuel};
 use super::point::{Figures, PointModel};
 use super::sampling::{Sampler, Streams};
 use crate::finance::{round_for_presentation, DEFAULT_MINOR_UNIT_DECIMALS};
-use crate::report::model::{Histogram, Percentiles, RiskCandidate, RiskView};
+use crate::report::model::{Histogram, Percentiles, RiskCandidate, RiskContract, RiskView};
 use crate::scenario::LoadedScenario;
 use crate::Error;
 use rayon::prelude::*;
@@ -31,10 +34,10 @@ use rust_decimal::prelude::FromPrimitive;
 use rust_decimal::Decimal;
 use statistics::{histogram, statistics, Bins, Statistics};
 
-/// Most samples a run may ask for. The figures kept take 16 bytes per
+/// Most samples a run may ask for. The figures kept take 32 bytes per
 /// sample and non-baseline candidate, plus 16 bytes per sample while one
-/// candidate's figures are sorted: about 5 MB for 100 000 samples of the
-/// three-candidate demo, about 480 MB at this maximum.
+/// candidate's figures are sorted: about 8 MB for 100 000 samples of the
+/// three-candidate demo, about 800 MB at this maximum.
 pub const MAX_SAMPLES: usize = 10_000_000;
 
 /// Samples drawn when none is asked for, by `risk` and by `report`'s risk
@@ -44,6 +47,9 @@ pub const DEFAULT_SAMPLES: usize = 10_000;
 
 /// Draws tried for one sample before the run is refused.
 pub const MAX_DRAWS_PER_SAMPLE: u32 = 100;
+
+/// Figures kept per sample and non-baseline candidate.
+const FIGURES: usize = 4;
 
 /// Samples computed between two progress reports.
 const BLOCK: usize = 4096;
@@ -107,6 +113,21 @@ pub struct CandidateRisk {
     pub probability_beats_baseline: f64,
     /// Histogram of net savings.
     pub histogram: Bins,
+    /// What the contract settled, for a candidate with a guarantee.
+    pub contract: Option<ContractRisk>,
+}
+
+/// The acceptance test over the samples of a candidate with a guarantee:
+/// each sample settles its as-built draw by the contract (see
+/// [`super::acceptance`]), and its net savings above already count the
+/// damages received and the machine run as built.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct ContractRisk {
+    /// Share of samples (0 to 1) whose as-built heat rate or output falls
+    /// short of the guarantee beyond the tolerance.
+    pub probability_shortfall: f64,
+    /// Damages received (after the cap), scenario currency.
+    pub damages: Statistics,
 }
 
 /// A whole Monte Carlo run.
@@ -196,8 +217,9 @@ pub fn run_risk(
     let n = scenario.candidates.len();
     let model = PointModel::new(scenario, fuel, baseline, draws.keys.clone(), vec![true; n]);
     let streams = Streams::new(seed);
-    // Per sample: (net savings, break-even premium) of each other candidate.
-    let stride = 2 * others.len();
+    // Per sample and other candidate: net savings, break-even premium,
+    // damages settled, and 1 for a shortfall beyond the tolerance (else 0).
+    let stride = FIGURES * others.len();
     let mut values = vec![0.0f64; samples * stride];
     let mut tally = Tally::default();
     let mut done = 0;
@@ -275,7 +297,16 @@ pub fn run_risk(
     let candidates = others
         .iter()
         .enumerate()
-        .map(|(k, &i)| summarize(&values, stride, k, &scenario.candidates[i].id))
+        .map(|(k, &i)| {
+            let candidate = &scenario.candidates[i];
+            summarize(
+                &values,
+                stride,
+                k,
+                &candidate.id,
+                candidate.guarantee.is_some(),
+            )
+        })
         .collect::<Option<Vec<_>>>()
         .ok_or_else(|| Error::Internal("risk statistics of an empty run".into()))?;
     Ok(RiskRun {
@@ -348,18 +379,41 @@ fn record(
                 scenario.candidates[i].id
             )
         })?;
-        out[2 * k] = versus.net_savings;
-        out[2 * k + 1] = premium;
+        let at = FIGURES * k;
+        out[at] = versus.net_savings;
+        out[at + 1] = premium;
+        out[at + 2] = figures[i].damages;
+        out[at + 3] = if figures[i].shortfall_beyond_tolerance {
+            1.0
+        } else {
+            0.0
+        };
     }
     Ok(())
 }
 
-fn summarize(values: &[f64], stride: usize, k: usize, id: &str) -> Option<CandidateRisk> {
+fn summarize(
+    values: &[f64],
+    stride: usize,
+    k: usize,
+    id: &str,
+    has_guarantee: bool,
+) -> Option<CandidateRisk> {
     let column = |offset: usize| -> Vec<f64> {
         values
             .chunks(stride)
-            .map(|sample| sample[2 * k + offset])
+            .map(|sample| sample[FIGURES * k + offset])
             .collect()
+    };
+    let contract = if has_guarantee {
+        let mut damages = column(2);
+        let short = column(3).iter().sum::<f64>();
+        Some(ContractRisk {
+            probability_shortfall: short / damages.len() as f64,
+            damages: statistics(&mut damages)?,
+        })
+    } else {
+        None
     };
     let mut savings = column(0);
     let mut premiums = column(1);
@@ -373,6 +427,7 @@ fn summarize(values: &[f64], stride: usize, k: usize, id: &str) -> Option<Candid
         break_even_premium,
         probability_beats_baseline,
         histogram: histogram(&savings),
+        contract,
     })
 }
 
@@ -416,6 +471,10 @@ pub fn view_of(run: &RiskRun) -> RiskView {
                     bin_width: money(c.histogram.bin_width),
                     counts: c.histogram.counts.clone(),
                 },
+                contract: c.contract.map(|k| RiskContract {
+                    probability_shortfall: k.probability_shortfall,
+                    damages: percentiles(&k.damages),
+                }),
             })
             .collect(),
     }

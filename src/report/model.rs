@@ -306,6 +306,11 @@ pub struct CostBreakdown {
     pub replacement: Decimal,
     /// Residual value (a credit, negative).
     pub residual: Decimal,
+    /// Guarantee settlement at the acceptance test: bonus paid less damages
+    /// received (negative when the vendor pays). Left out of the JSON when
+    /// zero (no guarantee, or a machine within its tolerance).
+    #[serde(skip_serializing_if = "Decimal::is_zero")]
+    pub guarantee_settlement: Decimal,
 }
 
 /// One point of cumulative discounted savings.
@@ -356,6 +361,10 @@ pub struct LedgerRowView {
     pub capital: Decimal,
     /// Residual value (a credit, negative).
     pub residual: Decimal,
+    /// Guarantee settlement (bonus paid less damages received); left out
+    /// of the JSON when zero.
+    #[serde(skip_serializing_if = "Decimal::is_zero")]
+    pub guarantee_settlement: Decimal,
     /// Sum of the row's money.
     pub total: Decimal,
     /// Discount factor applied to the row.
@@ -509,6 +518,22 @@ pub struct RiskCandidate {
     pub probability_beats_baseline: f64,
     /// Histogram of net savings.
     pub histogram: Histogram,
+    /// The acceptance test by the contract, for a candidate with a
+    /// guarantee (left out of the JSON otherwise). Net savings and the
+    /// chance of beating the baseline above are net of these damages.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub contract: Option<RiskContract>,
+}
+
+/// The acceptance test of a candidate with a guarantee over a risk run.
+#[derive(Debug, Clone, Serialize)]
+pub struct RiskContract {
+    /// Share of samples (0 to 1) short of the guarantee beyond the
+    /// tolerance (heat rate or output).
+    pub probability_shortfall: f64,
+    /// Damages received from the vendor (after the cap), statistics over
+    /// the samples; the mean is the expected damages.
+    pub damages: Percentiles,
 }
 
 /// Mean and percentiles of a sampled money figure.

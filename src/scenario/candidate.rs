@@ -166,6 +166,9 @@ pub struct Candidate {
     pub rating: RatingCondition,
     /// O&M, overhaul, degradation, residual value, construction schedule.
     pub costs: CandidateCosts,
+    /// Performance guarantee with damages (`[candidate.guarantee]`, keys
+    /// in `candidate_guarantee.rs`); `None`: no guarantee clause.
+    pub guarantee: Option<super::candidate_guarantee::CandidateGuarantee>,
 }
 /// Set `*slot` to `value`, or say which optional part is missing.
 fn set_in<T>(slot: Option<&mut T>, value: T, part: &str) -> SetResult {

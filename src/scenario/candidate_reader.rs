@@ -7,6 +7,7 @@ use super::candidate::{
     ReheatSpec, KEYS,
 };
 use super::candidate_costs::read_costs;
+use super::candidate_guarantee::read_guarantee;
 use super::context::Context;
 use super::declare::{find, keys_in, Key};
 use super::error::ScenarioError;
@@ -133,7 +134,9 @@ fn read_candidate(ctx: &mut Context, node: &Node, index: usize, cod: NaiveDate) 
         ));
     }
     let path = format!("candidate[{id}]");
-    let r = TableReader::new(ctx, &path, node, &keys_in(KEYS, ""))?;
+    let mut allowed = keys_in(KEYS, "");
+    allowed.extend(keys_in(super::candidate_guarantee::KEYS, ""));
+    let r = TableReader::new(ctx, &path, node, &allowed)?;
     r.string(ctx, "id")?;
     let label = match r.string(ctx, "label")? {
         Some(label) => label,
@@ -197,6 +200,7 @@ fn read_candidate(ctx: &mut Context, node: &Node, index: usize, cod: NaiveDate) 
     let intercooler = read_intercooler(ctx, &r)?;
     let reheat = read_reheat(ctx, &r)?;
     let costs = read_costs(ctx, &r, cod)?;
+    let guarantee = read_guarantee(ctx, &r)?;
     let mut candidate = Candidate {
         id,
         label,
@@ -227,6 +231,7 @@ fn read_candidate(ctx: &mut Context, node: &Node, index: usize, cod: NaiveDate) 
             relative_humidity: f64::NAN,
         },
         costs,
+        guarantee,
     };
     read_rating(ctx, &r, &mut candidate)?;
     Ok(candidate)

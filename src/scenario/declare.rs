@@ -265,6 +265,7 @@ pub(crate) fn candidate_keys() -> impl Iterator<Item = &'static Key<Candidate>> 
     super::candidate::KEYS
         .iter()
         .chain(super::candidate_costs::KEYS)
+        .chain(super::candidate_guarantee::KEYS)
 }
 
 /// Check one candidate value (internal unit) against the declared range of

@@ -2,11 +2,13 @@
 //!
 //! Every key is declared once, in the file named after its section
 //! (`scenario_table.rs`, `site.rs`, `fuel.rs`, `economics.rs`,
-//! `operation.rs`, `candidate.rs`, `candidate_costs.rs`; `[[uncertainty]]`
+//! `operation.rs`, `candidate.rs`, `candidate_costs.rs`,
+//! `candidate_guarantee.rs`; `[[uncertainty]]`
 //! in `uncertainty_section.rs`); `declare.rs` holds the mechanism.
 
 mod candidate;
 mod candidate_costs;
+mod candidate_guarantee;
 mod candidate_reader;
 mod context;
 mod declare;

@@ -11,6 +11,7 @@ pub use super::candidate::{
     Candidate, CandidateCosts, EfficiencyBasis, GasModelSpec, IntercoolerSpec, RatingCondition,
     RegeneratorSpec, ReheatSpec, ResidualValue,
 };
+pub use super::candidate_guarantee::{CandidateGuarantee, HeatRateDamages, ToleranceReading};
 pub use super::uncertainty::{Distribution, UncertainInput};
 use rust_decimal::Decimal;
 

@@ -75,6 +75,7 @@ fn ledger(life: u32, capital: i64, fuel: i64) -> Vec<LedgerRowView> {
                 replacement: dec(0),
                 capital: dec(cap),
                 residual: dec(residual),
+                guarantee_settlement: dec(0),
                 total: dec(total),
                 discount_factor: df,
                 present_value: Decimal::from_f64_retain((total as f64 * df).round())
@@ -185,6 +186,7 @@ fn candidate(
             carbon: dec(4_500_000),
             replacement: dec(0),
             residual: dec(-1_500_000),
+            guarantee_settlement: dec(0),
         },
         cost_difference: (!baseline).then(|| CostBreakdown {
             capital: dec(premium),
@@ -194,6 +196,7 @@ fn candidate(
             carbon: dec(-300_000),
             replacement: dec(0),
             residual: dec(-100_000),
+            guarantee_settlement: dec(0),
         }),
         cumulative_savings: if baseline {
             Vec::new()
@@ -282,6 +285,7 @@ pub fn model(with_sensitivity: bool, with_risk: bool) -> Model {
                     bin_width: dec(1_000_000),
                     counts: vec![10, 40, 120, 250, 380, 420, 360, 230, 120, 50, 20],
                 },
+                contract: None,
             })
             .collect(),
     });

@@ -100,6 +100,7 @@ pub(super) fn candidate(dst: &mut Candidate, src: &Candidate) {
         reheat,
         rating,
         costs: src_costs,
+        guarantee,
     } = src;
     dst.id.clone_from(id);
     dst.label.clone_from(label);
@@ -123,6 +124,7 @@ pub(super) fn candidate(dst: &mut Candidate, src: &Candidate) {
     dst.reheat = *reheat;
     dst.rating = *rating;
     costs(&mut dst.costs, src_costs);
+    dst.guarantee = *guarantee;
 }
 
 #[cfg(test)]

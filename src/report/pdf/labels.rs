@@ -111,6 +111,7 @@ labels! {
     risk_probability,
     risk_samples,
     risk_note,
+    risk_contract,
     risk_seed,
     risk_redraws,
     performance,

@@ -8,7 +8,11 @@
 //!   to the minor unit;
 //! - csv: the summary only, one row per candidate and figure (long format):
 //!   `candidate_id,figure,mean,p10,p50,p90,probability_beats_baseline,
-//!   samples,seed,currency`; the histogram is in the JSON and the table.
+//!   samples,seed,currency,probability_shortfall`; the histogram is in the
+//!   JSON and the table. A candidate with a guarantee has a third row,
+//!   `guarantee_damages` (damages received; the mean is the expected
+//!   damages), whose last column is the share of samples short of the
+//!   guarantee beyond the tolerance (empty on every other row).
 //!
 //! Every figure is money, the same in both unit systems; the table names
 //! the unit system it was asked for.
@@ -100,17 +104,33 @@ fn csv(loaded: &LoadedScenario, view: &RiskView) -> Result<Vec<u8>> {
             "samples",
             "seed",
             "currency",
+            "probability_shortfall",
         ])
         .map_err(fail)?;
     for c in &view.candidates {
-        for (figure, p, chance) in [
+        let mut rows = vec![
             (
                 "net_savings",
                 &c.net_savings,
                 c.probability_beats_baseline.to_string(),
+                String::new(),
             ),
-            ("break_even_premium", &c.break_even_premium, String::new()),
-        ] {
+            (
+                "break_even_premium",
+                &c.break_even_premium,
+                String::new(),
+                String::new(),
+            ),
+        ];
+        if let Some(contract) = &c.contract {
+            rows.push((
+                "guarantee_damages",
+                &contract.damages,
+                String::new(),
+                contract.probability_shortfall.to_string(),
+            ));
+        }
+        for (figure, p, chance, shortfall) in rows {
             writer
                 .write_record([
                     c.candidate_id.clone(),
@@ -123,6 +143,7 @@ fn csv(loaded: &LoadedScenario, view: &RiskView) -> Result<Vec<u8>> {
                     view.samples.to_string(),
                     view.seed.to_string(),
                     loaded.scenario.meta.currency.clone(),
+                    shortfall,
                 ])
                 .map_err(fail)?;
         }
@@ -192,6 +213,21 @@ fn table(loaded: &LoadedScenario, run: &RiskRun, view: &RiskView, units: Units) 
         "\n\nThe chance counts the samples in which the candidate, at the premium it asks, costs \
          less over the life than the baseline (net savings above zero).\n",
     );
+    for c in &view.candidates {
+        if let Some(contract) = &c.contract {
+            out.push_str(&format!(
+                "Guarantee of {}: short beyond the tolerance in {:.1} % of samples; damages \
+                 received mean (expected) {}, P10 {}, P50 {}, P90 {}. Its net savings and \
+                 chance already count these damages and the machine as built.\n",
+                c.candidate_id,
+                contract.probability_shortfall * 100.0,
+                money(contract.damages.mean, cur),
+                money(contract.damages.p10, cur),
+                money(contract.damages.p50, cur),
+                money(contract.damages.p90, cur),
+            ));
+        }
+    }
     for c in &view.candidates {
         out.push_str(&histogram_text(c, cur));
     }

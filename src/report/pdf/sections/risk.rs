@@ -147,6 +147,21 @@ pub fn risk(ctx: &Ctx, composer: &mut Composer) {
         },
     );
     for c in &risk.candidates {
+        let Some(contract) = &c.contract else {
+            continue;
+        };
+        let text = l
+            .risk_contract
+            .replace("{candidate}", &label_of(ctx, &c.candidate_id))
+            .replace(
+                "{shortfall}",
+                &format!("{:.1} %", contract.probability_shortfall * 100.0),
+            )
+            .replace("{damages}", &money(contract.damages.mean, currency))
+            .replace("{p90}", &money(contract.damages.p90, currency));
+        composer.paragraph(&text, 9.0, Face::Regular, 0.0);
+    }
+    for c in &risk.candidates {
         let height = 80.0f32.min(composer.content_box().height_mm);
         let area = composer.reserve(height);
         let title = label_of(ctx, &c.candidate_id);

@@ -12,6 +12,9 @@
 //!   [`MAX_DRAWS_PER_SAMPLE`] times. Every sample counted is valid; the
 //!   results are those of the distributions conditional on a valid
 //!   scenario, and the number of redraws is reported.
+//! - `[[correlation]]` pairs are imposed on each sample's first draw by the
+//!   Iman–Conover method ([`correlated_draws`]); without them every sample
+//!   draws independently.
 //! - Before any draw, the file's own point goes through `compare`'s decimal
 //!   study, so `risk` refuses every file `compare` refuses, the same way.
 //! - A candidate with a guarantee settles each sample's as-built draw by
@@ -24,6 +27,8 @@ pub mod statistics;
 
 use super::compare::{run_study, study_fuel};
 use super::point::{Figures, PointModel};
+use super::sampling::iman_conover::iman_conover_order;
+use super::sampling::rank_correlation::CorrelationError;
 use super::sampling::{Sampler, Streams};
 use crate::finance::{round_for_presentation, DEFAULT_MINOR_UNIT_DECIMALS};
 use crate::report::model::{Histogram, Percentiles, RiskCandidate, RiskContract, RiskView};
@@ -214,6 +219,7 @@ pub fn run_risk(
             "risk sets candidates against the baseline; expected at least one candidate besides it",
         ));
     }
+    let correlated = correlated_draws(loaded, &draws, samples, seed)?;
     let n = scenario.candidates.len();
     let model = PointModel::new(scenario, fuel, baseline, draws.keys.clone(), vec![true; n]);
     let streams = Streams::new(seed);
@@ -241,9 +247,15 @@ pub fn run_risk(
                     let mut stream = streams.sample(index as u64);
                     let mut tally = Tally::default();
                     let mut first_draw: Option<Vec<f64>> = None;
-                    for _ in 0..MAX_DRAWS_PER_SAMPLE {
+                    for attempt in 0..MAX_DRAWS_PER_SAMPLE {
                         for (value, sampler) in drawn.iter_mut().zip(&draws.samplers) {
                             *value = sampler.quantile(stream.next_unit());
+                        }
+                        if attempt == 0 {
+                            if let Some(rows) = &correlated {
+                                let k = drawn.len();
+                                drawn.copy_from_slice(&rows[index * k..(index + 1) * k]);
+                            }
                         }
                         let outcome = model
                             .evaluate(ws, drawn, figures)
@@ -318,6 +330,51 @@ pub fn run_risk(
         first_redraw_reason: tally.first_reason.map(|(_, reason)| reason),
         candidates,
     })
+}
+
+/// The first draw of every sample with the scenario's `[[correlation]]`
+/// imposed, row-major (sample `i`'s values at `i·k .. (i+1)·k` for `k`
+/// keys); `None` without correlations (each sample then draws
+/// independently, as before).
+///
+/// Each key's column is drawn from the samples' own streams (the values an
+/// uncorrelated run would draw first) and reordered by the Iman–Conover
+/// method, so every input keeps its marginal distribution exactly. A
+/// sample whose correlated draw is refused redraws independently from its
+/// stream; the redraw count says how often. Memory: 24 bytes per sample and
+/// key while the order is computed.
+pub fn correlated_draws(
+    loaded: &LoadedScenario,
+    draws: &Draws,
+    samples: usize,
+    seed: u64,
+) -> crate::Result<Option<Vec<f64>>> {
+    let scenario = &loaded.scenario;
+    if scenario.correlation.is_empty() {
+        return Ok(None);
+    }
+    let target = crate::scenario::target_of(&scenario.uncertainty, &scenario.correlation)
+        .map_err(|e| loaded.error_at("correlation", &e.to_string()))?;
+    let k = draws.samplers.len();
+    let streams = Streams::new(seed);
+    let mut columns = vec![Vec::with_capacity(samples); k];
+    for i in 0..samples {
+        let mut stream = streams.sample(i as u64);
+        for (column, sampler) in columns.iter_mut().zip(&draws.samplers) {
+            column.push(sampler.quantile(stream.next_unit()));
+        }
+    }
+    let orders = iman_conover_order(&columns, &target, seed).map_err(|e| match e {
+        CorrelationError::TooFewSamples { .. } => Error::Input(format!("--samples {samples}: {e}")),
+        other => loaded.error_at("correlation", &other.to_string()),
+    })?;
+    let mut rows = vec![0.0; samples * k];
+    for (j, (column, order)) in columns.iter().zip(&orders).enumerate() {
+        for (i, &from) in order.iter().enumerate() {
+            rows[i * k + j] = column[from];
+        }
+    }
+    Ok(Some(rows))
 }
 
 /// Which `[[uncertainty]]` draw made a sample unsolvable.

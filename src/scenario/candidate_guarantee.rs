@@ -209,8 +209,8 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         "guarantee.bonus_per_heat_rate_percent",
         Kind::Money,
         Range::NonNegative,
-        Presence::Default { text: "0 (no bonus)", value: 0.0 },
-        "bonus per % of heat rate better than guaranteed (beyond the tolerance)",
+        Presence::Default { text: "0", value: 0.0 },
+        "bonus per % of heat rate better than guaranteed (beyond the tolerance); 0: no bonus",
         |c| c.guarantee.map(|g| money_to_f64(g.bonus_per_heat_rate_percent)),
         |c, v| set_guarantee(c, v, |g, v| {
             g.bonus_per_heat_rate_percent = money_from_f64(v)?;
@@ -222,8 +222,8 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         "guarantee.bonus_per_kw",
         Kind::Money,
         Range::NonNegative,
-        Presence::Default { text: "0 (no bonus)", value: 0.0 },
-        "bonus per kW of net output above the guarantee (beyond the tolerance)",
+        Presence::Default { text: "0", value: 0.0 },
+        "bonus per kW of net output above the guarantee (beyond the tolerance); 0: no bonus",
         |c| c.guarantee.map(|g| money_to_f64(g.bonus_per_kw)),
         |c, v| set_guarantee(c, v, |g, v| {
             g.bonus_per_kw = money_from_f64(v)?;
@@ -261,7 +261,7 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         "guarantee.as_built_heat_rate",
         Kind::Fraction,
         Range::Positive,
-        Presence::Default { text: "100 % (as guaranteed)", value: 1.0 },
+        Presence::Default { text: "100 %", value: 1.0 },
         "as-built heat rate relative to the guarantee (102 % = 2 % worse); give it a distribution in [[uncertainty]] for risk",
         |c| c.guarantee.map(|g| g.as_built_heat_rate),
         |c, v| set_guarantee(c, v, |g, v| {
@@ -274,7 +274,7 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         "guarantee.as_built_output",
         Kind::Fraction,
         Range::Positive,
-        Presence::Default { text: "100 % (as guaranteed)", value: 1.0 },
+        Presence::Default { text: "100 %", value: 1.0 },
         "as-built net output relative to the guarantee (97 % = 3 % short); give it a distribution in [[uncertainty]] for risk",
         |c| c.guarantee.map(|g| g.as_built_output),
         |c, v| set_guarantee(c, v, |g, v| {

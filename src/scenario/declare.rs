@@ -507,13 +507,14 @@ turbine_efficiency = "89 %"
             matched += 1;
         }
         // Every declared default of a key outside optional parts
-        // (regenerator, intercooler, reheat, cold-air constants) applies.
+        // (regenerator, intercooler, reheat, guarantee, cold-air constants)
+        // applies.
         let expected = scenario_keys()
             .map(|k| (k.path, k.presence))
             .chain(candidate_keys().map(|k| (k.path, k.presence)))
             .filter(|(path, presence)| {
                 matches!(presence, Presence::Default { .. })
-                    && !["regenerator.", "intercooler.", "reheat."]
+                    && !["regenerator.", "intercooler.", "reheat.", "guarantee."]
                         .iter()
                         .any(|p| path.starts_with(p))
                     && !["cp_kj_per_kg_k", "specific_heat_ratio"].contains(path)

@@ -4,6 +4,7 @@
 
 use super::candidate_reader::read_candidates;
 use super::context::{locate, AppliedDefault, Context, InputLine};
+use super::correlation::read_correlations;
 use super::economics::read_economics;
 use super::error::ScenarioError;
 use super::fuel::read_fuel;
@@ -48,6 +49,7 @@ const SECTIONS: &[&str] = &[
     "operation",
     "candidate",
     "uncertainty",
+    "correlation",
 ];
 
 /// Read and load the scenario file at `path`.
@@ -136,11 +138,14 @@ pub fn parse(text: &str, file_label: &str) -> Result<LoadedScenario, ScenarioErr
         operation,
         candidates,
         uncertainty: Vec::new(),
+        correlation: Vec::new(),
     };
     check_ranges(&scenario)
         .and_then(|()| cross_check(&scenario))
         .map_err(|v| ctx.error_for(&v.field, v.problem, v.valid))?;
     scenario.uncertainty = read_uncertainty(&mut ctx, section("uncertainty"), &scenario)?;
+    scenario.correlation =
+        read_correlations(&mut ctx, section("correlation"), &scenario.uncertainty)?;
     Ok(LoadedScenario {
         scenario,
         file_label: file_label.to_string(),

@@ -3,7 +3,7 @@
 //! Every key is declared once, in the file named after its section
 //! (`scenario_table.rs`, `site.rs`, `fuel.rs`, `economics.rs`,
 //! `operation.rs`, `candidate.rs`, `candidate_costs.rs`,
-//! `candidate_guarantee.rs`; `[[uncertainty]]`
+//! `candidate_guarantee.rs`; `[[correlation]]` in `correlation.rs`; `[[uncertainty]]`
 //! in `uncertainty_section.rs`); `declare.rs` holds the mechanism.
 
 mod candidate;
@@ -11,6 +11,7 @@ mod candidate_costs;
 mod candidate_guarantee;
 mod candidate_reader;
 mod context;
+mod correlation;
 mod declare;
 mod economics;
 mod error;
@@ -33,6 +34,7 @@ mod values;
 mod warnings;
 
 pub use context::{AppliedDefault, InputLine};
+pub use correlation::{drawn_keys, target_of, RankPair};
 pub use declare::{
     check_candidate_value, check_flag_value, check_scenario_value, declared_key_paths, docs_tables,
 };

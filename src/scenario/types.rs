@@ -33,6 +33,9 @@ pub struct Scenario {
     pub candidates: Vec<Candidate>,
     /// Inputs with ranges or distributions for sensitivity and risk.
     pub uncertainty: Vec<UncertainInput>,
+    /// Rank correlations between drawn `[[uncertainty]]` keys
+    /// (`[[correlation]]`); unlisted pairs are uncorrelated.
+    pub correlation: Vec<super::correlation::RankPair>,
 }
 
 /// The `[scenario]` section: who it is for and what it is compared against.

@@ -83,6 +83,10 @@ fn document(loaded: &LoadedScenario, run: &RiskRun, view: &RiskView) -> serde_js
         "samples": run.samples,
         "seed": run.seed,
         "keys": run.keys,
+        "correlations": s.correlation.iter().map(|c| json!({
+            "keys": [c.first, c.second],
+            "rank_correlation": c.rank_correlation,
+        })).collect::<Vec<_>>(),
         "redraws": run.redraws,
         "first_redraw_reason": run.first_redraw_reason,
         "candidates": view.candidates,
@@ -167,6 +171,17 @@ fn table(loaded: &LoadedScenario, run: &RiskRun, view: &RiskView, units: Units) 
         format::units_name(units),
         run.keys.join(", ")
     );
+    if !s.correlation.is_empty() {
+        let pairs: Vec<String> = s
+            .correlation
+            .iter()
+            .map(|c| format!("{} and {} {}", c.first, c.second, c.rank_correlation))
+            .collect();
+        out.push_str(&format!(
+            "Rank-correlated (Iman–Conover): {}\n",
+            pairs.join("; ")
+        ));
+    }
     match &run.first_redraw_reason {
         Some(reason) => out.push_str(&format!(
             "Redrawn: {} draws the scenario refused or could not solve (first: {reason})\n",

@@ -1,0 +1,663 @@
+//! Fitting a datasheet: the engine whose design solve reproduces the
+//! stated figures.
+//!
+//! # What the figures determine
+//! With the output exact (the engine is sized by it), the heat rate, the
+//! exhaust temperature and the exhaust flow are three conditions. Through
+//! the first law they fix the electro-mechanical efficiency (the energy
+//! balance's remainder, [`super::balance`]), and leave two conditions for
+//! the gas path: its fuel–air ratio and its exhaust temperature. So two
+//! gas-path unknowns can be fitted; the rest are stated assumptions:
+//!
+//! | stated by the vendor      | fitted                                   | from a stated relation |
+//! |---------------------------|------------------------------------------|------------------------|
+//! | pressure ratio and firing | efficiency level, cooling fraction        | —                      |
+//! | pressure ratio            | efficiency level, firing temperature      | cooling from firing    |
+//! | firing temperature        | efficiency level, pressure ratio          | cooling from firing    |
+//! | neither                   | pressure ratio, firing temperature        | cooling from firing; efficiency level at its default |
+//!
+//! The efficiency level is the compressor polytropic efficiency; the
+//! turbine's is below it by a fixed gap ([`CalibrationOptions::efficiency_gap`]),
+//! because the figures determine one efficiency, not two. The
+//! electro-mechanical efficiency ε is fitted in every case and split as
+//! `η_mech = η_gen = √ε` with no auxiliary load (the data determine only
+//! the product). Pressure losses and combustion efficiency are defaults
+//! (listed in [`Calibration::assumptions`]).
+//!
+//! # Method
+//! Newton's method on the three conditions (relative heat-rate, exhaust
+//! temperature and exhaust-flow errors) with a forward-difference Jacobian
+//! and step halving, each unknown kept within bounds; it stops at 1e-9 of
+//! each, far inside the tolerances [`HEAT_RATE_TOLERANCE`],
+//! [`EXHAUST_TEMPERATURE_TOLERANCE_K`] and [`EXHAUST_FLOW_TOLERANCE`],
+//! which the result is checked against.
+
+use super::balance::{energy_balance, BalanceStatus};
+use super::implied::{maximum_specific_work, minimum_exhaust_temperature_k};
+use super::{Datasheet, DatasheetError};
+use crate::cycle::{self, CycleResult, EfficiencyBasis, EngineConfig, GasModel, Sizing};
+use crate::fuel::Fuel;
+use crate::offdesign::{Ambient, Control, Machine, OffDesignError};
+use serde::Serialize;
+
+/// Heat rate reproduced to this, relative.
+pub const HEAT_RATE_TOLERANCE: f64 = 5e-4;
+/// Exhaust temperature reproduced to this, K.
+pub const EXHAUST_TEMPERATURE_TOLERANCE_K: f64 = 0.5;
+/// Exhaust flow reproduced to this, relative.
+pub const EXHAUST_FLOW_TOLERANCE: f64 = 1e-3;
+
+/// The assumptions of a calibration: what the figures do not determine.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize)]
+pub struct CalibrationOptions {
+    /// Inlet (filter, duct) pressure loss, fraction of ambient. Default
+    /// 0.01 (about 10 mbar; common practice).
+    pub inlet_pressure_loss: f64,
+    /// Exhaust (diffuser, stack) pressure loss, fraction. Default 0.01
+    /// (common practice for a simple-cycle stack).
+    pub exhaust_pressure_loss: f64,
+    /// Combustor pressure loss, fraction of its inlet pressure. Default
+    /// 0.04 (common practice for lean premixed combustors, 3–5 %).
+    pub combustor_pressure_loss: f64,
+    /// Combustion efficiency. Default 1 (modern combustors burn out above
+    /// 99.9 %; common practice).
+    pub combustion_efficiency: f64,
+    /// Compressor minus turbine polytropic efficiency. Default 0.01: the
+    /// gap between the state-of-the-art limits of the two (0.93 and 0.92,
+    /// from memory; [`super::implied::STATE_OF_THE_ART`]).
+    pub efficiency_gap: f64,
+    /// Compressor polytropic efficiency taken when the datasheet states
+    /// neither pressure ratio nor firing temperature. Default 0.91 (a
+    /// current heavy-duty compressor, from memory).
+    pub compressor_polytropic_efficiency: f64,
+    /// Firing temperature below which the turbine needs no cooling air, K.
+    /// Default 1 200 K (uncooled first stages of older industrial turbines
+    /// run to about this; from memory).
+    pub cooling_onset_k: f64,
+    /// Cooling air per kelvin of firing temperature above the onset,
+    /// fraction of compressor air per K. Default 0.0004: 20 % at 1 700 K,
+    /// within the 15–25 % usual for F-class machines (from memory).
+    pub cooling_per_kelvin: f64,
+}
+
+impl Default for CalibrationOptions {
+    fn default() -> Self {
+        CalibrationOptions {
+            inlet_pressure_loss: 0.01,
+            exhaust_pressure_loss: 0.01,
+            combustor_pressure_loss: 0.04,
+            combustion_efficiency: 1.0,
+            efficiency_gap: 0.01,
+            compressor_polytropic_efficiency: 0.91,
+            cooling_onset_k: 1200.0,
+            cooling_per_kelvin: 0.0004,
+        }
+    }
+}
+
+impl CalibrationOptions {
+    /// Cooling fraction from the stated correlation at `firing_temperature_k`:
+    /// `cooling_per_kelvin · max(0, T_fire − cooling_onset_k)`.
+    pub fn cooling_for(&self, firing_temperature_k: f64) -> f64 {
+        self.cooling_per_kelvin * (firing_temperature_k - self.cooling_onset_k).max(0.0)
+    }
+
+    /// The engine configuration at `e`, sized by the datasheet's output.
+    fn config(&self, sheet: &Datasheet, e: &Engine) -> EngineConfig {
+        let split = e.electro_mechanical.sqrt();
+        EngineConfig {
+            ambient_temperature_k: sheet.rating.temperature_k,
+            ambient_pressure_kpa: sheet.rating.pressure_kpa,
+            pressure_ratio: e.pressure_ratio,
+            turbine_inlet_temperature_k: e.firing_k,
+            compressor_efficiency: e.eta_c,
+            turbine_efficiency: e.eta_c - self.efficiency_gap,
+            efficiency_basis: EfficiencyBasis::Polytropic,
+            inlet_pressure_loss: self.inlet_pressure_loss,
+            exhaust_pressure_loss: self.exhaust_pressure_loss,
+            combustor_pressure_loss: self.combustor_pressure_loss,
+            combustion_efficiency: self.combustion_efficiency,
+            mechanical_efficiency: split,
+            generator_efficiency: split,
+            auxiliary_load_fraction: 0.0,
+            regenerator: None,
+            intercooler: None,
+            reheat: None,
+            sizing: Some(Sizing::NetOutputKw(sheet.net_output_kw)),
+        }
+    }
+
+    /// Every assumption in words.
+    fn describe(&self, fit: Fit) -> Vec<String> {
+        let mut out = vec![
+            format!(
+                "inlet pressure loss {:.1} %, exhaust pressure loss {:.1} %, combustor pressure loss {:.1} % (defaults, common practice)",
+                self.inlet_pressure_loss * 100.0,
+                self.exhaust_pressure_loss * 100.0,
+                self.combustor_pressure_loss * 100.0
+            ),
+            format!(
+                "combustion efficiency {:.3} (default, common practice)",
+                self.combustion_efficiency
+            ),
+            format!(
+                "turbine polytropic efficiency = compressor polytropic efficiency − {:.3}: the data determine one efficiency level, not two",
+                self.efficiency_gap
+            ),
+            "mechanical and generator efficiency equal, their product fitted to the energy balance; no auxiliary load: the data determine only the product".into(),
+            "simple cycle, single shaft; coolant mixed ahead of the rotor at compressor delivery; complete combustion products of the stated fuel".into(),
+        ];
+        if fit != Fit::EfficiencyAndCooling {
+            out.push(format!(
+                "turbine cooling {:.4} of compressor air per K of firing temperature above {:.0} K (correlation, from memory)",
+                self.cooling_per_kelvin, self.cooling_onset_k
+            ));
+        }
+        if fit == Fit::RatioAndFiring {
+            out.push(format!(
+                "compressor polytropic efficiency {:.3} (default): neither pressure ratio nor firing temperature is stated, so the efficiency is not determined by the data",
+                self.compressor_polytropic_efficiency
+            ));
+        }
+        out
+    }
+
+    fn validate(&self) -> Result<(), DatasheetError> {
+        let losses = [
+            ("calibration.inlet_pressure_loss", self.inlet_pressure_loss),
+            ("calibration.exhaust_pressure_loss", self.exhaust_pressure_loss),
+            (
+                "calibration.combustor_pressure_loss",
+                self.combustor_pressure_loss,
+            ),
+            ("calibration.efficiency_gap", self.efficiency_gap),
+            ("calibration.cooling_per_kelvin", self.cooling_per_kelvin),
+        ];
+        for (field, v) in losses {
+            if !(0.0..0.5).contains(&v) {
+                return Err(DatasheetError::invalid(
+                    field,
+                    format!("{v} is outside [0, 0.5)"),
+                    "expected a fraction ≥ 0 and < 0.5",
+                ));
+            }
+        }
+        for (field, v) in [
+            (
+                "calibration.combustion_efficiency",
+                self.combustion_efficiency,
+            ),
+            (
+                "calibration.compressor_polytropic_efficiency",
+                self.compressor_polytropic_efficiency,
+            ),
+        ] {
+            if !(v > 0.5 && v <= 1.0) {
+                return Err(DatasheetError::invalid(
+                    field,
+                    format!("{v} is outside (0.5, 1]"),
+                    "expected an efficiency above 0.5 and at most 1",
+                ));
+            }
+        }
+        if !(self.cooling_onset_k.is_finite() && self.cooling_onset_k > 0.0) {
+            return Err(DatasheetError::invalid(
+                "calibration.cooling_onset_k",
+                format!("{} K is not a positive temperature", self.cooling_onset_k),
+                "expected a temperature > 0 K",
+            ));
+        }
+        Ok(())
+    }
+}
+
+/// Which two gas-path unknowns are fitted (beside ε).
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+enum Fit {
+    EfficiencyAndCooling,
+    EfficiencyAndFiring,
+    EfficiencyAndRatio,
+    RatioAndFiring,
+}
+
+impl Fit {
+    fn names(&self) -> [&'static str; 3] {
+        let [a, b] = match self {
+            Fit::EfficiencyAndCooling => ["compressor_polytropic_efficiency", "turbine_cooling"],
+            Fit::EfficiencyAndFiring => {
+                ["compressor_polytropic_efficiency", "firing_temperature_k"]
+            }
+            Fit::EfficiencyAndRatio => ["compressor_polytropic_efficiency", "pressure_ratio"],
+            Fit::RatioAndFiring => ["pressure_ratio", "firing_temperature_k"],
+        };
+        [a, b, "electro_mechanical_efficiency"]
+    }
+}
+
+/// One candidate engine in the fit.
+#[derive(Debug, Clone, Copy)]
+struct Engine {
+    eta_c: f64,
+    pressure_ratio: f64,
+    firing_k: f64,
+    cooling: f64,
+    electro_mechanical: f64,
+}
+
+/// How far the fitted engine is from the stated figures.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize)]
+pub struct Residuals {
+    /// Model heat rate over stated (LHV) − 1.
+    pub heat_rate_relative: f64,
+    /// Model exhaust temperature − stated, K.
+    pub exhaust_temperature_k: f64,
+    /// Model exhaust flow over stated − 1.
+    pub exhaust_flow_relative: f64,
+    /// Model net output over stated − 1 (sized by it: rounding only).
+    pub net_output_relative: f64,
+}
+
+/// A fitted engine: the design configuration that reproduces a datasheet.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Calibration {
+    /// The engine at the rating condition, polytropic efficiencies, sized
+    /// by the rated net output: what [`Machine::calibrate`] takes.
+    pub config: EngineConfig,
+    /// Turbine cooling fraction ([`cycle::Detail::turbine_cooling`]).
+    pub turbine_cooling: f64,
+    /// Compressor inlet air flow, kg/s.
+    pub air_flow_kg_per_s: f64,
+    /// The rating condition.
+    pub rating: Ambient,
+    /// The fuel.
+    pub fuel: Fuel,
+    /// Names of the fitted unknowns.
+    pub fitted: Vec<&'static str>,
+    /// Every assumption the fit rests on, in words.
+    pub assumptions: Vec<String>,
+    /// How closely the figures are reproduced.
+    pub residuals: Residuals,
+    /// The design solve of the fitted engine.
+    pub result: CycleResult,
+}
+
+impl Calibration {
+    /// Fitted compressor polytropic efficiency.
+    pub fn compressor_polytropic_efficiency(&self) -> f64 {
+        self.config.compressor_efficiency
+    }
+
+    /// Fitted turbine polytropic efficiency.
+    pub fn turbine_polytropic_efficiency(&self) -> f64 {
+        self.config.turbine_efficiency
+    }
+
+    /// Firing temperature, K.
+    pub fn firing_temperature_k(&self) -> f64 {
+        self.config.turbine_inlet_temperature_k
+    }
+
+    /// Compressor pressure ratio.
+    pub fn pressure_ratio(&self) -> f64 {
+        self.config.pressure_ratio
+    }
+
+    /// Fitted product of mechanical and generator efficiency.
+    pub fn electro_mechanical_efficiency(&self) -> f64 {
+        self.config.mechanical_efficiency * self.config.generator_efficiency
+    }
+
+    /// The fixed machine this calibration describes, under `control`.
+    pub fn machine(&self, control: Control) -> Result<Machine, OffDesignError> {
+        Machine::calibrate(
+            &self.config,
+            self.turbine_cooling,
+            self.rating,
+            control,
+            GasModel::Products,
+            &self.fuel,
+        )
+    }
+}
+
+/// Fit the engine to `sheet` under `options`.
+///
+/// Errors: an invalid datasheet (naming the figure); figures that cannot
+/// all be true ([`DatasheetError::Impossible`]: a negative energy balance,
+/// an exhaust colder than its pressure ratio allows, an air flow below what
+/// the output needs), each message naming the figures; no engine within
+/// bounds reproducing them ([`DatasheetError::NoFit`], naming the unknown
+/// that ran out).
+pub fn calibrate(
+    sheet: &Datasheet,
+    options: &CalibrationOptions,
+) -> Result<Calibration, DatasheetError> {
+    options.validate()?;
+    let balance = energy_balance(sheet)?;
+    if balance.status == BalanceStatus::Negative {
+        return Err(DatasheetError::Impossible(balance.describe()));
+    }
+    let fuel_air = balance.fuel_flow_kg_per_s / balance.air_flow_kg_per_s;
+    if let Some(message) = too_little_air(sheet, balance.air_flow_kg_per_s)? {
+        return Err(DatasheetError::Impossible(message));
+    }
+    if let Some(r) = sheet.pressure_ratio {
+        if let Some(message) = too_cold_for_ratio(sheet, r, fuel_air)? {
+            return Err(DatasheetError::Impossible(message));
+        }
+    }
+    let fit = match (sheet.pressure_ratio, sheet.firing_temperature_k) {
+        (Some(_), Some(_)) => Fit::EfficiencyAndCooling,
+        (Some(_), None) => Fit::EfficiencyAndFiring,
+        (None, Some(_)) => Fit::EfficiencyAndRatio,
+        (None, None) => Fit::RatioAndFiring,
+    };
+    let firing = sheet.firing_temperature_k.unwrap_or(1500.0);
+    let start = Engine {
+        eta_c: options.compressor_polytropic_efficiency,
+        pressure_ratio: sheet.pressure_ratio.unwrap_or(15.0),
+        firing_k: firing,
+        cooling: options.cooling_for(firing),
+        electro_mechanical: (sheet.net_output_kw
+            / (sheet.net_output_kw + balance.remainder_kw))
+            .clamp(0.5, 1.0),
+    };
+    let problem = Problem {
+        sheet,
+        options,
+        fit,
+        start,
+    };
+    let x = problem.newton()?;
+    let engine = problem.engine(&x);
+    let (result, residuals) = problem.evaluate(&engine).map_err(|source| DatasheetError::Cycle {
+        context: "fitted engine".into(),
+        source,
+    })?;
+    if !(residuals.heat_rate_relative.abs() <= HEAT_RATE_TOLERANCE
+        && residuals.exhaust_temperature_k.abs() <= EXHAUST_TEMPERATURE_TOLERANCE_K
+        && residuals.exhaust_flow_relative.abs() <= EXHAUST_FLOW_TOLERANCE)
+    {
+        return Err(DatasheetError::NoFit(format!(
+            "the best engine found misses the figures (heat rate {:+.3} %, exhaust temperature {:+.2} K, exhaust flow {:+.3} %)",
+            residuals.heat_rate_relative * 100.0,
+            residuals.exhaust_temperature_k,
+            residuals.exhaust_flow_relative * 100.0
+        )));
+    }
+    let air_flow = result.flows.map_or(f64::NAN, |f| f.air_flow_kg_per_s);
+    Ok(Calibration {
+        config: options.config(sheet, &engine),
+        turbine_cooling: engine.cooling,
+        air_flow_kg_per_s: air_flow,
+        rating: sheet.rating,
+        fuel: sheet.fuel.clone(),
+        fitted: fit.names().to_vec(),
+        assumptions: options.describe(fit),
+        residuals,
+        result,
+    })
+}
+
+/// The exhaust flow check: is the air flow enough for the output at the
+/// state-of-the-art specific work? A message naming the exhaust flow when
+/// not.
+pub(crate) fn too_little_air(
+    sheet: &Datasheet,
+    air_flow_kg_per_s: f64,
+) -> Result<Option<String>, DatasheetError> {
+    let w_max = maximum_specific_work(sheet)?;
+    let needed = sheet.net_output_kw / w_max;
+    Ok((air_flow_kg_per_s < needed).then(|| {
+        format!(
+            "rating.exhaust_flow {:.2} kg/s is below the air flow its output needs: {:.0} kW at the state-of-the-art limit of {w_max:.0} kJ per kg of air (firing 1 900 K, polytropic efficiencies 0.93 and 0.92, no losses) needs at least {needed:.2} kg/s of air, {:.2} kg/s of exhaust, where the figures leave {air_flow_kg_per_s:.2} kg/s",
+            sheet.exhaust_flow_kg_per_s,
+            sheet.net_output_kw,
+            needed + sheet.fuel_flow_kg_per_s()
+        )
+    }))
+}
+
+/// The exhaust temperature check against a stated pressure ratio: a
+/// message naming both when the exhaust is colder than ideal components
+/// would leave it at that ratio and fuel–air ratio.
+pub(crate) fn too_cold_for_ratio(
+    sheet: &Datasheet,
+    pressure_ratio: f64,
+    fuel_air_ratio: f64,
+) -> Result<Option<String>, DatasheetError> {
+    let Some(t_min) = minimum_exhaust_temperature_k(sheet, pressure_ratio, fuel_air_ratio) else {
+        return Ok(None);
+    };
+    let t = sheet.exhaust_temperature_k;
+    Ok((t < t_min - EXHAUST_TEMPERATURE_TOLERANCE_K).then(|| {
+        format!(
+            "rating.exhaust_temperature {t:.1} K is below what rating.pressure_ratio {pressure_ratio} allows: with the fuel the heat rate burns, even an ideal compressor and turbine (no losses) leave the exhaust at {t_min:.1} K; the exhaust temperature would have to rise by at least {:.1} K, or the pressure ratio be higher",
+            t_min - t
+        )
+    }))
+}
+
+/// The fit as a problem in three unknowns.
+struct Problem<'a> {
+    sheet: &'a Datasheet,
+    options: &'a CalibrationOptions,
+    fit: Fit,
+    start: Engine,
+}
+
+/// Lower and upper bounds of each unknown.
+const ETA_BOUNDS: (f64, f64) = (0.6, 0.999);
+const RATIO_BOUNDS: (f64, f64) = (2.0, 80.0);
+const COOLING_BOUNDS: (f64, f64) = (0.0, 0.45);
+const EPSILON_BOUNDS: (f64, f64) = (0.5, 1.0);
+const FIRING_MAX_K: f64 = 2600.0;
+
+impl Problem<'_> {
+    fn x0(&self) -> [f64; 3] {
+        let s = &self.start;
+        let [a, b] = match self.fit {
+            Fit::EfficiencyAndCooling => [s.eta_c, s.cooling],
+            Fit::EfficiencyAndFiring => [s.eta_c, s.firing_k],
+            Fit::EfficiencyAndRatio => [s.eta_c, s.pressure_ratio],
+            Fit::RatioAndFiring => [s.pressure_ratio, s.firing_k],
+        };
+        [a, b, s.electro_mechanical]
+    }
+
+    fn bounds(&self) -> [(f64, f64); 3] {
+        let eta_high = ETA_BOUNDS.1.min(1.0 + self.options.efficiency_gap - 1e-3);
+        let eta = (ETA_BOUNDS.0, eta_high);
+        let firing = (self.sheet.exhaust_temperature_k + 1.0, FIRING_MAX_K);
+        let [a, b] = match self.fit {
+            Fit::EfficiencyAndCooling => [eta, COOLING_BOUNDS],
+            Fit::EfficiencyAndFiring => [eta, firing],
+            Fit::EfficiencyAndRatio => [eta, RATIO_BOUNDS],
+            Fit::RatioAndFiring => [RATIO_BOUNDS, firing],
+        };
+        [a, b, EPSILON_BOUNDS]
+    }
+
+    fn engine(&self, x: &[f64; 3]) -> Engine {
+        let mut e = self.start;
+        match self.fit {
+            Fit::EfficiencyAndCooling => {
+                e.eta_c = x[0];
+                e.cooling = x[1];
+            }
+            Fit::EfficiencyAndFiring => {
+                e.eta_c = x[0];
+                e.firing_k = x[1];
+                e.cooling = self.options.cooling_for(x[1]);
+            }
+            Fit::EfficiencyAndRatio => {
+                e.eta_c = x[0];
+                e.pressure_ratio = x[1];
+            }
+            Fit::RatioAndFiring => {
+                e.pressure_ratio = x[0];
+                e.firing_k = x[1];
+                e.cooling = self.options.cooling_for(x[1]);
+            }
+        }
+        e.electro_mechanical = x[2];
+        e
+    }
+
+    fn evaluate(&self, e: &Engine) -> Result<(CycleResult, Residuals), cycle::CycleError> {
+        let config = self.options.config(self.sheet, e);
+        let detail = cycle::Detail {
+            turbine_cooling: e.cooling,
+            relative_humidity: self.sheet.rating.relative_humidity,
+        };
+        let result = cycle::solve_detailed(&config, &detail, &GasModel::Products, &self.sheet.fuel)?;
+        let flows = result
+            .flows
+            .ok_or(cycle::CycleError::NoConvergence {
+                last_change: f64::NAN,
+            })?;
+        let residuals = Residuals {
+            heat_rate_relative: result.heat_rate_kj_per_kwh / self.sheet.heat_rate_lhv_kj_per_kwh()
+                - 1.0,
+            exhaust_temperature_k: result.exhaust_temperature_k - self.sheet.exhaust_temperature_k,
+            exhaust_flow_relative: flows.exhaust_flow_kg_per_s / self.sheet.exhaust_flow_kg_per_s
+                - 1.0,
+            net_output_relative: flows.net_output_kw / self.sheet.net_output_kw - 1.0,
+        };
+        Ok((result, residuals))
+    }
+
+    /// The three conditions at `x`, each relative.
+    fn residual(&self, x: &[f64; 3]) -> Option<[f64; 3]> {
+        let (_, r) = self.evaluate(&self.engine(x)).ok()?;
+        Some([
+            r.heat_rate_relative,
+            r.exhaust_temperature_k / self.sheet.exhaust_temperature_k,
+            r.exhaust_flow_relative,
+        ])
+    }
+
+    fn newton(&self) -> Result<[f64; 3], DatasheetError> {
+        let bounds = self.bounds();
+        let clamp = |x: [f64; 3]| {
+            let mut y = x;
+            for (v, (lo, hi)) in y.iter_mut().zip(bounds) {
+                *v = v.clamp(lo, hi);
+            }
+            y
+        };
+        let norm = |r: &[f64; 3]| r.iter().map(|v| v * v).sum::<f64>().sqrt();
+        let mut x = clamp(self.x0());
+        let mut r = self.residual(&x).ok_or_else(|| {
+            DatasheetError::NoFit(
+                "the starting engine does not solve; the figures are far from any simple-cycle gas turbine".into(),
+            )
+        })?;
+        for _ in 0..60 {
+            if r.iter().all(|v| v.abs() <= 1e-9) {
+                return Ok(x);
+            }
+            let mut jacobian = [[0.0; 3]; 3];
+            for j in 0..3 {
+                let (lo, hi) = bounds[j];
+                let mut h = 1e-6 * x[j].abs().max(1e-3);
+                if x[j] + h > hi {
+                    h = -h;
+                }
+                let mut xh = x;
+                xh[j] = (x[j] + h).max(lo);
+                let rh = self.residual(&xh).ok_or_else(|| self.stuck(&x))?;
+                for i in 0..3 {
+                    jacobian[i][j] = (rh[i] - r[i]) / h;
+                }
+            }
+            let Some(step) = solve3(jacobian, [-r[0], -r[1], -r[2]]) else {
+                return Err(self.stuck(&x));
+            };
+            let mut lambda = 1.0;
+            let mut accepted = None;
+            for _ in 0..30 {
+                let trial = clamp([
+                    x[0] + lambda * step[0],
+                    x[1] + lambda * step[1],
+                    x[2] + lambda * step[2],
+                ]);
+                if let Some(rt) = self.residual(&trial) {
+                    if norm(&rt) < norm(&r) {
+                        accepted = Some((trial, rt));
+                        break;
+                    }
+                }
+                lambda *= 0.5;
+            }
+            match accepted {
+                Some((xt, rt)) => {
+                    x = xt;
+                    r = rt;
+                }
+                None => return Err(self.stuck(&x)),
+            }
+        }
+        if r.iter().all(|v| v.abs() <= 1e-7) {
+            Ok(x)
+        } else {
+            Err(self.stuck(&x))
+        }
+    }
+
+    /// The failure message: which unknown sits at its bound, if one.
+    fn stuck(&self, x: &[f64; 3]) -> DatasheetError {
+        let names = self.fit.names();
+        let at_bound: Vec<String> = x
+            .iter()
+            .zip(self.bounds())
+            .zip(names)
+            .filter(|((v, (lo, hi)), _)| {
+                (**v - lo).abs() <= 1e-9 * lo.abs().max(1.0) || (**v - hi).abs() <= 1e-9 * hi.abs()
+            })
+            .map(|((v, (lo, _)), name)| {
+                let side = if (*v - lo).abs() <= 1e-9 * lo.abs().max(1.0) {
+                    "below"
+                } else {
+                    "above"
+                };
+                format!("{name} would have to go {side} {v:.4}")
+            })
+            .collect();
+        let why = if at_bound.is_empty() {
+            "the iteration found no engine that reproduces rating.heat_rate, rating.exhaust_temperature and rating.exhaust_flow together".to_string()
+        } else {
+            format!(
+                "no simple-cycle engine reproduces rating.heat_rate, rating.exhaust_temperature and rating.exhaust_flow together: {}",
+                at_bound.join(", ")
+            )
+        };
+        DatasheetError::NoFit(why)
+    }
+}
+
+/// Solve the 3 × 3 system `a x = b` by Gaussian elimination with partial
+/// pivoting; `None` when singular.
+fn solve3(mut a: [[f64; 3]; 3], mut b: [f64; 3]) -> Option<[f64; 3]> {
+    for k in 0..3 {
+        let p = (k..3).max_by(|&i, &j| a[i][k].abs().total_cmp(&a[j][k].abs()))?;
+        if !(a[p][k].abs() > 0.0) || !a[p][k].is_finite() {
+            return None;
+        }
+        a.swap(k, p);
+        b.swap(k, p);
+        for i in k + 1..3 {
+            let m = a[i][k] / a[k][k];
+            for j in k..3 {
+                a[i][j] -= m * a[k][j];
+            }
+            b[i] -= m * b[k];
+        }
+    }
+    let mut x = [0.0; 3];
+    for k in (0..3).rev() {
+        let s: f64 = (k + 1..3).map(|j| a[k][j] * x[j]).sum();
+        x[k] = (b[k] - s) / a[k][k];
+    }
+    x.iter().all(|v| v.is_finite()).then_some(x)
+}

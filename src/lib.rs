@@ -13,9 +13,17 @@ pub mod datasheet;
 pub mod error;
 pub mod finance;
 pub mod fuel;
+// Until the off-design branch's own clippy fixes to these two modules land
+// (they are being finished elsewhere and are not edited here); remove on
+// merge.
+#[allow(
+    clippy::neg_cmp_op_on_partial_ord,
+    clippy::unnecessary_lazy_evaluations
+)]
 pub mod offdesign;
 pub mod report;
 pub mod scenario;
+#[allow(clippy::neg_cmp_op_on_partial_ord)]
 pub mod thermo;
 pub mod units;
 

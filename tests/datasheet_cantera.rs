@@ -10,8 +10,8 @@ use brayfin::datasheet::calibrate::{
     EXHAUST_FLOW_TOLERANCE, EXHAUST_TEMPERATURE_TOLERANCE_K, HEAT_RATE_TOLERANCE,
 };
 use brayfin::datasheet::{
-    assess, calibrate, energy_balance, CalibrationOptions, ComponentData, Datasheet,
-    HeatRateBasis, Verdict,
+    assess, calibrate, energy_balance, CalibrationOptions, ComponentData, Datasheet, HeatRateBasis,
+    Verdict,
 };
 use brayfin::fuel::Fuel;
 use brayfin::offdesign::Ambient;
@@ -28,7 +28,9 @@ const RATIO_TOL: f64 = 1e-5;
 const COOLING_TOL: f64 = 1e-5;
 
 fn num(v: &Value, key: &str) -> f64 {
-    v[key].as_f64().unwrap_or_else(|| panic!("fixture lacks {key}"))
+    v[key]
+        .as_f64()
+        .unwrap_or_else(|| panic!("fixture lacks {key}"))
 }
 
 fn fixture() -> Value {
@@ -84,13 +86,25 @@ fn cantera_datasheets_are_reproduced_and_their_engines_recovered() {
         let d = &case["datasheet"];
         let sheet = case_sheet(case);
         let lhv = sheet.fuel.lhv_kj_per_kg();
-        assert!((lhv / num(d, "lhv_kj_per_kg") - 1.0).abs() < 1e-4, "{name}: LHV {lhv}");
+        assert!(
+            (lhv / num(d, "lhv_kj_per_kg") - 1.0).abs() < 1e-4,
+            "{name}: LHV {lhv}"
+        );
         let c = calibrate(&sheet, &CalibrationOptions::default())
             .unwrap_or_else(|err| panic!("{name}: {err}"));
         let r = c.residuals;
-        assert!(r.heat_rate_relative.abs() <= HEAT_RATE_TOLERANCE, "{name}: {r:?}");
-        assert!(r.exhaust_temperature_k.abs() <= EXHAUST_TEMPERATURE_TOLERANCE_K, "{name}: {r:?}");
-        assert!(r.exhaust_flow_relative.abs() <= EXHAUST_FLOW_TOLERANCE, "{name}: {r:?}");
+        assert!(
+            r.heat_rate_relative.abs() <= HEAT_RATE_TOLERANCE,
+            "{name}: {r:?}"
+        );
+        assert!(
+            r.exhaust_temperature_k.abs() <= EXHAUST_TEMPERATURE_TOLERANCE_K,
+            "{name}: {r:?}"
+        );
+        assert!(
+            r.exhaust_flow_relative.abs() <= EXHAUST_FLOW_TOLERANCE,
+            "{name}: {r:?}"
+        );
         assert!(r.net_output_relative.abs() <= 1e-12, "{name}: {r:?}");
         let report = format!(
             "{name}: η_c {:.8} T3 {:.5} r {:.7} c {:.8} ε {:.8} air {:.5}",
@@ -101,12 +115,34 @@ fn cantera_datasheets_are_reproduced_and_their_engines_recovered() {
             c.electro_mechanical_efficiency(),
             c.air_flow_kg_per_s
         );
-        assert!((c.compressor_polytropic_efficiency() - num(e, "compressor_polytropic_efficiency")).abs() <= ETA_TOL, "{report}");
-        assert!((c.electro_mechanical_efficiency() - num(e, "electro_mechanical_efficiency")).abs() <= ETA_TOL, "{report}");
-        assert!((c.firing_temperature_k() - num(e, "firing_temperature_k")).abs() <= FIRING_TOL_K, "{report}");
-        assert!((c.pressure_ratio() / num(e, "pressure_ratio") - 1.0).abs() <= RATIO_TOL, "{report}");
-        assert!((c.turbine_cooling - num(e, "turbine_cooling")).abs() <= COOLING_TOL, "{report}");
-        assert!((c.air_flow_kg_per_s / num(d, "air_flow_kg_per_s") - 1.0).abs() <= EXHAUST_FLOW_TOLERANCE, "{report}");
+        assert!(
+            (c.compressor_polytropic_efficiency() - num(e, "compressor_polytropic_efficiency"))
+                .abs()
+                <= ETA_TOL,
+            "{report}"
+        );
+        assert!(
+            (c.electro_mechanical_efficiency() - num(e, "electro_mechanical_efficiency")).abs()
+                <= ETA_TOL,
+            "{report}"
+        );
+        assert!(
+            (c.firing_temperature_k() - num(e, "firing_temperature_k")).abs() <= FIRING_TOL_K,
+            "{report}"
+        );
+        assert!(
+            (c.pressure_ratio() / num(e, "pressure_ratio") - 1.0).abs() <= RATIO_TOL,
+            "{report}"
+        );
+        assert!(
+            (c.turbine_cooling - num(e, "turbine_cooling")).abs() <= COOLING_TOL,
+            "{report}"
+        );
+        assert!(
+            (c.air_flow_kg_per_s / num(d, "air_flow_kg_per_s") - 1.0).abs()
+                <= EXHAUST_FLOW_TOLERANCE,
+            "{report}"
+        );
     }
 }
 
@@ -119,7 +155,11 @@ fn energy_balance_agrees_with_cantera() {
         let name = case["name"].as_str().unwrap();
         let b = energy_balance(&case_sheet(case)).unwrap();
         let expected = num(&case["datasheet"], "remainder_fraction");
-        assert!((b.remainder_fraction - expected).abs() < 1e-6, "{name}: {} vs {expected}", b.remainder_fraction);
+        assert!(
+            (b.remainder_fraction - expected).abs() < 1e-6,
+            "{name}: {} vs {expected}",
+            b.remainder_fraction
+        );
     }
 }
 
@@ -128,7 +168,17 @@ fn energy_balance_agrees_with_cantera() {
 fn cantera_engines_within_practice_are_plausible() {
     for case in fixture()["cases"].as_array().unwrap() {
         let name = case["name"].as_str().unwrap();
-        let a = assess(&case_sheet(case), &ComponentData::default(), &CalibrationOptions::default()).unwrap();
-        assert_eq!(a.implied.verdict, Verdict::Plausible, "{name}: {:?}", a.implied.reasons);
+        let a = assess(
+            &case_sheet(case),
+            &ComponentData::default(),
+            &CalibrationOptions::default(),
+        )
+        .unwrap();
+        assert_eq!(
+            a.implied.verdict,
+            Verdict::Plausible,
+            "{name}: {:?}",
+            a.implied.reasons
+        );
     }
 }

@@ -5,8 +5,8 @@
 mod datasheet_support;
 
 use brayfin::datasheet::{
-    assess, calibrate, energy_balance, BalanceStatus, CalibrationOptions, ComponentData,
-    Datasheet, DatasheetError, Figure, HeatRateBasis, Verdict,
+    assess, calibrate, energy_balance, BalanceStatus, CalibrationOptions, ComponentData, Datasheet,
+    DatasheetError, Figure, HeatRateBasis, Verdict,
 };
 use brayfin::fuel::Fuel;
 use brayfin::offdesign::Ambient;
@@ -74,12 +74,24 @@ fn energy_balance_worked_by_hand() {
     assert!((b.fuel_energy_kw - q).abs() < 1e-6);
     // Fuel flow: the library's LHV from GRI-Mech 3.0 data agrees with NIST
     // to about 0.02 %.
-    assert!((b.fuel_flow_kg_per_s / m_fuel - 1.0).abs() < 5e-4, "{} vs {m_fuel}", b.fuel_flow_kg_per_s);
+    assert!(
+        (b.fuel_flow_kg_per_s / m_fuel - 1.0).abs() < 5e-4,
+        "{} vs {m_fuel}",
+        b.fuel_flow_kg_per_s
+    );
     // Exhaust energy: NASA polynomials agree with JANAF to about 0.1 % in
     // enthalpy differences (REFERENCES.md); allow 0.2 %.
-    assert!((b.exhaust_energy_kw / exhaust_kw - 1.0).abs() < 2e-3, "{} vs {exhaust_kw}", b.exhaust_energy_kw);
+    assert!(
+        (b.exhaust_energy_kw / exhaust_kw - 1.0).abs() < 2e-3,
+        "{} vs {exhaust_kw}",
+        b.exhaust_energy_kw
+    );
     // So the remainder agrees to 0.2 % of 62 % of Q: about 0.12 points.
-    assert!((b.remainder_fraction - fraction).abs() < 1.5e-3, "{} vs {fraction}", b.remainder_fraction);
+    assert!(
+        (b.remainder_fraction - fraction).abs() < 1.5e-3,
+        "{} vs {fraction}",
+        b.remainder_fraction
+    );
     assert!((b.remainder_kw - (b.fuel_energy_kw - 100_000.0 - b.exhaust_energy_kw)).abs() < 1e-6);
     // By hand: about 2.2 % of fuel energy, inside 0.5–4 %.
     assert!(fraction > 0.015 && fraction < 0.03, "{fraction}");
@@ -96,7 +108,11 @@ fn remainder_of_a_solved_engine_is_its_electro_mechanical_loss() {
     let sheet = plausible_sheet();
     let b = energy_balance(&sheet).unwrap();
     let loss = sheet.net_output_kw * (1.0 / known.electro_mechanical - 1.0);
-    assert!((b.remainder_kw / loss - 1.0).abs() < 1e-6, "{} vs {loss}", b.remainder_kw);
+    assert!(
+        (b.remainder_kw / loss - 1.0).abs() < 1e-6,
+        "{} vs {loss}",
+        b.remainder_kw
+    );
 }
 
 #[test]
@@ -114,11 +130,24 @@ fn hhv_heat_rate_gives_the_same_balance() {
 
 #[test]
 fn a_class_engine_within_the_state_of_the_art_is_plausible() {
-    let a = assess(&plausible_sheet(), &ComponentData::default(), &CalibrationOptions::default()).unwrap();
-    assert_eq!(a.implied.verdict, Verdict::Plausible, "{:?}", a.implied.reasons);
+    let a = assess(
+        &plausible_sheet(),
+        &ComponentData::default(),
+        &CalibrationOptions::default(),
+    )
+    .unwrap();
+    assert_eq!(
+        a.implied.verdict,
+        Verdict::Plausible,
+        "{:?}",
+        a.implied.reasons
+    );
     let f = f_class();
     assert!((a.implied.firing_temperature_k.unwrap() - f.firing_k).abs() < 0.5);
-    assert!((a.implied.compressor_polytropic_efficiency.unwrap() - f.compressor_polytropic).abs() < 2e-4);
+    assert!(
+        (a.implied.compressor_polytropic_efficiency.unwrap() - f.compressor_polytropic).abs()
+            < 2e-4
+    );
     assert!(a.disagreements.is_empty());
 }
 
@@ -135,34 +164,71 @@ fn heat_rate_fifteen_percent_too_low_is_impossible() {
     let b = energy_balance(&bad).unwrap();
     assert_eq!(b.status, BalanceStatus::Negative);
     let text = b.describe();
-    for key in ["rating.heat_rate", "heat rate up by", "exhaust temperature down by", "exhaust flow down by"] {
+    for key in [
+        "rating.heat_rate",
+        "heat rate (rating.heat_rate) up by",
+        "exhaust temperature (rating.exhaust_temperature) down by",
+        "exhaust flow (rating.exhaust_flow) down by",
+    ] {
         assert!(text.contains(key), "{text}");
     }
     assert_eq!(b.closures.len(), 3, "{text}");
     for c in &b.closures {
         let moved = match c.figure {
-            Figure::HeatRate => Datasheet { heat_rate_kj_per_kwh: c.needed, ..bad.clone() },
-            Figure::ExhaustTemperature => Datasheet { exhaust_temperature_k: c.needed, ..bad.clone() },
-            Figure::ExhaustFlow => Datasheet { exhaust_flow_kg_per_s: c.needed, ..bad.clone() },
+            Figure::HeatRate => Datasheet {
+                heat_rate_kj_per_kwh: c.needed,
+                ..bad.clone()
+            },
+            Figure::ExhaustTemperature => Datasheet {
+                exhaust_temperature_k: c.needed,
+                ..bad.clone()
+            },
+            Figure::ExhaustFlow => Datasheet {
+                exhaust_flow_kg_per_s: c.needed,
+                ..bad.clone()
+            },
         };
         let closed = energy_balance(&moved).unwrap();
-        assert!(closed.remainder_fraction.abs() < 1e-8, "{:?}: {}", c.figure, closed.remainder_fraction);
+        assert!(
+            closed.remainder_fraction.abs() < 1e-8,
+            "{:?}: {}",
+            c.figure,
+            closed.remainder_fraction
+        );
     }
     // The heat rate must rise by about what was taken off less the
     // original remainder: 1/0.85 − 1 = 17.6 %, less about 1 %.
-    let hr = b.closures.iter().find(|c| c.figure == Figure::HeatRate).unwrap();
+    let hr = b
+        .closures
+        .iter()
+        .find(|c| c.figure == Figure::HeatRate)
+        .unwrap();
     let up = hr.needed / hr.stated - 1.0;
     assert!(up > 0.15 && up < 0.176, "{up}");
 
     match calibrate(&bad, &CalibrationOptions::default()) {
-        Err(DatasheetError::Impossible(m)) => assert!(m.contains("heat rate up by"), "{m}"),
+        Err(DatasheetError::Impossible(m)) => {
+            assert!(m.contains("heat rate (rating.heat_rate) up by"), "{m}")
+        }
         other => panic!("expected a refusal, got {other:?}"),
     }
-    let a = assess(&bad, &ComponentData::default(), &CalibrationOptions::default()).unwrap();
+    let a = assess(
+        &bad,
+        &ComponentData::default(),
+        &CalibrationOptions::default(),
+    )
+    .unwrap();
     assert_eq!(a.implied.verdict, Verdict::Impossible);
     assert!(a.calibration.is_none());
     assert!(a.implied.loss_remainder_fraction < 0.0);
-    assert!(a.implied.reasons.iter().any(|r| r.contains("rating.heat_rate")), "{:?}", a.implied.reasons);
+    assert!(
+        a.implied
+            .reasons
+            .iter()
+            .any(|r| r.contains("rating.heat_rate")),
+        "{:?}",
+        a.implied.reasons
+    );
 }
 
 /// An exhaust flow below the air flow its output needs: 250 MW cannot come
@@ -176,13 +242,29 @@ fn exhaust_flow_below_the_air_its_output_needs_is_impossible() {
     };
     match calibrate(&bad, &CalibrationOptions::default()) {
         Err(DatasheetError::Impossible(m)) => {
-            assert!(m.contains("rating.exhaust_flow") && m.contains("below the air flow its output needs"), "{m}")
+            assert!(
+                m.contains("rating.exhaust_flow")
+                    && m.contains("below the air flow its output needs"),
+                "{m}"
+            )
         }
         other => panic!("expected a refusal, got {other:?}"),
     }
-    let a = assess(&bad, &ComponentData::default(), &CalibrationOptions::default()).unwrap();
+    let a = assess(
+        &bad,
+        &ComponentData::default(),
+        &CalibrationOptions::default(),
+    )
+    .unwrap();
     assert_eq!(a.implied.verdict, Verdict::Impossible);
-    assert!(a.implied.reasons.iter().any(|r| r.contains("below the air flow its output needs")), "{:?}", a.implied.reasons);
+    assert!(
+        a.implied
+            .reasons
+            .iter()
+            .any(|r| r.contains("below the air flow its output needs")),
+        "{:?}",
+        a.implied.reasons
+    );
 }
 
 /// An exhaust colder than the stated pressure ratio allows: an F-class
@@ -197,7 +279,10 @@ fn exhaust_below_what_its_pressure_ratio_allows_is_impossible() {
         firing_temperature_k: None,
         ..plausible_sheet()
     };
-    assert_eq!(energy_balance(&bad).unwrap().status, BalanceStatus::Plausible);
+    assert_eq!(
+        energy_balance(&bad).unwrap().status,
+        BalanceStatus::Plausible
+    );
     match calibrate(&bad, &CalibrationOptions::default()) {
         Err(DatasheetError::Impossible(m)) => assert!(
             m.contains("rating.exhaust_temperature") && m.contains("rating.pressure_ratio 6"),
@@ -205,7 +290,12 @@ fn exhaust_below_what_its_pressure_ratio_allows_is_impossible() {
         ),
         other => panic!("expected a refusal, got {other:?}"),
     }
-    let a = assess(&bad, &ComponentData::default(), &CalibrationOptions::default()).unwrap();
+    let a = assess(
+        &bad,
+        &ComponentData::default(),
+        &CalibrationOptions::default(),
+    )
+    .unwrap();
     assert_eq!(a.implied.verdict, Verdict::Impossible);
 }
 
@@ -221,10 +311,24 @@ fn beyond_the_state_of_the_art_is_optimistic() {
         ..f_class()
     };
     let sheet = datasheet_of(&known, &Fuel::methane(), true, false);
-    let a = assess(&sheet, &ComponentData::default(), &CalibrationOptions::default()).unwrap();
-    assert_eq!(a.implied.verdict, Verdict::Optimistic, "{:?}", a.implied.reasons);
+    let a = assess(
+        &sheet,
+        &ComponentData::default(),
+        &CalibrationOptions::default(),
+    )
+    .unwrap();
+    assert_eq!(
+        a.implied.verdict,
+        Verdict::Optimistic,
+        "{:?}",
+        a.implied.reasons
+    );
     let reasons = a.implied.reasons.join("\n");
-    for key in ["compressor polytropic efficiency of 0.95", "above the state of the art 0.93", "firing temperature of 1950 K"] {
+    for key in [
+        "compressor polytropic efficiency of 0.95",
+        "above the state of the art 0.93",
+        "firing temperature of 1950 K",
+    ] {
         assert!(reasons.contains(key), "{reasons}");
     }
 }
@@ -239,10 +343,19 @@ fn too_little_loss_is_optimistic() {
         ..f_class()
     };
     let sheet = datasheet_of(&known, &Fuel::methane(), true, true);
-    let a = assess(&sheet, &ComponentData::default(), &CalibrationOptions::default()).unwrap();
+    let a = assess(
+        &sheet,
+        &ComponentData::default(),
+        &CalibrationOptions::default(),
+    )
+    .unwrap();
     assert_eq!(a.balance.status, BalanceStatus::TooLittleLoss);
     assert_eq!(a.implied.verdict, Verdict::Optimistic);
-    assert!(a.implied.reasons[0].contains("to reach 0.5 %"), "{:?}", a.implied.reasons);
+    assert!(
+        a.implied.reasons[0].contains("to reach 0.5 %"),
+        "{:?}",
+        a.implied.reasons
+    );
 }
 
 /// A candidate that states a firing temperature of 1 500 K beside a rating
@@ -263,32 +376,97 @@ fn component_data_that_disagree_are_reported_with_both_values() {
     assert_eq!(d.stated, 1500.0);
     assert!((d.implied - 1700.0).abs() < 0.5);
     let text = d.describe();
-    assert!(text.contains("1500.0000") && text.contains("1700.0"), "{text}");
+    assert!(
+        text.contains("1500.0000") && text.contains("1700.0"),
+        "{text}"
+    );
 }
 
 #[test]
 fn bad_figures_are_refused_naming_the_figure() {
     let good = plausible_sheet();
     let cases: Vec<(Datasheet, &str)> = vec![
-        (Datasheet { heat_rate_kj_per_kwh: 3000.0, ..good.clone() }, "rating.heat_rate"),
-        (Datasheet { heat_rate_kj_per_kwh: f64::NAN, ..good.clone() }, "rating.heat_rate"),
-        (Datasheet { net_output_kw: -1.0, ..good.clone() }, "net_output"),
-        (Datasheet { exhaust_flow_kg_per_s: 0.0, ..good.clone() }, "rating.exhaust_flow"),
-        (Datasheet { exhaust_flow_kg_per_s: 5.0, ..good.clone() }, "rating.exhaust_flow"),
-        (Datasheet { exhaust_temperature_k: 280.0, ..good.clone() }, "rating.exhaust_temperature"),
-        (Datasheet { pressure_ratio: Some(0.9), ..good.clone() }, "rating.pressure_ratio"),
-        (Datasheet { firing_temperature_k: Some(700.0), ..good.clone() }, "rating.firing_temperature"),
         (
-            Datasheet { rating: Ambient { relative_humidity: 1.5, ..good.rating }, ..good.clone() },
+            Datasheet {
+                heat_rate_kj_per_kwh: 3000.0,
+                ..good.clone()
+            },
+            "rating.heat_rate",
+        ),
+        (
+            Datasheet {
+                heat_rate_kj_per_kwh: f64::NAN,
+                ..good.clone()
+            },
+            "rating.heat_rate",
+        ),
+        (
+            Datasheet {
+                net_output_kw: -1.0,
+                ..good.clone()
+            },
+            "net_output",
+        ),
+        (
+            Datasheet {
+                exhaust_flow_kg_per_s: 0.0,
+                ..good.clone()
+            },
+            "rating.exhaust_flow",
+        ),
+        (
+            Datasheet {
+                exhaust_flow_kg_per_s: 5.0,
+                ..good.clone()
+            },
+            "rating.exhaust_flow",
+        ),
+        (
+            Datasheet {
+                exhaust_temperature_k: 280.0,
+                ..good.clone()
+            },
+            "rating.exhaust_temperature",
+        ),
+        (
+            Datasheet {
+                pressure_ratio: Some(0.9),
+                ..good.clone()
+            },
+            "rating.pressure_ratio",
+        ),
+        (
+            Datasheet {
+                firing_temperature_k: Some(700.0),
+                ..good.clone()
+            },
+            "rating.firing_temperature",
+        ),
+        (
+            Datasheet {
+                rating: Ambient {
+                    relative_humidity: 1.5,
+                    ..good.rating
+                },
+                ..good.clone()
+            },
             "rating.relative_humidity",
         ),
         (
-            Datasheet { fuel: Fuel::from_heating_values(47_000.0, 52_000.0, 56.1).unwrap(), ..good.clone() },
+            Datasheet {
+                fuel: Fuel::from_heating_values(47_000.0, 52_000.0, 56.1).unwrap(),
+                ..good.clone()
+            },
             "fuel",
         ),
     ];
     for (sheet, field) in cases {
-        let e = assess(&sheet, &ComponentData::default(), &CalibrationOptions::default()).unwrap_err();
+        let e = assess(
+            &sheet,
+            &ComponentData::default(),
+            &CalibrationOptions::default(),
+        )
+        .unwrap_err();
         assert_eq!(e.field(), Some(field), "{e}");
         assert!(e.is_input_error());
         let e = calibrate(&sheet, &CalibrationOptions::default()).unwrap_err();

@@ -35,7 +35,8 @@ const COOLING_TOL: f64 = 5e-4;
 
 fn draw(rng: &mut ChaCha8Rng, case: usize) -> (Known, bool, bool) {
     let options = CalibrationOptions::default();
-    let (state_ratio, state_firing) = [(true, true), (true, false), (false, true), (false, false)][case % 4];
+    let (state_ratio, state_firing) =
+        [(true, true), (true, false), (false, true), (false, false)][case % 4];
     let firing_k = rng.gen_range(1400.0..1850.0);
     let eta = if state_ratio || state_firing {
         rng.gen_range(0.87..0.93)
@@ -68,7 +69,14 @@ fn forty_random_engines_are_recovered_from_their_datasheets() {
     let mut rng = ChaCha8Rng::seed_from_u64(11);
     let fuels = [
         Fuel::methane(),
-        Fuel::from_composition(&[("CH4", 0.93), ("C2H6", 0.04), ("C3H8", 0.01), ("N2", 0.01), ("CO2", 0.01)]).unwrap(),
+        Fuel::from_composition(&[
+            ("CH4", 0.93),
+            ("C2H6", 0.04),
+            ("C3H8", 0.01),
+            ("N2", 0.01),
+            ("CO2", 0.01),
+        ])
+        .unwrap(),
     ];
     let mut done = 0;
     for case in 0..40 {
@@ -80,23 +88,63 @@ fn forty_random_engines_are_recovered_from_their_datasheets() {
         let r = c.residuals;
         let what = format!("case {case} {known:?} → {r:?}");
         assert!(r.heat_rate_relative.abs() <= HEAT_RATE_TOLERANCE, "{what}");
-        assert!(r.exhaust_temperature_k.abs() <= EXHAUST_TEMPERATURE_TOLERANCE_K, "{what}");
-        assert!(r.exhaust_flow_relative.abs() <= EXHAUST_FLOW_TOLERANCE, "{what}");
+        assert!(
+            r.exhaust_temperature_k.abs() <= EXHAUST_TEMPERATURE_TOLERANCE_K,
+            "{what}"
+        );
+        assert!(
+            r.exhaust_flow_relative.abs() <= EXHAUST_FLOW_TOLERANCE,
+            "{what}"
+        );
         assert!(r.net_output_relative.abs() <= 1e-12, "{what}");
-        assert!((c.compressor_polytropic_efficiency() - known.compressor_polytropic).abs() <= ETA_TOL, "{what}: η_c {}", c.compressor_polytropic_efficiency());
-        assert!((c.firing_temperature_k() - known.firing_k).abs() <= FIRING_TOL_K, "{what}: T3 {}", c.firing_temperature_k());
-        assert!((c.pressure_ratio() / known.pressure_ratio - 1.0).abs() <= RATIO_TOL, "{what}: r {}", c.pressure_ratio());
-        assert!((c.turbine_cooling - known.cooling).abs() <= COOLING_TOL, "{what}: c {}", c.turbine_cooling);
-        assert!((c.electro_mechanical_efficiency() - known.electro_mechanical).abs() <= ETA_TOL, "{what}");
+        assert!(
+            (c.compressor_polytropic_efficiency() - known.compressor_polytropic).abs() <= ETA_TOL,
+            "{what}: η_c {}",
+            c.compressor_polytropic_efficiency()
+        );
+        assert!(
+            (c.firing_temperature_k() - known.firing_k).abs() <= FIRING_TOL_K,
+            "{what}: T3 {}",
+            c.firing_temperature_k()
+        );
+        assert!(
+            (c.pressure_ratio() / known.pressure_ratio - 1.0).abs() <= RATIO_TOL,
+            "{what}: r {}",
+            c.pressure_ratio()
+        );
+        assert!(
+            (c.turbine_cooling - known.cooling).abs() <= COOLING_TOL,
+            "{what}: c {}",
+            c.turbine_cooling
+        );
+        assert!(
+            (c.electro_mechanical_efficiency() - known.electro_mechanical).abs() <= ETA_TOL,
+            "{what}"
+        );
         assert!(!c.assumptions.is_empty());
         // The fitted engine is a fixed machine whose rating point states
         // the datasheet's figures.
         let machine = c.machine(Control::default()).unwrap();
         let p = machine.solve(sheet.rating, Load::BASE).unwrap();
-        assert!((p.heat_rate_kj_per_kwh / sheet.heat_rate_kj_per_kwh - 1.0).abs() <= HEAT_RATE_TOLERANCE, "{what}");
-        assert!((p.exhaust_temperature_k - sheet.exhaust_temperature_k).abs() <= EXHAUST_TEMPERATURE_TOLERANCE_K, "{what}");
-        assert!((p.exhaust_flow_kg_per_s / sheet.exhaust_flow_kg_per_s - 1.0).abs() <= EXHAUST_FLOW_TOLERANCE, "{what}");
-        assert!((p.net_output_kw / sheet.net_output_kw - 1.0).abs() <= 1e-9, "{what}");
+        assert!(
+            (p.heat_rate_kj_per_kwh / sheet.heat_rate_kj_per_kwh - 1.0).abs()
+                <= HEAT_RATE_TOLERANCE,
+            "{what}"
+        );
+        assert!(
+            (p.exhaust_temperature_k - sheet.exhaust_temperature_k).abs()
+                <= EXHAUST_TEMPERATURE_TOLERANCE_K,
+            "{what}"
+        );
+        assert!(
+            (p.exhaust_flow_kg_per_s / sheet.exhaust_flow_kg_per_s - 1.0).abs()
+                <= EXHAUST_FLOW_TOLERANCE,
+            "{what}"
+        );
+        assert!(
+            (p.net_output_kw / sheet.net_output_kw - 1.0).abs() <= 1e-9,
+            "{what}"
+        );
         done += 1;
     }
     assert_eq!(done, 40);

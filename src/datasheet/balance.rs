@@ -91,8 +91,9 @@ pub struct Closure {
 }
 
 impl Closure {
-    /// The move in words: "heat rate up by 17.6 %", "exhaust temperature
-    /// down by 45.2 K", "exhaust flow down by 9.1 %".
+    /// The move in words, naming the key: "heat rate (rating.heat_rate) up
+    /// by 17.6 % (to 8741 kJ/kWh)", "exhaust temperature
+    /// (rating.exhaust_temperature) down by 45.2 K (to 799.1 K)", …
     pub fn describe(&self) -> String {
         let direction = if self.needed > self.stated {
             "up"
@@ -101,17 +102,17 @@ impl Closure {
         };
         match self.figure {
             Figure::ExhaustTemperature => format!(
-                "exhaust temperature {direction} by {:.1} K (to {:.1} K)",
+                "exhaust temperature (rating.exhaust_temperature) {direction} by {:.1} K (to {:.1} K)",
                 (self.needed - self.stated).abs(),
                 self.needed
             ),
             Figure::HeatRate => format!(
-                "heat rate {direction} by {:.1} % (to {:.0} kJ/kWh)",
+                "heat rate (rating.heat_rate) {direction} by {:.1} % (to {:.0} kJ/kWh)",
                 ((self.needed / self.stated) - 1.0).abs() * 100.0,
                 self.needed
             ),
             Figure::ExhaustFlow => format!(
-                "exhaust flow {direction} by {:.1} % (to {:.2} kg/s)",
+                "exhaust flow (rating.exhaust_flow) {direction} by {:.1} % (to {:.2} kg/s)",
                 ((self.needed / self.stated) - 1.0).abs() * 100.0,
                 self.needed
             ),
@@ -233,7 +234,7 @@ fn closures(sheet: &Datasheet, streams: &Streams, target: f64) -> Vec<Closure> {
     // exhaust temperature and exhaust flow.
     let gap = |q: f64, t: f64, m: f64| -> Option<f64> {
         let fuel = q / lhv;
-        if !(m > fuel) {
+        if m.is_nan() || m <= fuel {
             return None;
         }
         let e = streams.exhaust_energy_kw(m - fuel, fuel, t).ok()?;

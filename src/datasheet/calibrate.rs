@@ -165,7 +165,10 @@ impl CalibrationOptions {
     fn validate(&self) -> Result<(), DatasheetError> {
         let losses = [
             ("calibration.inlet_pressure_loss", self.inlet_pressure_loss),
-            ("calibration.exhaust_pressure_loss", self.exhaust_pressure_loss),
+            (
+                "calibration.exhaust_pressure_loss",
+                self.exhaust_pressure_loss,
+            ),
             (
                 "calibration.combustor_pressure_loss",
                 self.combustor_pressure_loss,
@@ -358,8 +361,7 @@ pub fn calibrate(
         pressure_ratio: sheet.pressure_ratio.unwrap_or(15.0),
         firing_k: firing,
         cooling: options.cooling_for(firing),
-        electro_mechanical: (sheet.net_output_kw
-            / (sheet.net_output_kw + balance.remainder_kw))
+        electro_mechanical: (sheet.net_output_kw / (sheet.net_output_kw + balance.remainder_kw))
             .clamp(0.5, 1.0),
     };
     let problem = Problem {
@@ -370,10 +372,13 @@ pub fn calibrate(
     };
     let x = problem.newton()?;
     let engine = problem.engine(&x);
-    let (result, residuals) = problem.evaluate(&engine).map_err(|source| DatasheetError::Cycle {
-        context: "fitted engine".into(),
-        source,
-    })?;
+    let (result, residuals) =
+        problem
+            .evaluate(&engine)
+            .map_err(|source| DatasheetError::Cycle {
+                context: "fitted engine".into(),
+                source,
+            })?;
     if !(residuals.heat_rate_relative.abs() <= HEAT_RATE_TOLERANCE
         && residuals.exhaust_temperature_k.abs() <= EXHAUST_TEMPERATURE_TOLERANCE_K
         && residuals.exhaust_flow_relative.abs() <= EXHAUST_FLOW_TOLERANCE)
@@ -510,12 +515,11 @@ impl Problem<'_> {
             turbine_cooling: e.cooling,
             relative_humidity: self.sheet.rating.relative_humidity,
         };
-        let result = cycle::solve_detailed(&config, &detail, &GasModel::Products, &self.sheet.fuel)?;
-        let flows = result
-            .flows
-            .ok_or(cycle::CycleError::NoConvergence {
-                last_change: f64::NAN,
-            })?;
+        let result =
+            cycle::solve_detailed(&config, &detail, &GasModel::Products, &self.sheet.fuel)?;
+        let flows = result.flows.ok_or(cycle::CycleError::NoConvergence {
+            last_change: f64::NAN,
+        })?;
         let residuals = Residuals {
             heat_rate_relative: result.heat_rate_kj_per_kwh / self.sheet.heat_rate_lhv_kj_per_kwh()
                 - 1.0,
@@ -641,15 +645,16 @@ impl Problem<'_> {
 fn solve3(mut a: [[f64; 3]; 3], mut b: [f64; 3]) -> Option<[f64; 3]> {
     for k in 0..3 {
         let p = (k..3).max_by(|&i, &j| a[i][k].abs().total_cmp(&a[j][k].abs()))?;
-        if !(a[p][k].abs() > 0.0) || !a[p][k].is_finite() {
+        if a[p][k] == 0.0 || !a[p][k].is_finite() {
             return None;
         }
         a.swap(k, p);
         b.swap(k, p);
+        let pivot_row = a[k];
         for i in k + 1..3 {
-            let m = a[i][k] / a[k][k];
-            for j in k..3 {
-                a[i][j] -= m * a[k][j];
+            let m = a[i][k] / pivot_row[k];
+            for (cell, pivot) in a[i].iter_mut().zip(pivot_row).skip(k) {
+                *cell -= m * pivot;
             }
             b[i] -= m * b[k];
         }

@@ -131,7 +131,8 @@ pub fn check_part_load(
             .solve(rating, Load(p.load))
             .map_err(curve_error(CURVE, index))?;
         let physics = at.heat_rate_kj_per_kwh / base.heat_rate_kj_per_kwh;
-        if !((p.heat_rate_ratio - physics).abs() <= threshold) {
+        let difference = (p.heat_rate_ratio - physics).abs();
+        if difference.is_nan() || difference > threshold {
             out.push(CurveDeviation {
                 curve: CURVE,
                 index,
@@ -186,7 +187,8 @@ pub fn check_ambient_correction(
             ),
         ];
         for (quantity, vendor, physics) in pairs {
-            if !((vendor - physics).abs() <= threshold) {
+            let difference = (vendor - physics).abs();
+            if difference.is_nan() || difference > threshold {
                 out.push(CurveDeviation {
                     curve: CURVE,
                     index,

@@ -190,9 +190,7 @@ pub fn assess(
     };
     match balance.status {
         BalanceStatus::Plausible => {}
-        BalanceStatus::TooLittleLoss => {
-            flag(Verdict::Optimistic, balance.describe(), &mut reasons)
-        }
+        BalanceStatus::TooLittleLoss => flag(Verdict::Optimistic, balance.describe(), &mut reasons),
         BalanceStatus::Negative | BalanceStatus::TooMuchLoss => {
             flag(Verdict::Impossible, balance.describe(), &mut reasons)
         }
@@ -301,7 +299,7 @@ fn compare(stated: &ComponentData, c: &Calibration) -> Vec<Disagreement> {
         } else {
             (s - implied).abs()
         };
-        if !(off <= tol) {
+        if off.is_nan() || off > tol {
             out.push(Disagreement {
                 field,
                 stated: s,

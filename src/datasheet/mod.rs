@@ -178,7 +178,7 @@ impl Datasheet {
             }
         }
         let fuel_flow = self.fuel_flow_kg_per_s();
-        if !(self.exhaust_flow_kg_per_s > fuel_flow) {
+        if self.exhaust_flow_kg_per_s <= fuel_flow {
             return Err(DatasheetError::invalid(
                 "rating.exhaust_flow",
                 format!(

@@ -47,9 +47,8 @@ impl Streams {
 
     /// Products of `fuel_air_ratio` kg of fuel per kg of air.
     fn products(&self, fuel_air_ratio: f64) -> Result<Mixture, DatasheetError> {
-        let n = |i: usize| {
-            self.air_kmol_per_kg[i] + fuel_air_ratio * self.delta_kmol_per_kg_fuel[i]
-        };
+        let n =
+            |i: usize| self.air_kmol_per_kg[i] + fuel_air_ratio * self.delta_kmol_per_kg_fuel[i];
         if n(1) < 0.0 {
             return Err(DatasheetError::Impossible(format!(
                 "the fuel–air ratio {fuel_air_ratio:.4} that the heat rate, output and exhaust flow imply burns more than all the air's oxygen (rating.heat_rate too high or rating.exhaust_flow too low)"

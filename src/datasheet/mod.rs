@@ -21,6 +21,8 @@
 //!   component data also given are compared with the fit.
 //! - [`curves`]: vendor part-load and ambient-correction curves against the
 //!   calibrated machine.
+//! - [`ComponentData::from_engine`]: a candidate's stated components
+//!   (isentropic or polytropic) on the polytropic basis the fit uses.
 //!
 //! Only simple-cycle (unregenerated, single-shaft) datasheets are modelled:
 //! the exhaust temperature is the turbine exit.
@@ -30,6 +32,7 @@ pub mod calibrate;
 pub mod curves;
 mod error;
 pub mod implied;
+mod stated;
 mod streams;
 
 pub use balance::{energy_balance, BalanceStatus, Closure, EnergyBalance, Figure};
@@ -58,7 +61,7 @@ pub enum HeatRateBasis {
 }
 
 /// A vendor's rating figures at one rating condition.
-#[derive(Debug, Clone, PartialEq)]
+#[derive(Debug, Clone, PartialEq, Serialize)]
 pub struct Datasheet {
     /// Net electrical output at the rating condition, kW.
     pub net_output_kw: f64,

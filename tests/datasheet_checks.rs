@@ -421,6 +421,15 @@ fn bad_figures_are_refused_naming_the_figure() {
             },
             "rating.exhaust_flow",
         ),
+        // Richer than stoichiometric: 20 kg/s of exhaust for about 12 kg/s
+        // of fuel.
+        (
+            Datasheet {
+                exhaust_flow_kg_per_s: 20.0,
+                ..good.clone()
+            },
+            "rating.exhaust_flow",
+        ),
         (
             Datasheet {
                 exhaust_temperature_k: 280.0,

@@ -193,6 +193,19 @@ pub fn energy_balance(sheet: &Datasheet) -> Result<EnergyBalance, DatasheetError
     let q = sheet.fuel_energy_kw();
     let fuel = q / lhv;
     let air = sheet.exhaust_flow_kg_per_s - fuel;
+    let stoichiometric = streams.stoichiometric_fuel_air_ratio();
+    if fuel / air > stoichiometric {
+        let needed = fuel / stoichiometric + fuel;
+        return Err(DatasheetError::invalid(
+            "rating.exhaust_flow",
+            format!(
+                "{:.3} kg/s leaves {air:.3} kg/s of air for {fuel:.3} kg/s of fuel, more fuel than the air's oxygen can burn (fuel–air ratio {:.4}, stoichiometric {stoichiometric:.4})",
+                sheet.exhaust_flow_kg_per_s,
+                fuel / air
+            ),
+            format!("expected an exhaust flow of at least {needed:.3} kg/s for this heat rate and output"),
+        ));
+    }
     let exhaust = streams.exhaust_energy_kw(air, fuel, sheet.exhaust_temperature_k)?;
     let remainder = q - p - exhaust;
     let fraction = remainder / q;

@@ -45,6 +45,11 @@ impl Streams {
         })
     }
 
+    /// Fuel per kg of air at which the products hold no oxygen.
+    pub fn stoichiometric_fuel_air_ratio(&self) -> f64 {
+        -self.air_kmol_per_kg[1] / self.delta_kmol_per_kg_fuel[1]
+    }
+
     /// Products of `fuel_air_ratio` kg of fuel per kg of air.
     fn products(&self, fuel_air_ratio: f64) -> Result<Mixture, DatasheetError> {
         let n =

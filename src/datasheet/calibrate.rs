@@ -666,3 +666,36 @@ fn solve3(mut a: [[f64; 3]; 3], mut b: [f64; 3]) -> Option<[f64; 3]> {
     }
     x.iter().all(|v| v.is_finite()).then_some(x)
 }
+
+#[cfg(test)]
+mod tests {
+    use super::solve3;
+    use crate::datasheet::balance::root;
+
+    /// A 3 × 3 system whose first pivot is zero (needs the row swap), with
+    /// the answer (1, −2, 3) worked by hand; and a singular one.
+    #[test]
+    fn solve3_pivots_and_refuses_singular_systems() {
+        let a = [[0.0, 2.0, 1.0], [1.0, 1.0, 1.0], [2.0, -1.0, 4.0]];
+        let x = [1.0, -2.0, 3.0];
+        let b = [
+            a[0][0] * x[0] + a[0][1] * x[1] + a[0][2] * x[2],
+            a[1][0] * x[0] + a[1][1] * x[1] + a[1][2] * x[2],
+            a[2][0] * x[0] + a[2][1] * x[1] + a[2][2] * x[2],
+        ];
+        let got = solve3(a, b).unwrap();
+        for (g, e) in got.iter().zip(x) {
+            assert!((g - e).abs() < 1e-12, "{got:?}");
+        }
+        let singular = [[1.0, 2.0, 3.0], [2.0, 4.0, 6.0], [0.0, 1.0, 1.0]];
+        assert!(solve3(singular, [1.0, 2.0, 3.0]).is_none());
+    }
+
+    #[test]
+    fn root_finds_the_square_root_of_two_and_gives_up_without_values() {
+        let r = root(|x| Some(x * x - 2.0), 1.0, 2.0).unwrap();
+        assert!((r - 2f64.sqrt()).abs() < 1e-12);
+        assert!(root(|_| None, 1.0, 2.0).is_none());
+        assert!(root(|_| Some(1.0), 1.0, 2.0).is_none());
+    }
+}

@@ -482,3 +482,31 @@ fn bad_figures_are_refused_naming_the_figure() {
         assert_eq!(e.field(), Some(field), "{e}");
     }
 }
+
+/// More left over than machines lose: at an electro-mechanical efficiency
+/// of 0.88 (remainder about 5.5 % of fuel energy) the datasheet is
+/// doubtful (optimistic verdict, the moves named); at 0.78 (about 11 %)
+/// no machine loses that much outside its gas path: impossible.
+#[test]
+fn too_much_loss_is_doubtful_then_impossible() {
+    for (eps, verdict) in [(0.88, Verdict::Optimistic), (0.78, Verdict::Impossible)] {
+        let known = Known {
+            electro_mechanical: eps,
+            ..f_class()
+        };
+        let sheet = datasheet_of(&known, &Fuel::methane(), true, true);
+        let a = assess(
+            &sheet,
+            &ComponentData::default(),
+            &CalibrationOptions::default(),
+        )
+        .unwrap();
+        assert_eq!(a.balance.status, BalanceStatus::TooMuchLoss, "{eps}");
+        assert_eq!(a.implied.verdict, verdict, "{eps}: {:?}", a.implied.reasons);
+        assert!(
+            a.implied.reasons[0].contains("exhaust flow (rating.exhaust_flow) up by"),
+            "{:?}",
+            a.implied.reasons
+        );
+    }
+}

@@ -22,11 +22,13 @@
 //! output (air-cooled generators are 97.5–98.8 % efficient), bearings and
 //! gearbox 0.5–1.5 %, auxiliaries 0.3–1 %, casing radiation and lube-oil
 //! heat a few tenths of a percent; at 30–42 % efficiency that is about
-//! 1–2.5 % of fuel energy. Below 0.5 % the figures leave too little for
-//! the generator alone; above 4 % they hide energy that a real machine
-//! sends up the stack (an exhaust flow or temperature stated too low).
-//! A negative remainder breaks the first law: the figures cannot all be
-//! true.
+//! 1–2.5 % of fuel energy; small gearbox-driven machines lose more. Below
+//! 0.5 % the figures leave too little for the generator alone; above 4 %
+//! they leave more than usual, most likely energy that the machine sends up
+//! the stack (an exhaust flow or temperature stated too low); above
+//! [`REMAINDER_IMPOSSIBLE`] (8 %) no machine loses that much outside its
+//! gas path (over 20 % of the output at 25–40 % efficiency). A negative
+//! remainder breaks the first law: the figures cannot all be true.
 
 use super::streams::Streams;
 use super::{Datasheet, DatasheetError};
@@ -38,6 +40,10 @@ pub const REMAINDER_LOW: f64 = 0.005;
 /// Upper end of the plausible remainder, fraction of fuel energy (common
 /// practice; see the module documentation).
 pub const REMAINDER_HIGH: f64 = 0.04;
+/// Remainder above which the figures cannot all be true, fraction of fuel
+/// energy: twice the plausible upper end (common practice, reasoned in the
+/// module documentation).
+pub const REMAINDER_IMPOSSIBLE: f64 = 0.08;
 
 /// Where the remainder falls.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
@@ -47,7 +53,8 @@ pub enum BalanceStatus {
     Plausible,
     /// Between 0 and [`REMAINDER_LOW`]: fewer losses than a machine has.
     TooLittleLoss,
-    /// Above [`REMAINDER_HIGH`]: energy unaccounted for.
+    /// Above [`REMAINDER_HIGH`]: energy unaccounted for (beyond
+    /// [`REMAINDER_IMPOSSIBLE`] the figures cannot all be true).
     TooMuchLoss,
     /// Below 0: the figures break the first law.
     Negative,
@@ -174,7 +181,8 @@ impl EnergyBalance {
                 REMAINDER_LOW * 100.0
             ),
             BalanceStatus::TooMuchLoss => format!(
-                "energy balance: {pct:.2} % of the fuel energy is unaccounted for (plausible losses: {range}), so the exhaust flow or temperature is likely understated; to reach {:.0} %: {moves}",
+                "energy balance: {pct:.2} % of the fuel energy is unaccounted for (plausible losses: {range}; above {:.0} % no machine loses that much outside its gas path), so the exhaust flow or temperature is likely understated; to reach {:.0} %: {moves}",
+                REMAINDER_IMPOSSIBLE * 100.0,
                 REMAINDER_HIGH * 100.0
             ),
         }

@@ -4,12 +4,13 @@
 //! calibration ([`super::calibrate`]), then compares the implied values with
 //! [`STATE_OF_THE_ART`]:
 //!
-//! - [`Verdict::Impossible`]: a negative or too large energy-balance
-//!   remainder, an exhaust colder than its pressure ratio allows, an air
+//! - [`Verdict::Impossible`]: a negative energy-balance remainder or one
+//!   above [`REMAINDER_IMPOSSIBLE`], an exhaust colder than its pressure ratio allows, an air
 //!   flow below what the output needs at the state-of-the-art specific
 //!   work, or no engine that reproduces the figures;
-//! - [`Verdict::Optimistic`]: a remainder below the plausible range, or an
-//!   implied efficiency, firing temperature or cooling beyond the state of
+//! - [`Verdict::Optimistic`] (possible, but beyond current practice or
+//!   doubtful): a remainder outside the plausible range, or an implied
+//!   efficiency, firing temperature or cooling beyond the state of
 //!   the art;
 //! - [`Verdict::Plausible`] otherwise.
 //!
@@ -17,7 +18,10 @@
 //! fit and every disagreement is reported with both values
 //! ([`Disagreement`]); they never replace the fit.
 
-use super::balance::{energy_balance, BalanceStatus, EnergyBalance, REMAINDER_HIGH, REMAINDER_LOW};
+use super::balance::{
+    energy_balance, BalanceStatus, EnergyBalance, REMAINDER_HIGH, REMAINDER_IMPOSSIBLE,
+    REMAINDER_LOW,
+};
 use super::calibrate::{calibrate, Calibration, CalibrationOptions};
 use super::{Datasheet, DatasheetError};
 use crate::cycle::{self, EfficiencyBasis, EngineConfig, GasModel};
@@ -44,7 +48,7 @@ pub const TURBINE_POLYTROPIC_MAX: f64 = 0.92;
 pub const FIRING_TEMPERATURE_MAX_K: f64 = 1900.0;
 
 /// The state-of-the-art table the verdict uses.
-pub const STATE_OF_THE_ART: [Limit; 5] = [
+pub const STATE_OF_THE_ART: [Limit; 6] = [
     Limit {
         quantity: "compressor_polytropic_efficiency",
         value: COMPRESSOR_POLYTROPIC_MAX,
@@ -70,6 +74,11 @@ pub const STATE_OF_THE_ART: [Limit; 5] = [
         value: REMAINDER_HIGH,
         source: "and at most about 4 % (common practice; src/datasheet/balance.rs)",
     },
+    Limit {
+        quantity: "loss_remainder_fraction (impossible)",
+        value: REMAINDER_IMPOSSIBLE,
+        source: "above 8 % of fuel energy, over 20 % of the output, no machine loses outside its gas path (common practice; src/datasheet/balance.rs)",
+    },
 ];
 
 /// How credible a datasheet is.
@@ -78,7 +87,7 @@ pub const STATE_OF_THE_ART: [Limit; 5] = [
 pub enum Verdict {
     /// Every implied value within the state of the art.
     Plausible,
-    /// Possible physics, beyond the state of the art.
+    /// Possible, but beyond the state of the art or doubtful.
     Optimistic,
     /// The figures cannot all be true.
     Impossible,
@@ -191,6 +200,9 @@ pub fn assess(
     match balance.status {
         BalanceStatus::Plausible => {}
         BalanceStatus::TooLittleLoss => flag(Verdict::Optimistic, balance.describe(), &mut reasons),
+        BalanceStatus::TooMuchLoss if balance.remainder_fraction <= REMAINDER_IMPOSSIBLE => {
+            flag(Verdict::Optimistic, balance.describe(), &mut reasons)
+        }
         BalanceStatus::Negative | BalanceStatus::TooMuchLoss => {
             flag(Verdict::Impossible, balance.describe(), &mut reasons)
         }

@@ -43,6 +43,7 @@ fn sheet(ratio: bool, firing: bool) -> Datasheet {
         exhaust_temperature_k: r.exhaust_temperature_k,
         pressure_ratio: ratio.then_some(17.0),
         firing_temperature_k: firing.then_some(1700.0),
+        regenerator: None,
         rating: Ambient::ISO,
         fuel,
     }

@@ -66,6 +66,7 @@ fn case_sheet(case: &Value) -> Datasheet {
             .as_bool()
             .unwrap()
             .then(|| num(e, "firing_temperature_k")),
+        regenerator: None,
         rating: Ambient {
             temperature_k: num(r, "temperature_k"),
             pressure_kpa: num(r, "pressure_kpa"),

@@ -32,6 +32,7 @@ fn energy_balance_worked_by_hand() {
         exhaust_temperature_k: 800.0,
         pressure_ratio: None,
         firing_temperature_k: None,
+        regenerator: None,
         rating: Ambient::dry(298.15, 101.325),
         fuel: Fuel::methane(),
     };
@@ -277,6 +278,7 @@ fn exhaust_below_what_its_pressure_ratio_allows_is_impossible() {
     let bad = Datasheet {
         pressure_ratio: Some(6.0),
         firing_temperature_k: None,
+        regenerator: None,
         ..plausible_sheet()
     };
     assert_eq!(
@@ -420,6 +422,17 @@ fn bad_figures_are_refused_naming_the_figure() {
                 ..good.clone()
             },
             "rating.exhaust_flow",
+        ),
+        (
+            Datasheet {
+                regenerator: Some(brayfin::cycle::Regenerator {
+                    effectiveness: 1.2,
+                    air_side_pressure_loss: 0.02,
+                    gas_side_pressure_loss: 0.03,
+                }),
+                ..good.clone()
+            },
+            "regenerator.effectiveness",
         ),
         // Richer than stoichiometric: 20 kg/s of exhaust for about 12 kg/s
         // of fuel.

@@ -35,6 +35,7 @@ proptest! {
             exhaust_temperature_k: t,
             pressure_ratio: r,
             firing_temperature_k: t3,
+            regenerator: None,
             rating: Ambient { temperature_k: ta, pressure_kpa: pa, relative_humidity: rh },
             fuel: Fuel::methane(),
         };
@@ -61,6 +62,7 @@ proptest! {
             exhaust_temperature_k: t,
             pressure_ratio: r,
             firing_temperature_k: None,
+            regenerator: None,
             rating: Ambient::ISO,
             fuel: Fuel::methane(),
         };

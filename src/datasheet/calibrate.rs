@@ -16,6 +16,9 @@
 //! | firing temperature        | efficiency level, pressure ratio          | cooling from firing    |
 //! | neither                   | pressure ratio, firing temperature        | cooling from firing; efficiency level at its default |
 //!
+//! A stated regenerator is taken as stated (effectiveness, pressure
+//! losses); the exhaust temperature is then its gas exit.
+//!
 //! The efficiency level is the compressor polytropic efficiency; the
 //! turbine's is below it by a fixed gap ([`CalibrationOptions::efficiency_gap`]),
 //! because the figures determine one efficiency, not two. The
@@ -120,7 +123,7 @@ impl CalibrationOptions {
             mechanical_efficiency: split,
             generator_efficiency: split,
             auxiliary_load_fraction: 0.0,
-            regenerator: None,
+            regenerator: sheet.regenerator,
             intercooler: None,
             reheat: None,
             sizing: Some(Sizing::NetOutputKw(sheet.net_output_kw)),
@@ -128,7 +131,7 @@ impl CalibrationOptions {
     }
 
     /// Every assumption in words.
-    fn describe(&self, fit: Fit) -> Vec<String> {
+    fn describe(&self, sheet: &Datasheet, fit: Fit) -> Vec<String> {
         let mut out = vec![
             format!(
                 "inlet pressure loss {:.1} %, exhaust pressure loss {:.1} %, combustor pressure loss {:.1} % (defaults, common practice)",
@@ -145,8 +148,16 @@ impl CalibrationOptions {
                 self.efficiency_gap
             ),
             "mechanical and generator efficiency equal, their product fitted to the energy balance; no auxiliary load: the data determine only the product".into(),
-            "simple cycle, single shaft; coolant mixed ahead of the rotor at compressor delivery; complete combustion products of the stated fuel".into(),
+            "single shaft; coolant mixed ahead of the rotor at the combustor inlet; complete combustion products of the stated fuel".into(),
         ];
+        if let Some(g) = &sheet.regenerator {
+            out.push(format!(
+                "regenerator as stated: effectiveness {:.3}, air-side pressure loss {:.1} %, gas-side {:.1} %; the exhaust temperature is its gas exit",
+                g.effectiveness,
+                g.air_side_pressure_loss * 100.0,
+                g.gas_side_pressure_loss * 100.0
+            ));
+        }
         if fit != Fit::EfficiencyAndCooling {
             out.push(format!(
                 "turbine cooling {:.4} of compressor air per K of firing temperature above {:.0} K (correlation, from memory)",
@@ -344,7 +355,9 @@ pub fn calibrate(
     if let Some(message) = too_little_air(sheet, balance.air_flow_kg_per_s)? {
         return Err(DatasheetError::Impossible(message));
     }
-    if let Some(r) = sheet.pressure_ratio {
+    // A regenerator takes heat from the exhaust, so the ideal-cycle bound on
+    // the exhaust temperature holds for simple cycles only.
+    if let (Some(r), None) = (sheet.pressure_ratio, &sheet.regenerator) {
         if let Some(message) = too_cold_for_ratio(sheet, r, fuel_air)? {
             return Err(DatasheetError::Impossible(message));
         }
@@ -398,7 +411,7 @@ pub fn calibrate(
         rating: sheet.rating,
         fuel: sheet.fuel.clone(),
         fitted: fit.names().to_vec(),
-        assumptions: options.describe(fit),
+        assumptions: options.describe(sheet, fit),
         residuals,
         result,
     })
@@ -554,7 +567,7 @@ impl Problem<'_> {
         let mut x = clamp(self.x0());
         let mut r = self.residual(&x).ok_or_else(|| {
             DatasheetError::NoFit(
-                "the starting engine does not solve; the figures are far from any simple-cycle gas turbine".into(),
+                "the starting engine does not solve; the figures are far from any single-shaft gas turbine".into(),
             )
         })?;
         for _ in 0..60 {
@@ -632,7 +645,7 @@ impl Problem<'_> {
             "the iteration found no engine that reproduces rating.heat_rate, rating.exhaust_temperature and rating.exhaust_flow together".to_string()
         } else {
             format!(
-                "no simple-cycle engine reproduces rating.heat_rate, rating.exhaust_temperature and rating.exhaust_flow together: {}",
+                "no engine of this arrangement reproduces rating.heat_rate, rating.exhaust_temperature and rating.exhaust_flow together: {}",
                 at_bound.join(", ")
             )
         };

@@ -24,8 +24,10 @@
 //! - [`ComponentData::from_engine`]: a candidate's stated components
 //!   (isentropic or polytropic) on the polytropic basis the fit uses.
 //!
-//! Only simple-cycle (unregenerated, single-shaft) datasheets are modelled:
-//! the exhaust temperature is the turbine exit.
+//! Single-shaft machines, simple or regenerated: the exhaust temperature is
+//! the turbine exit, or the regenerator's gas exit when the datasheet
+//! states a regenerator (its effectiveness and pressure losses are then
+//! taken as stated, not fitted).
 
 pub mod balance;
 pub mod calibrate;
@@ -44,6 +46,7 @@ pub use curves::{
 pub use error::DatasheetError;
 pub use implied::{assess, Assessment, ComponentData, Disagreement, Implied, Verdict};
 
+use crate::cycle::Regenerator;
 use crate::fuel::Fuel;
 use crate::offdesign::Ambient;
 use crate::thermo::{MAX_TEMPERATURE_K, MIN_TEMPERATURE_K};
@@ -71,13 +74,18 @@ pub struct Datasheet {
     pub heat_rate_basis: HeatRateBasis,
     /// Exhaust mass flow (air plus fuel), kg/s.
     pub exhaust_flow_kg_per_s: f64,
-    /// Exhaust temperature at the turbine exit flange, K.
+    /// Exhaust temperature where the gas leaves the machine, K: the turbine
+    /// exit, or the regenerator gas exit when there is one.
     pub exhaust_temperature_k: f64,
     /// Compressor pressure ratio, when the vendor states it.
     pub pressure_ratio: Option<f64>,
     /// Firing temperature (combustor exit, ahead of the first nozzle), K,
     /// when the vendor states it.
     pub firing_temperature_k: Option<f64>,
+    /// The machine's regenerator (recuperator) as the vendor states it, if
+    /// it has one.
+    #[serde(skip)]
+    pub regenerator: Option<Regenerator>,
     /// The rating condition: ambient temperature, pressure, humidity.
     pub rating: Ambient,
     /// The fuel the rating is for; needs its composition.
@@ -178,6 +186,33 @@ impl Datasheet {
                     format!("{t3} K is not above the exhaust temperature {t} K or is beyond the property data"),
                     format!("expected a firing temperature above {t} K and at most {MAX_TEMPERATURE_K} K"),
                 ));
+            }
+        }
+        if let Some(g) = &self.regenerator {
+            if !(g.effectiveness > 0.0 && g.effectiveness <= 1.0) {
+                return Err(DatasheetError::invalid(
+                    "regenerator.effectiveness",
+                    format!("{} is outside (0, 1]", g.effectiveness),
+                    "expected an effectiveness above 0 and at most 1",
+                ));
+            }
+            for (field, v) in [
+                (
+                    "regenerator.air_side_pressure_loss",
+                    g.air_side_pressure_loss,
+                ),
+                (
+                    "regenerator.gas_side_pressure_loss",
+                    g.gas_side_pressure_loss,
+                ),
+            ] {
+                if !(0.0..1.0).contains(&v) {
+                    return Err(DatasheetError::invalid(
+                        field,
+                        format!("{v} is outside [0, 1)"),
+                        "expected a fraction ≥ 0 and < 1",
+                    ));
+                }
             }
         }
         let fuel_flow = self.fuel_flow_kg_per_s();

@@ -3,7 +3,7 @@
 
 #![allow(dead_code)]
 
-use brayfin::cycle::{self, EfficiencyBasis, EngineConfig, GasModel, Sizing};
+use brayfin::cycle::{self, EfficiencyBasis, EngineConfig, GasModel, Regenerator, Sizing};
 use brayfin::datasheet::{CalibrationOptions, Datasheet, HeatRateBasis};
 use brayfin::fuel::Fuel;
 use brayfin::offdesign::Ambient;
@@ -50,11 +50,24 @@ pub fn config(k: &Known) -> EngineConfig {
 /// The datasheet the design solver gives for `k` burning `fuel`, stating
 /// the pressure ratio and firing temperature as asked.
 pub fn datasheet_of(k: &Known, fuel: &Fuel, state_ratio: bool, state_firing: bool) -> Datasheet {
+    datasheet_with(k, None, fuel, state_ratio, state_firing)
+}
+
+/// As [`datasheet_of`], for the engine with `regenerator`.
+pub fn datasheet_with(
+    k: &Known,
+    regenerator: Option<Regenerator>,
+    fuel: &Fuel,
+    state_ratio: bool,
+    state_firing: bool,
+) -> Datasheet {
+    let mut engine = config(k);
+    engine.regenerator = regenerator;
     let detail = cycle::Detail {
         turbine_cooling: k.cooling,
         relative_humidity: k.rating.relative_humidity,
     };
-    let r = cycle::solve_detailed(&config(k), &detail, &GasModel::Products, fuel).unwrap();
+    let r = cycle::solve_detailed(&engine, &detail, &GasModel::Products, fuel).unwrap();
     let flows = r.flows.unwrap();
     Datasheet {
         net_output_kw: flows.net_output_kw,
@@ -64,6 +77,7 @@ pub fn datasheet_of(k: &Known, fuel: &Fuel, state_ratio: bool, state_firing: boo
         exhaust_temperature_k: r.exhaust_temperature_k,
         pressure_ratio: state_ratio.then_some(k.pressure_ratio),
         firing_temperature_k: state_firing.then_some(k.firing_k),
+        regenerator,
         rating: k.rating,
         fuel: fuel.clone(),
     }

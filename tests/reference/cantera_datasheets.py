@@ -13,9 +13,14 @@ definitions:
   (s° at a fixed pressure, ideal gas);
 - combustor burning the fraction (1 - c) of the air to the firing
   temperature T3 (complete combustion, fuel at 298.15 K), pressure loss;
-- coolant at compressor delivery mixed adiabatically ahead of the rotor;
+- coolant at the combustor inlet (compressor delivery, or the regenerator
+  air exit) mixed adiabatically ahead of the rotor;
 - polytropic turbine from the mixed state: s°(T4) = s°(T3r) + eta_t R ln(p4/p3),
   exhausting at p_amb / (1 - exhaust loss);
+- with a regenerator: air side p5 = p2 (1 - air loss), gas side
+  p4 = p6 / (1 - gas loss), heat passed q = eps min(h_air(T4) - h2,
+  (1 + f)(h4 - h_gas(T2))) per kg of air, iterated with the fuel it saves;
+  the exhaust is the regenerator gas exit;
 - net output (w_t - w_c) eta_mech eta_gen per kg of air; air flow from the
   rated output; heat rate 3600 f LHV / w_el (LHV from Cantera enthalpies at
   298.15 K, water as vapour).
@@ -143,8 +148,11 @@ def datasheet(e):
     p_amb = amb["pressure_kpa"] * 1e3
     p1 = p_amb * (1 - LOSSES["inlet"])
     p2 = p1 * e["pressure_ratio"]
-    p3 = p2 * (1 - LOSSES["combustor"])
-    p4 = p_amb / (1 - LOSSES["exhaust"])
+    rg = e.get("regenerator")
+    p5 = p2 * (1 - rg["air_side_pressure_loss"]) if rg else p2
+    p3 = p5 * (1 - LOSSES["combustor"])
+    p6 = p_amb / (1 - LOSSES["exhaust"])
+    p4 = p6 / (1 - rg["gas_side_pressure_loss"]) if rg else p6
     t1 = amb["temperature_k"]
     h1 = air.h(t1)
     eta_c = e["compressor_polytropic_efficiency"]
@@ -152,14 +160,31 @@ def datasheet(e):
     t2 = air.t_from_s0(air.s0(t1) + air.r / eta_c * math.log(p2 / p1))
     h2 = air.h(t2)
     c = e["turbine_cooling"]
-    fc = chem.burn(h2, e["firing_temperature_k"])
-    h3 = chem.gas(fc).h(e["firing_temperature_k"])
-    f = (1 - c) * fc
-    g = chem.gas(f)
-    h3r = ((1 - c) * (1 + fc) * h3 + c * h2) / (1 + f)
-    t3r = g.t_from_h(h3r)
-    t4 = g.t_from_s0(g.s0(t3r) + eta_t * g.r * math.log(p4 / p3))
-    h4 = g.h(t4)
+
+    def hot(h5):
+        fc = chem.burn(h5, e["firing_temperature_k"])
+        h3 = chem.gas(fc).h(e["firing_temperature_k"])
+        f = (1 - c) * fc
+        g = chem.gas(f)
+        h3r = ((1 - c) * (1 + fc) * h3 + c * h5) / (1 + f)
+        t3r = g.t_from_h(h3r)
+        t4 = g.t_from_s0(g.s0(t3r) + eta_t * g.r * math.log(p4 / p3))
+        return f, g, h3r, t4, g.h(t4)
+
+    h5 = h2
+    f, g, h3r, t4, h4 = hot(h5)
+    t_exhaust, h_exhaust = t4, h4
+    if rg:
+        for _ in range(300):
+            q = rg["effectiveness"] * min(air.h(t4) - h2, (1 + f) * (h4 - g.h(t2)))
+            new = h2 + q
+            done = abs(new - h5) <= 1e-13 * abs(new)
+            h5 = new
+            f, g, h3r, t4, h4 = hot(h5)
+            if done:
+                break
+        h_exhaust = h4 - (h5 - h2) / (1 + f)
+        t_exhaust = g.t_from_h(h_exhaust)
     w_t = (1 + f) * (h3r - h4)
     w_c = h2 - h1
     w_el = (w_t - w_c) * e["electro_mechanical_efficiency"]
@@ -167,13 +192,13 @@ def datasheet(e):
     q_in = f * chem.lhv
     # The datasheet's own energy balance with Cantera enthalpies: exhaust
     # above the inlet state, both from 298.15 K.
-    exhaust = air_flow * ((1 + f) * (h4 - g.h(T_REF)) - (h1 - air.h(T_REF)))
+    exhaust = air_flow * ((1 + f) * (h_exhaust - g.h(T_REF)) - (h1 - air.h(T_REF)))
     fuel_energy = air_flow * q_in
     return {
         "net_output_kw": e["net_output_kw"],
         "heat_rate_kj_per_kwh": 3600 * q_in / w_el,
         "exhaust_flow_kg_per_s": air_flow * (1 + f),
-        "exhaust_temperature_k": t4,
+        "exhaust_temperature_k": t_exhaust,
         "air_flow_kg_per_s": air_flow,
         "lhv_kj_per_kg": chem.lhv / 1e3,
         "remainder_fraction": (fuel_energy - e["net_output_kw"] * 1e3 - exhaust) / fuel_energy,
@@ -204,7 +229,13 @@ ENGINES = [
     ("highland, firing stated", 18.0, 1600.0, 0.905, None, 0.97, 80000.0,
      {"temperature_k": 278.15, "pressure_kpa": 85.0, "relative_humidity": 0.3},
      GAS, False, True),
+    ("recuperated industrial, ratio stated", 9.0, 1420.0, 0.89, None, 0.965, 5000.0, ISO,
+     {"CH4": 1.0}, True, False),
 ]
+REGENERATORS = {
+    "recuperated industrial, ratio stated": {
+        "effectiveness": 0.86, "air_side_pressure_loss": 0.02, "gas_side_pressure_loss": 0.03},
+}
 
 
 def main():
@@ -220,6 +251,8 @@ def main():
             "rating": rating,
             "fuel": fuel,
         }
+        if name in REGENERATORS:
+            engine["regenerator"] = REGENERATORS[name]
         cases.append({
             "name": name,
             "engine": engine,

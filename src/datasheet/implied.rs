@@ -1,7 +1,7 @@
 //! What a datasheet implies, judged against the state of the art.
 //!
 //! [`assess`] runs the energy balance ([`super::balance`]) and the
-//! calibration ([`super::calibrate`]), then compares the implied values with
+//! calibration ([`mod@super::calibrate`]), then compares the implied values with
 //! [`STATE_OF_THE_ART`]:
 //!
 //! - [`Verdict::Impossible`]: a negative energy-balance remainder or one

@@ -11,7 +11,7 @@
 //!   mechanical, generator, auxiliary and casing losses; outside its
 //!   plausible range it says which figure would have to move, and by how
 //!   much.
-//! - [`calibrate`]: fits the engine's unknowns (firing temperature,
+//! - [`mod@calibrate`]: fits the engine's unknowns (firing temperature,
 //!   polytropic efficiencies, cooling fraction, air flow, electro-mechanical
 //!   efficiency) so the design solve reproduces the figures, and returns
 //!   the [`crate::cycle::EngineConfig`] an [`crate::offdesign::Machine`]
@@ -33,6 +33,7 @@ pub mod balance;
 pub mod calibrate;
 pub mod curves;
 mod error;
+mod fit;
 pub mod implied;
 mod stated;
 mod streams;

@@ -375,7 +375,13 @@ fn show(key: &str, value: f64, scenario: &Scenario) -> String {
         || key.contains("fraction")
         || key.contains("degradation");
     if key == "fuel.price" {
-        format!("{currency} {value:.3}/GJ {basis}")
+        // In the unit the file wrote its price in (a conversion for
+        // display, in the one units module).
+        let unit = crate::report::format::scenario_price_unit(&scenario.fuel);
+        <Decimal as rust_decimal::prelude::FromPrimitive>::from_f64(value).map_or_else(
+            || format!("{value:.3} {currency}/GJ {basis}"),
+            |per_gj| crate::report::format::fuel_price_as(per_gj, currency, basis, &unit),
+        )
     } else if key == "economics.carbon_price" {
         format!("{currency} {value:.2}/t CO2")
     } else if key == "economics.capacity_value" {
@@ -544,6 +550,12 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
                 PriceBasis::Lhv => "LHV",
             }
             .to_string(),
+            fuel_price_unit: crate::report::format::scenario_price_unit(&scenario.fuel),
+            fuel_price_written: crate::report::format::scenario_price_written(
+                &scenario.fuel,
+                &scenario.meta.currency,
+            ),
+            fuel_price_per_gj: scenario.fuel.price_per_gj,
             hhv_over_lhv: study.fuel.hhv_over_lhv(),
             rounding: "money rounded once, for presentation, to the minor unit; midpoints to \
                        even (banker's rounding)"

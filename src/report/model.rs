@@ -421,6 +421,20 @@ pub struct MethodView {
     pub service_life_years: u32,
     /// Fuel price basis ("HHV" or "LHV").
     pub fuel_price_basis: String,
+    /// The unit fuel prices are shown in on pages and tables: the one the
+    /// scenario file wrote its price in. Not in JSON, whose prices stay
+    /// per GJ (the key names say so).
+    #[serde(skip)]
+    pub fuel_price_unit: FuelPriceUnit,
+    /// The fuel price exactly as the file wrote it (`"3.85 USD/MMBtu"`;
+    /// a bare number gets the currency and `/GJ`); `None` when the file
+    /// gave a price path. Not in JSON.
+    #[serde(skip)]
+    pub fuel_price_written: Option<String>,
+    /// The scenario's fuel price per GJ on `fuel_price_basis`, unrounded
+    /// (the price at commercial operation for a price path). Not in JSON.
+    #[serde(skip)]
+    pub fuel_price_per_gj: Decimal,
     /// HHV/LHV ratio of the fuel.
     pub hhv_over_lhv: f64,
     /// Rounding rule for money.
@@ -437,6 +451,40 @@ pub struct MethodView {
     /// The date every present value is discounted to (ISO 8601): the
     /// commercial operation date.
     pub present_value_date: String,
+}
+
+/// The energy unit fuel prices are shown per (the one the scenario file
+/// wrote its price in).
+#[derive(Debug, Clone, PartialEq, Eq, Serialize)]
+pub struct FuelPriceUnit {
+    /// Symbol, e.g. `"MMBtu"`, `"GJ"`, `"MWh"`.
+    pub symbol: String,
+    /// Its size in GJ, exact (1 MMBtu = 1.055056 GJ; 1 MWh = 3.6 GJ).
+    pub gj_per_unit: Decimal,
+}
+
+impl FuelPriceUnit {
+    /// Per GJ, the internal unit.
+    pub fn gj() -> Self {
+        FuelPriceUnit {
+            symbol: "GJ".to_string(),
+            gj_per_unit: Decimal::ONE,
+        }
+    }
+
+    /// The unit of a written price unit such as `"USD/MMBtu"` (its part
+    /// after the slash); per GJ for a bare number or an unknown symbol.
+    pub fn from_written(unit: &str) -> Self {
+        unit.split_once('/')
+            .map(|(_, per)| per.trim())
+            .and_then(|per| {
+                crate::units::fuel_energy_unit_gj(per).map(|size| FuelPriceUnit {
+                    symbol: per.to_string(),
+                    gj_per_unit: size,
+                })
+            })
+            .unwrap_or_else(Self::gj)
+    }
 }
 
 /// Break-even premium against fuel price.

@@ -16,11 +16,23 @@ impl Renderer for TableRenderer {
         let meta = &model.meta;
         out.push_str(&format!("{}\n", meta.title));
         out.push_str(&format!(
-            "Baseline: {}   Currency: {}   Scenario: {} (sha256 {})\n\n",
+            "Baseline: {}   Currency: {}   Scenario: {} (sha256 {})\n",
             meta.baseline_id,
             meta.currency,
             meta.scenario_file,
             &meta.scenario_sha256[..meta.scenario_sha256.len().min(12)]
+        ));
+        let m = &model.method;
+        out.push_str(&format!(
+            "Fuel price: {}\n\n",
+            format::fuel_price_echo(
+                m.fuel_price_per_gj,
+                m.fuel_price_written.as_deref(),
+                &meta.currency,
+                &m.fuel_price_basis,
+                &m.fuel_price_unit,
+                meta.units,
+            )
         ));
         out.push_str("Performance at site, new and clean, full load (heat rate on LHV)\n");
         out.push_str(&performance_table(model));

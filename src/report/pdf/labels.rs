@@ -54,6 +54,7 @@ labels! {
     study_date,
     site,
     scenario_file,
+    fuel_price,
     recommendation,
     key_figures,
     figure,

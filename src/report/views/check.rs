@@ -122,7 +122,14 @@ fn summary(loaded: &LoadedScenario, units: Units) -> String {
     let _ = writeln!(
         out,
         "          {}, escalating {}/yr{path}",
-        format::fuel_price(fuel.price_per_gj, cur, basis, units),
+        format::fuel_price_echo(
+            fuel.price_per_gj,
+            format::scenario_price_written(fuel, cur).as_deref(),
+            cur,
+            basis,
+            &format::scenario_price_unit(fuel),
+            units
+        ),
         percent(fuel.escalation)
     );
     let e = &s.economics;

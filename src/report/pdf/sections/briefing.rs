@@ -6,7 +6,7 @@ use super::{pdf_units, Ctx};
 use crate::report::charts::geometry::{Anchor, Colour, Mark, Pt, Weight};
 use crate::report::format;
 use crate::report::model::{CandidateView, Model};
-use crate::report::pdf::context::{short_money, unit_price, with_candidate};
+use crate::report::pdf::context::{short_money, with_candidate};
 use crate::report::pdf::document::{line_height_mm, Composer, BODY_PT};
 use crate::report::pdf::fonts::{Face, MM_PER_PT};
 use crate::report::pdf::table::{draw_table, Column, TableStyle};
@@ -37,11 +37,12 @@ pub fn key_figures(c: &CandidateView, model: &Model) -> Vec<String> {
         if p.is_sign_negative() {
             return "none above zero".to_string();
         }
-        format!(
-            "{}/GJ {}",
-            unit_price(p, currency),
-            model.method.fuel_price_basis
-        )
+        pdf_units(format::fuel_price_as(
+            p,
+            currency,
+            &model.method.fuel_price_basis,
+            &model.method.fuel_price_unit,
+        ))
     });
     vec![
         format!(
@@ -119,6 +120,18 @@ fn title_block(ctx: &Ctx, composer: &mut Composer) {
         facts.push((l.site.as_str(), site.clone()));
     }
     facts.push((l.scenario_file.as_str(), meta.scenario_file.clone()));
+    let m = &ctx.model.method;
+    facts.push((
+        l.fuel_price.as_str(),
+        pdf_units(format::fuel_price_echo(
+            m.fuel_price_per_gj,
+            m.fuel_price_written.as_deref(),
+            &meta.currency,
+            &m.fuel_price_basis,
+            &m.fuel_price_unit,
+            meta.units,
+        )),
+    ));
     let label_width = 32.0;
     for (name, value) in facts {
         let lines = wrap(

@@ -285,6 +285,11 @@ fn check_echoes_us_units() {
     let si = stdout(&["check", DEMO]);
     // SI readers get the per-GJ value beside it: 3.85 / 1.055056.
     assert!(si.contains("3.85 USD/MMBtu HHV (3.6491 USD/GJ)"), "{si}");
+    // The HHV/LHV conversion is information, not a warning.
+    let (info, warnings) = si.split_once("Warnings").expect("a warnings line");
+    assert!(info.contains("Information:"), "{si}");
+    assert!(info.contains("HHV/LHV ratio"), "{si}");
+    assert!(!warnings.contains("HHV/LHV"), "{si}");
     assert!(si.contains("288.15 K"), "{si}");
 }
 

@@ -11,7 +11,8 @@ use crate::finance::{
 };
 use crate::report::model::*;
 use crate::scenario::{
-    engineering_warnings, LoadedScenario, PriceBasis, RateBasis, Scenario, Timing,
+    engineering_warnings, information_notes, LoadedScenario, PriceBasis, RateBasis, Scenario,
+    Timing,
 };
 use rust_decimal::Decimal;
 
@@ -530,6 +531,7 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
             })
             .collect(),
         warnings,
+        information: information_notes(scenario),
         method: MethodView {
             gas_models,
             rate_basis: match e.rate_basis {

@@ -31,6 +31,7 @@ pub fn to_value(model: &Model) -> Value {
         "decision": model.decision,
         "candidates": model.candidates.iter().map(candidate).collect::<Vec<_>>(),
         "warnings": model.warnings,
+        "information": model.information,
         "method": model.method,
     });
     if !model.sensitivity.is_empty() {

@@ -39,6 +39,9 @@ pub struct Model {
     pub applied_defaults: Vec<DefaultView>,
     /// Warnings an engineer would want to see (from `check`).
     pub warnings: Vec<String>,
+    /// Information that is not a warning: routine conversions brayfin
+    /// made (e.g. pricing LHV fuel energy per unit of HHV).
+    pub information: Vec<String>,
     /// How the numbers were made.
     pub method: MethodView,
     /// Break-even premium of each non-baseline candidate against fuel price.

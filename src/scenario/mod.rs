@@ -39,4 +39,4 @@ pub use load::{load, parse, LoadedScenario};
 pub use ranges::HOURS_PER_LEAP_YEAR;
 pub use site::iso_2533_pressure_kpa;
 pub use types::*;
-pub use warnings::engineering_warnings;
+pub use warnings::{engineering_warnings, information_notes};

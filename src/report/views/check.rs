@@ -41,6 +41,13 @@ fn report(loaded: &LoadedScenario, extra_warnings: Vec<String>, units: Units) ->
     let mut warnings = scenario::engineering_warnings(&loaded.scenario);
     warnings.extend(extra_warnings);
     let mut out = summary(loaded, units);
+    let notes = scenario::information_notes(&loaded.scenario);
+    if !notes.is_empty() {
+        out.push_str("\nInformation:\n");
+        for n in &notes {
+            let _ = writeln!(out, "  - {n}");
+        }
+    }
     if warnings.is_empty() {
         out.push_str("\nWarnings: none\n");
     } else {

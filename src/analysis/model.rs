@@ -219,6 +219,15 @@ fn candidate_view(loaded: &LoadedScenario, study: &Study, index: usize) -> Candi
         },
     };
     let [compressor, turbine, regenerator] = outcome.value_per_point;
+    // Dispatch-weighted over full-load heat rate: the year's fuel energy
+    // (GJ · 1e6 kJ/GJ) over its energy (MWh · 1e3 kWh/MWh), divided by the
+    // full-load heat rate the part-load ratios multiply.
+    let operation = &outcome.inputs.operation;
+    let dispatch_ratio = if operation.energy_mwh > 0.0 && cycle.heat_rate_kj_per_kwh > 0.0 {
+        operation.fuel_energy_gj_lhv * 1000.0 / operation.energy_mwh / cycle.heat_rate_kj_per_kwh
+    } else {
+        1.0
+    };
     CandidateView {
         id: candidate.id.clone(),
         label: candidate.label.clone(),
@@ -294,6 +303,11 @@ fn candidate_view(loaded: &LoadedScenario, study: &Study, index: usize) -> Candi
                 regenerator_effectiveness: regenerator.map(money),
             },
             value_per_kj_per_kwh: money(outcome.bid.pv_per_kj_per_kwh.unwrap_or_default()),
+            value_per_kj_per_kwh_full_load: money(
+                outcome.bid.pv_per_kj_per_kwh.unwrap_or_default()
+                    * Decimal::from_f64_retain(dispatch_ratio).unwrap_or(Decimal::ONE),
+            ),
+            dispatch_heat_rate_ratio: dispatch_ratio,
             value_per_kw: money(outcome.bid.pv_per_kw_net_output),
         },
         verdict,

@@ -309,6 +309,18 @@ pub fn scenario_price_written(fuel: &crate::scenario::FuelSpec, currency: &str) 
     })
 }
 
+/// A value per kJ/kWh of heat rate as a value per unit of heat rate in
+/// `units`: per kJ/kWh (SI) or per Btu/kWh (US; 1 Btu/kWh = 1.055056
+/// kJ/kWh, NIST SP 811, Appendix B.8), exact decimal arithmetic.
+pub fn per_heat_rate_unit(per_kj_per_kwh: Decimal, units: Units) -> Decimal {
+    match units {
+        Units::Si => per_kj_per_kwh,
+        Units::Us => per_kj_per_kwh
+            .checked_mul(Decimal::new(1_055_056, 6))
+            .unwrap_or(per_kj_per_kwh),
+    }
+}
+
 /// The name a unit system is echoed with in outputs (`"SI"`, `"US"`).
 pub fn units_name(units: Units) -> &'static str {
     match units {

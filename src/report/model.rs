@@ -263,9 +263,24 @@ pub struct EconomicsView {
     pub break_even_fuel_price: Option<Decimal>,
     /// Present value of one point of each component figure.
     pub value_per_point: ValuePerPoint,
-    /// Present value of one kJ/kWh of heat rate over the life.
+    /// Present value of one kJ/kWh of heat rate over the life, per kJ/kWh
+    /// of the dispatch-weighted heat rate (the year's fuel energy over its
+    /// energy).
     pub value_per_kj_per_kwh: Decimal,
-    /// Present value of one kW of net output over the life.
+    /// Present value of one kJ/kWh of the full-load heat rate (the figure
+    /// a bid guarantees) over the life: `value_per_kj_per_kwh` ×
+    /// `dispatch_heat_rate_ratio`. Part-load heat rates are the full-load
+    /// heat rate times a ratio from the part-load table, so 1 kJ/kWh more
+    /// at full load is that ratio's energy-weighted mean more over the
+    /// year; fuel and carbon cost are linear in fuel energy.
+    pub value_per_kj_per_kwh_full_load: Decimal,
+    /// Dispatch-weighted heat rate over full-load heat rate (the
+    /// energy-weighted mean of the part-load ratios; 1 with every hour at
+    /// full load).
+    pub dispatch_heat_rate_ratio: f64,
+    /// Present value of one kW more net output over the life, per kW of
+    /// the output as rated in the bid (the rating the capacity value is
+    /// paid on): the capacity value less the fixed O&M on that kW.
     pub value_per_kw: Decimal,
 }
 

@@ -38,6 +38,11 @@ impl Renderer for TableRenderer {
         out.push_str(&performance_table(model));
         out.push_str("\n\nEconomics over the service life (present values)\n");
         out.push_str(&economics_table(model));
+        out.push_str(
+            "\n\nEvaluation factors: what one unit more of each figure is worth over the life \
+             (present values; heat rate at full load)\n",
+        );
+        out.push_str(&factors_table(model));
         out.push_str("\n\nVerdict\n");
         for c in &model.candidates {
             out.push_str(&format!("  {}\n", verdict_line(c, &meta.currency)));
@@ -141,6 +146,46 @@ fn economics_table(model: &Model) -> String {
             e.adjusted_irr
                 .map_or_else(|| "n/a".into(), |v| format!("{:.2}", v * 100.0)),
             format::payback(e.discounted_payback),
+        ]);
+    }
+    finish(b.build())
+}
+
+fn factors_table(model: &Model) -> String {
+    let cur = &model.meta.currency;
+    let units = model.meta.units;
+    let m = &model.method;
+    let mut b = Builder::default();
+    b.push_record([
+        "candidate".to_string(),
+        format!(
+            "1 {} lower heat rate",
+            format::unit(format::Quantity::HeatRate, units)
+        ),
+        "1 kW more output".to_string(),
+        "1 pt compressor".to_string(),
+        "1 pt turbine".to_string(),
+        "1 pt regenerator".to_string(),
+        "break-even fuel price".to_string(),
+    ]);
+    for c in &model.candidates {
+        let e = &c.economics;
+        let fuel = match e.break_even_fuel_price {
+            None => "n/a".to_string(),
+            Some(p) if p.is_sign_negative() => "none above zero".to_string(),
+            Some(p) => format::fuel_price_as(p, cur, &m.fuel_price_basis, &m.fuel_price_unit),
+        };
+        b.push_record([
+            c.id.clone(),
+            money(
+                format::per_heat_rate_unit(e.value_per_kj_per_kwh_full_load, units),
+                cur,
+            ),
+            money(e.value_per_kw, cur),
+            money(e.value_per_point.compressor_efficiency, cur),
+            money(e.value_per_point.turbine_efficiency, cur),
+            money_opt(e.value_per_point.regenerator_effectiveness, cur),
+            fuel,
         ]);
     }
     finish(b.build())

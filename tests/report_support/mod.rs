@@ -174,6 +174,8 @@ fn candidate(
                 regenerator_effectiveness: regenerator.then(|| dec(800_000)),
             },
             value_per_kj_per_kwh: dec(4_100),
+            value_per_kj_per_kwh_full_load: dec(4_200),
+            dispatch_heat_rate_ratio: 4_200.0 / 4_100.0,
             value_per_kw: dec(1_350),
         },
         verdict: Verdict { kind, margin },

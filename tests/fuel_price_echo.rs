@@ -164,4 +164,12 @@ fn briefing_echoes_a_price_per_mwh() {
             .any(|p| p.contains("Fuel price, EUR/MWh (LHV)")),
         "the fuel-price chart's axis is per MWh"
     );
+    // The marker names the file's price itself, not a per-GJ price rounded
+    // to the cent and converted back (9.44 × 3.6 = 33.98).
+    assert!(
+        pages
+            .iter()
+            .any(|p| p.contains("scenario price 34.00 EUR/MWh")),
+        "the scenario-price marker is the file's 34 EUR/MWh"
+    );
 }

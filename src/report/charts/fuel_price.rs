@@ -25,7 +25,8 @@ pub fn fuel_price_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Ch
     // Prices are drawn in the unit the scenario file wrote its price in.
     let unit = &model.method.fuel_price_unit;
     let in_unit = |per_gj| money_f64(format::fuel_price_in(per_gj, unit));
-    let scenario_price = in_unit(curves.scenario_price_per_gj);
+    // The file's own price, unrounded (34 EUR/MWh, not 9.44 EUR/GJ × 3.6).
+    let scenario_price = in_unit(model.method.fuel_price_per_gj);
     let asked: Vec<(usize, f64)> = series
         .iter()
         .enumerate()
@@ -126,7 +127,7 @@ pub fn fuel_price_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Ch
         format!(
             "{} {}",
             labels.scenario_price,
-            format::fuel_price_as(curves.scenario_price_per_gj, currency, "", unit)
+            format::fuel_price_as(model.method.fuel_price_per_gj, currency, "", unit)
         ),
         SMALL_PT,
         Anchor::Left,

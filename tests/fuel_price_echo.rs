@@ -173,3 +173,41 @@ fn briefing_echoes_a_price_per_mwh() {
         "the scenario-price marker is the file's 34 EUR/MWh"
     );
 }
+
+#[test]
+fn a_price_path_is_echoed_in_the_unit_of_its_years() {
+    // The demo with its price replaced by a path in USD/MMBtu covering the
+    // service life (2027 to 2057), 3.85 in the first year.
+    let years: Vec<String> = (2027..=2057)
+        .map(|y| {
+            format!(
+                "{y} = \"{:.2} USD/MMBtu\"",
+                3.85 + 0.01 * f64::from(y - 2027)
+            )
+        })
+        .collect();
+    let text = std::fs::read_to_string(CORVEL)
+        .unwrap()
+        .replacen(
+            "price = \"3.85 USD/MMBtu\"",
+            &format!("price_path = {{ {} }}", years.join(", ")),
+            1,
+        )
+        .replacen(
+            "price = \"Utility fuel desk forward view, 2027 delivery\", ",
+            "",
+            1,
+        );
+    let dir = tempfile::tempdir().unwrap();
+    let path = dir.path().join("path.toml");
+    std::fs::write(&path, text).unwrap();
+    let path = path.to_str().unwrap();
+    let table = stdout(&["compare", path]);
+    assert!(
+        table.contains("Fuel price: 3.85 USD/MMBtu HHV (3.6491 USD/GJ)"),
+        "{table}"
+    );
+    let row = stdout(&["compare", path, "--sensitivity"]);
+    let row = row.lines().find(|l| l.contains("fuel.price")).unwrap();
+    assert!(row.contains("USD/MMBtu HHV"), "{row}");
+}

@@ -289,12 +289,20 @@ pub fn fuel_price_echo(
     format!("{first} ({value} {currency}/{})", reader.symbol)
 }
 
-/// The unit a scenario file wrote its fuel price in (per GJ for a price
-/// path or a bare number).
-pub fn scenario_price_unit(fuel: &crate::scenario::FuelSpec) -> FuelPriceUnit {
-    fuel.price_written
-        .as_ref()
-        .map_or_else(FuelPriceUnit::gj, |w| FuelPriceUnit::from_written(&w.unit))
+/// The unit a scenario file wrote its fuel price in: that of `price`, else
+/// that of the first year of `price_path` (per GJ for bare numbers).
+pub fn scenario_price_unit(loaded: &crate::scenario::LoadedScenario) -> FuelPriceUnit {
+    let written = loaded.scenario.fuel.price_written.as_ref().map_or_else(
+        || {
+            loaded
+                .inputs
+                .iter()
+                .find(|line| line.key.starts_with("fuel.price_path"))
+                .map_or("", |line| line.unit.as_str())
+        },
+        |w| w.unit.as_str(),
+    );
+    FuelPriceUnit::from_written(written)
 }
 
 /// A scenario's fuel price as its file wrote it (`"3.85 USD/MMBtu"`; a

@@ -134,7 +134,7 @@ fn summary(loaded: &LoadedScenario, units: Units) -> String {
             format::scenario_price_written(fuel, cur).as_deref(),
             cur,
             basis,
-            &format::scenario_price_unit(fuel),
+            &format::scenario_price_unit(loaded),
             units
         ),
         percent(fuel.escalation)

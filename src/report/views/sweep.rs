@@ -204,7 +204,7 @@ impl<'a> SweepView<'a> {
                                 PriceBasis::Hhv => "HHV",
                                 PriceBasis::Lhv => "LHV",
                             },
-                            &format::scenario_price_unit(fuel),
+                            &format::scenario_price_unit(self.loaded),
                             self.units,
                         )
                     ));

@@ -34,9 +34,9 @@ pub use context::{AppliedDefault, InputLine};
 pub use declare::{
     check_candidate_value, check_flag_value, check_scenario_value, declared_key_paths, docs_tables,
 };
-pub use error::{KeyError, ScenarioError};
+pub use error::{clip, clip_long, KeyError, ScenarioError};
 pub use load::{load, parse, LoadedScenario};
 pub use ranges::HOURS_PER_LEAP_YEAR;
 pub use site::iso_2533_pressure_kpa;
 pub use types::*;
-pub use warnings::engineering_warnings;
+pub use warnings::{engineering_warnings, information_notes};

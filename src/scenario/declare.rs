@@ -264,6 +264,7 @@ pub(crate) fn scenario_keys() -> impl Iterator<Item = &'static Key<Scenario>> {
 pub(crate) fn candidate_keys() -> impl Iterator<Item = &'static Key<Candidate>> {
     super::candidate::KEYS
         .iter()
+        .chain(super::candidate_control::KEYS)
         .chain(super::candidate_costs::KEYS)
 }
 

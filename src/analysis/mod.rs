@@ -4,6 +4,7 @@
 pub mod compare;
 pub mod engine;
 pub mod evaluate;
+pub mod machine;
 pub mod model;
 pub mod operation;
 pub mod sensitivity;

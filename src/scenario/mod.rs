@@ -39,6 +39,6 @@ pub use declare::{
 pub use error::{KeyError, ScenarioError};
 pub use load::{load, parse, LoadedScenario};
 pub use ranges::HOURS_PER_LEAP_YEAR;
-pub use site::iso_2533_pressure_kpa;
+pub use site::{iso_2533_pressure_kpa, ELEVATION_RANGE_M};
 pub use types::*;
 pub use warnings::engineering_warnings;

@@ -22,7 +22,7 @@ pub fn iso_2533_pressure_kpa(elevation_m: f64) -> f64 {
 
 /// Elevations where the troposphere formula holds, m (ISO 2533 tabulates
 /// from −2 km; the troposphere ends at 11 km).
-const ELEVATION_RANGE_M: (f64, f64) = (-500.0, 11_000.0);
+pub const ELEVATION_RANGE_M: (f64, f64) = (-500.0, 11_000.0);
 
 /// The keys of `[site]`.
 pub(crate) const KEYS: &[Key<Scenario>] = &[

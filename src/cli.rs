@@ -100,11 +100,13 @@ pub struct CycleArgs {
     #[arg(long, default_value = "101.325 kPa")]
     pub ambient_pressure: String,
     /// Compressor efficiency, isentropic unless --polytropic (0 < e <= 1).
-    #[arg(long, default_value = "1.0")]
-    pub compressor_efficiency: String,
+    /// Default 1 (ideal; the output says so).
+    #[arg(long)]
+    pub compressor_efficiency: Option<String>,
     /// Turbine efficiency, isentropic unless --polytropic (0 < e <= 1).
-    #[arg(long, default_value = "1.0")]
-    pub turbine_efficiency: String,
+    /// Default 1 (ideal; the output says so).
+    #[arg(long)]
+    pub turbine_efficiency: Option<String>,
     /// The compressor and turbine efficiencies are polytropic.
     #[arg(long)]
     pub polytropic: bool,
@@ -117,6 +119,33 @@ pub struct CycleArgs {
     /// Combustor pressure loss, fraction of inlet pressure.
     #[arg(long, default_value = "0")]
     pub combustor_pressure_loss: String,
+    /// Fraction of the fuel's heating value released (0 < e <= 1).
+    #[arg(long, default_value = "1.0")]
+    pub combustion_efficiency: String,
+    /// Inlet duct and filter pressure loss, fraction of ambient pressure.
+    #[arg(long, default_value = "0")]
+    pub inlet_pressure_loss: String,
+    /// Exhaust pressure loss, fraction of ambient pressure.
+    #[arg(long, default_value = "0")]
+    pub exhaust_pressure_loss: String,
+    /// Mechanical efficiency of the shaft train (0 < e <= 1).
+    /// Default 1 (ideal; the output says so).
+    #[arg(long)]
+    pub mechanical_efficiency: Option<String>,
+    /// Generator efficiency (0 < e <= 1).
+    /// Default 1 (ideal; the output says so).
+    #[arg(long)]
+    pub generator_efficiency: Option<String>,
+    /// Auxiliary load, fraction of gross electrical output.
+    #[arg(long, default_value = "0")]
+    pub auxiliary_load: String,
+    /// Fraction of compressor delivery air that bypasses the combustor and
+    /// mixes in ahead of the turbine rotor.
+    #[arg(long, default_value = "0")]
+    pub turbine_cooling: String,
+    /// Ambient relative humidity (`60 %` or 0.6); needs --gas air or products.
+    #[arg(long, default_value = "0")]
+    pub relative_humidity: String,
     /// Intercooler exit temperature; omit for no intercooler (split at the
     /// geometric mean pressure).
     #[arg(long)]

@@ -420,6 +420,14 @@ const FLAG_KEYS: &[(&str, &str)] = &[
     ("intercool-temperature", "intercooler.exit_temperature"),
     ("reheat-temperature", "reheat.temperature"),
     ("net-output", "net_output"),
+    ("combustion-efficiency", "combustion_efficiency"),
+    ("inlet-pressure-loss", "inlet_pressure_loss"),
+    ("exhaust-pressure-loss", "exhaust_pressure_loss"),
+    ("mechanical-efficiency", "mechanical_efficiency"),
+    ("generator-efficiency", "generator_efficiency"),
+    ("auxiliary-load", "auxiliary_load"),
+    ("turbine-cooling", "turbine_cooling"),
+    ("relative-humidity", "site.relative_humidity"),
 ];
 
 /// Check the value of a `cycle` flag (named without its dashes, e.g.

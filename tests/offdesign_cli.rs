@@ -260,3 +260,68 @@ fn control_limits_without_an_operating_point_name_the_control_table() {
         "5.0 % load",
     );
 }
+
+/// `check` says when a bid's fixed machine at the site differs by more than
+/// 1 % from what the comparison prices (issue 10: a 40 °C site or 1500 m
+/// elevation went unremarked), and stays quiet on the demo's mild site.
+#[test]
+fn check_notes_a_site_where_the_machine_differs_from_its_rating() {
+    let text = std::fs::read_to_string(DEMO).expect("demo");
+    let dir = tempfile::tempdir().expect("temp dir");
+    for (name, from, to) in [
+        (
+            "hot.toml",
+            "ambient_temperature = \"59 degF\"",
+            "ambient_temperature = \"40 degC\"",
+        ),
+        (
+            "high.toml",
+            "elevation = \"120 ft\"",
+            "elevation = \"1500 m\"",
+        ),
+    ] {
+        assert!(text.contains(from));
+        let path = dir.path().join(name);
+        std::fs::write(&path, text.replacen(from, to, 1)).expect("write scenario");
+        Command::cargo_bin("brayfin")
+            .expect("binary builds")
+            .arg("check")
+            .arg(&path)
+            .assert()
+            .success()
+            .stdout(
+                predicate::str::contains("candidate[standard]: as a fixed machine at the site")
+                    .and(predicate::str::contains("do not follow the machine yet")),
+            );
+    }
+    Command::cargo_bin("brayfin")
+        .expect("binary builds")
+        .args(["check", DEMO])
+        .assert()
+        .success()
+        .stdout(predicate::str::contains("as a fixed machine").not());
+}
+
+/// The cold-air standard has no water vapour: its machine runs dry at a
+/// humid site instead of being refused, and the point says so.
+#[test]
+fn a_cold_air_candidate_runs_dry() {
+    let text = std::fs::read_to_string(DEMO).expect("demo");
+    let dir = tempfile::tempdir().expect("temp dir");
+    let path = dir.path().join("cold.toml");
+    let changed = text.replacen("gas_model = \"products\"", "gas_model = \"cold-air\"", 1);
+    std::fs::write(&path, changed).expect("write scenario");
+    let path = path.to_string_lossy().into_owned();
+    let v = json(&[
+        &path,
+        "--candidate",
+        "standard",
+        "--temperature",
+        "15 degC",
+        "--load",
+        "100 %",
+    ]);
+    let p = &v["candidates"][0]["points"][0];
+    assert_eq!(number(p, "relative_humidity"), 0.0);
+    assert!(number(p, "net_output_kw") > 0.0);
+}

@@ -86,7 +86,7 @@ fn control_table_sets_the_strategy() {
     let at = |loaded: &LoadedScenario| {
         let s = &loaded.scenario;
         let m = machine_of(&s.candidates[0], &s.site, &fuel).expect("machine");
-        m.solve(site_ambient(&s.site), Load(0.6))
+        m.solve(site_ambient(&s.candidates[0], &s.site), Load(0.6))
             .expect("60 % load")
     };
     assert_eq!(at(&fixed).airflow_fraction, 1.0);
@@ -94,7 +94,7 @@ fn control_table_sets_the_strategy() {
     let s = &fixed.scenario;
     let m = machine_of(&s.candidates[0], &s.site, &fuel).expect("machine");
     let e = m
-        .solve(site_ambient(&s.site), Load(0.35))
+        .solve(site_ambient(&s.candidates[0], &s.site), Load(0.35))
         .expect_err("below the minimum load");
     assert_eq!(e.field(), Some("load"));
 }

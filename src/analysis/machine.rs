@@ -7,10 +7,13 @@
 //! 101.325 kPa), never the site's: a bid's datasheet states its own
 //! reference condition, and the site is where the machine runs.
 
+use super::compare::Study;
 use super::engine::{engine_config_of, gas_model_of};
 use crate::fuel::Fuel;
-use crate::offdesign::{Ambient, Control, Machine, OffDesignError, Strategy};
-use crate::scenario::{Candidate, ControlSpec, ControlStrategy, LoadedScenario, Site};
+use crate::offdesign::{Ambient, Control, Load, Machine, OffDesignError, Strategy};
+use crate::scenario::{
+    Candidate, ControlSpec, ControlStrategy, GasModelSpec, LoadedScenario, Scenario, Site,
+};
 use crate::Error;
 
 /// The off-design control of a candidate's `[candidate.control]`.
@@ -26,23 +29,90 @@ pub fn control_of(spec: &ControlSpec) -> Control {
     }
 }
 
-/// The rating condition of a candidate as an [`Ambient`].
+/// The relative humidity a candidate's gas model can carry: the cold-air
+/// standard has no water vapour (its constant cp stands for dry air), so
+/// its machine runs dry whatever the air holds; `air` and `products` carry
+/// `relative_humidity` as given.
+pub fn humidity_for(candidate: &Candidate, relative_humidity: f64) -> f64 {
+    match candidate.gas_model {
+        GasModelSpec::ColdAir { .. } => 0.0,
+        GasModelSpec::Air | GasModelSpec::Products => relative_humidity,
+    }
+}
+
+/// The rating condition of a candidate as an [`Ambient`] (dry for a
+/// cold-air candidate, see [`humidity_for`]).
 pub fn rating_of(candidate: &Candidate) -> Ambient {
     Ambient {
         temperature_k: candidate.rating.temperature_k,
         pressure_kpa: candidate.rating.pressure_kpa,
-        relative_humidity: candidate.rating.relative_humidity,
+        relative_humidity: humidity_for(candidate, candidate.rating.relative_humidity),
     }
 }
 
 /// The site's ambient (temperature, pressure or the elevation's ISO 2533
-/// pressure, relative humidity).
-pub fn site_ambient(site: &Site) -> Ambient {
+/// pressure, relative humidity); a cold-air candidate takes it dry
+/// ([`humidity_for`]).
+pub fn site_ambient(candidate: &Candidate, site: &Site) -> Ambient {
     Ambient {
         temperature_k: site.ambient_temperature_k,
         pressure_kpa: site.ambient_pressure_kpa,
-        relative_humidity: site.relative_humidity,
+        relative_humidity: humidity_for(candidate, site.relative_humidity),
     }
+}
+
+/// Above this relative difference between what a candidate's fixed machine
+/// makes at the site and what the comparison prices (its rated output, the
+/// design-point heat rate at the site), `check` says so: 1 % is about the
+/// uncertainty of an output acceptance test (ASME PTC 22 puts output at
+/// roughly 1 %, from memory), so a smaller difference is within what a test
+/// could tell.
+const SITE_NOTE_FRACTION: f64 = 0.01;
+
+/// Notes for `check`: each candidate whose fixed machine at the site's
+/// ambient differs from what `compare` prices by more than 1 % in output or
+/// heat rate, or that cannot be built as a fixed machine. The comparison
+/// does not follow the machine yet; these notes say where that matters.
+pub fn site_notes(scenario: &Scenario, study: &Study) -> Vec<String> {
+    let mut notes = Vec::new();
+    for (candidate, outcome) in scenario.candidates.iter().zip(&study.outcomes) {
+        let ambient = site_ambient(candidate, &scenario.site);
+        let point = machine_of(candidate, &scenario.site, &study.fuel)
+            .and_then(|m| m.solve(ambient, Load::BASE));
+        let p = match point {
+            Ok(p) => p,
+            Err(e) => {
+                notes.push(format!(
+                    "candidate[{}]: not solved as a fixed machine at the site ({e}); \
+                     `brayfin offdesign` refuses it",
+                    candidate.id
+                ));
+                continue;
+            }
+        };
+        let priced_hr = outcome.solved.cycle.heat_rate_kj_per_kwh;
+        let output = p.net_output_kw / candidate.net_output_kw - 1.0;
+        let heat_rate = p.heat_rate_kj_per_kwh / priced_hr - 1.0;
+        if output.abs() > SITE_NOTE_FRACTION || heat_rate.abs() > SITE_NOTE_FRACTION {
+            notes.push(format!(
+                "candidate[{}]: as a fixed machine at the site ({:.2} K, {:.3} kPa, {:.0} % \
+                 relative humidity) it makes {:.0} kW ({:+.1} %) at {:.0} kJ/kWh ({:+.1} %) \
+                 against the {:.0} kW and {:.0} kJ/kWh the comparison prices; compare, report, \
+                 sweep and risk do not follow the machine yet (see `brayfin offdesign`)",
+                candidate.id,
+                ambient.temperature_k,
+                ambient.pressure_kpa,
+                ambient.relative_humidity * 100.0,
+                p.net_output_kw,
+                output * 100.0,
+                p.heat_rate_kj_per_kwh,
+                heat_rate * 100.0,
+                candidate.net_output_kw,
+                priced_hr,
+            ));
+        }
+    }
+    notes
 }
 
 /// Calibrate a candidate's fixed machine at its rating condition: its

@@ -3,7 +3,7 @@
 //! humidity. Every point is solved before anything is returned, so a
 //! refusal anywhere leaves nothing printed.
 
-use super::machine::machine_of;
+use super::machine::{humidity_for, machine_of};
 use crate::fuel::Fuel;
 use crate::offdesign::{Ambient, Load, OffDesignError, OffDesignPoint};
 use crate::scenario::Scenario;
@@ -40,7 +40,8 @@ pub struct GridRequest {
     pub loads: Option<Vec<f64>>,
     /// Ambient pressure, kPa.
     pub pressure_kpa: f64,
-    /// Relative humidity, 0 to 1.
+    /// Relative humidity, 0 to 1 (a cold-air candidate runs dry, see
+    /// [`humidity_for`]).
     pub relative_humidity: f64,
 }
 
@@ -128,7 +129,7 @@ pub fn solve_grid(
             let ambient = Ambient {
                 temperature_k,
                 pressure_kpa: request.pressure_kpa,
-                relative_humidity: request.relative_humidity,
+                relative_humidity: humidity_for(candidate, request.relative_humidity),
             };
             for &load in &loads {
                 let point =

@@ -126,7 +126,6 @@ fn inputs(args: &CycleArgs) -> Result<(EngineConfig, GasModel, Fuel)> {
         intercooler,
         reheat,
         sizing,
-        ..EngineConfig::ideal(2.0, 1000.0)
     };
     let gas = match args.gas {
         GasModelArg::ColdAir => GasModel::cold_air_standard(),

@@ -379,8 +379,9 @@ fn negative_efficiency_is_an_input_error_naming_the_flag() {
 
 /// `cycle` reproduces a scenario's heat rate once every loss the scenario
 /// gives is given as a flag: the demo's `standard` bid at its site
-/// (59 degF; 120 ft, so ISO 2533 gives 100.886378 kPa), against the heat
-/// rate `compare` prints for it. Same solver, so to 1e-9 relative.
+/// (59 degF; 120 ft, so ISO 2533 gives 100.886378 kPa; the default 60 %
+/// relative humidity), against the heat rate `compare` prints for it. Same
+/// solver, so to 1e-9 relative.
 #[test]
 fn cycle_flags_reproduce_a_scenario_heat_rate() {
     let out = Command::cargo_bin("brayfin")
@@ -431,6 +432,8 @@ fn cycle_flags_reproduce_a_scenario_heat_rate() {
         "59 degF",
         "--ambient-pressure",
         "100.88637780766385 kPa",
+        "--relative-humidity",
+        "60 %",
     ]);
     let hr = v["heat_rate_kj_per_kwh"].as_f64().expect("heat rate");
     assert!(

@@ -4,7 +4,9 @@
 pub mod compare;
 pub mod engine;
 pub mod evaluate;
+pub mod machine;
 pub mod model;
+pub mod offdesign_grid;
 pub mod operation;
 pub mod sensitivity;
 pub mod warnings;

@@ -57,5 +57,37 @@ fn bench(c: &mut Criterion) {
     group.finish();
 }
 
-criterion_group!(benches, bench);
+/// What `brayfin offdesign scenarios/corvel-bay-peaker.toml --format json`
+/// computes after reading its file: three machines calibrated, the default
+/// grid (12 temperatures × 8 loads each) solved, the JSON rendered. The
+/// whole-process figure (with start-up and the file read) is measured from
+/// outside on the release binary; this is the library's share of it.
+fn demo_grid(c: &mut Criterion) {
+    use brayfin::analysis::engine::fuel_of;
+    use brayfin::analysis::offdesign_grid::{solve_grid, GridRequest};
+    use brayfin::report::model::Units;
+    use brayfin::report::views::{offdesign::OffDesignView, View};
+    let loaded = brayfin::scenario::load(std::path::Path::new("scenarios/corvel-bay-peaker.toml"))
+        .expect("the demo loads");
+    let scenario = &loaded.scenario;
+    let fuel = fuel_of(&scenario.fuel).expect("the demo fuel");
+    let request = GridRequest {
+        candidate: None,
+        temperatures_k: None,
+        loads: None,
+        pressure_kpa: scenario.site.ambient_pressure_kpa,
+        relative_humidity: scenario.site.relative_humidity,
+    };
+    c.bench_function("offdesign_demo_default_grid_json", |b| {
+        b.iter(|| {
+            let grids = solve_grid(black_box(scenario), &fuel, &request).expect("the grid solves");
+            OffDesignView::new(&grids, Units::Si)
+                .json()
+                .expect("JSON renders")
+                .len()
+        })
+    });
+}
+
+criterion_group!(benches, bench, demo_grid);
 criterion_main!(benches);

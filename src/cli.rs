@@ -65,6 +65,8 @@ pub enum Command {
     Cycle(CycleArgs),
     /// Compare the candidates of a scenario against its baseline.
     Compare(CompareArgs),
+    /// Each candidate as a fixed machine over ambient temperatures and loads.
+    Offdesign(OffdesignArgs),
     /// Write the PDF briefing of a scenario.
     Report(ReportArgs),
     /// Vary one or two scenario inputs over a range and re-solve each point.
@@ -98,11 +100,13 @@ pub struct CycleArgs {
     #[arg(long, default_value = "101.325 kPa")]
     pub ambient_pressure: String,
     /// Compressor efficiency, isentropic unless --polytropic (0 < e <= 1).
-    #[arg(long, default_value = "1.0")]
-    pub compressor_efficiency: String,
+    /// Default 1 (ideal; the output says so).
+    #[arg(long)]
+    pub compressor_efficiency: Option<String>,
     /// Turbine efficiency, isentropic unless --polytropic (0 < e <= 1).
-    #[arg(long, default_value = "1.0")]
-    pub turbine_efficiency: String,
+    /// Default 1 (ideal; the output says so).
+    #[arg(long)]
+    pub turbine_efficiency: Option<String>,
     /// The compressor and turbine efficiencies are polytropic.
     #[arg(long)]
     pub polytropic: bool,
@@ -115,6 +119,33 @@ pub struct CycleArgs {
     /// Combustor pressure loss, fraction of inlet pressure.
     #[arg(long, default_value = "0")]
     pub combustor_pressure_loss: String,
+    /// Fraction of the fuel's heating value released (0 < e <= 1).
+    #[arg(long, default_value = "1.0")]
+    pub combustion_efficiency: String,
+    /// Inlet duct and filter pressure loss, fraction of ambient pressure.
+    #[arg(long, default_value = "0")]
+    pub inlet_pressure_loss: String,
+    /// Exhaust pressure loss, fraction of ambient pressure.
+    #[arg(long, default_value = "0")]
+    pub exhaust_pressure_loss: String,
+    /// Mechanical efficiency of the shaft train (0 < e <= 1).
+    /// Default 1 (ideal; the output says so).
+    #[arg(long)]
+    pub mechanical_efficiency: Option<String>,
+    /// Generator efficiency (0 < e <= 1).
+    /// Default 1 (ideal; the output says so).
+    #[arg(long)]
+    pub generator_efficiency: Option<String>,
+    /// Auxiliary load, fraction of gross electrical output.
+    #[arg(long, default_value = "0")]
+    pub auxiliary_load: String,
+    /// Fraction of compressor delivery air that bypasses the combustor and
+    /// mixes in ahead of the turbine rotor.
+    #[arg(long, default_value = "0")]
+    pub turbine_cooling: String,
+    /// Ambient relative humidity (`60 %` or 0.6); needs --gas air or products.
+    #[arg(long, default_value = "0")]
+    pub relative_humidity: String,
     /// Intercooler exit temperature; omit for no intercooler (split at the
     /// geometric mean pressure).
     #[arg(long)]
@@ -155,6 +186,44 @@ pub struct CompareArgs {
     /// Also rank the uncertain inputs by their swing in net savings.
     #[arg(long)]
     pub sensitivity: bool,
+}
+
+/// Flags of `brayfin offdesign`. Lists are comma-separated values, each
+/// with its unit: `--temperature "0 degC,15 degC,35 degC"`,
+/// `--load "100 %,75 %,50 %"`.
+#[derive(Debug, Args)]
+#[command(allow_negative_numbers = true)]
+pub struct OffdesignArgs {
+    /// Scenario file (TOML).
+    pub scenario: PathBuf,
+    /// Only this candidate (default: all).
+    #[arg(long)]
+    pub candidate: Option<String>,
+    /// Ambient temperatures (bare number: K); default -10 degC to 45 degC
+    /// in 5 K steps.
+    #[arg(long, allow_hyphen_values = true)]
+    pub temperature: Option<String>,
+    /// Loads, fractions of the base-load output at each ambient (`75 %` or
+    /// 0.75); default 100 % down to each candidate's minimum load in 10 %
+    /// steps.
+    #[arg(long)]
+    pub load: Option<String>,
+    /// Site elevation (bare number: m); the pressure then follows ISO 2533.
+    /// Default: the scenario site's pressure.
+    #[arg(long, conflicts_with = "pressure", allow_hyphen_values = true)]
+    pub elevation: Option<String>,
+    /// Ambient pressure (bare number: kPa); default: the scenario site's.
+    #[arg(long)]
+    pub pressure: Option<String>,
+    /// Relative humidity (`60 %` or 0.6); default: the scenario site's.
+    #[arg(long)]
+    pub relative_humidity: Option<String>,
+    /// Output format (table, json or csv).
+    #[arg(long, value_enum, default_value = "table")]
+    pub format: Format,
+    /// Unit system of the table and CSV (JSON is always SI, units in the key names).
+    #[arg(long, value_enum, default_value = "si")]
+    pub units: UnitSystem,
 }
 
 /// Flags of `brayfin report`.

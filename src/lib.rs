@@ -9,6 +9,7 @@ pub mod analysis;
 pub mod app;
 pub mod cli;
 pub mod cycle;
+pub mod datasheet;
 pub mod error;
 pub mod finance;
 pub mod fuel;

@@ -25,6 +25,7 @@ fn main() {
     let outcome = match cli.command {
         Command::Cycle(args) => app::cycle::run(&args),
         Command::Compare(args) => app::compare::run(&args),
+        Command::Offdesign(args) => app::offdesign::run(&args),
         Command::Report(args) => app::report::run(&args),
         Command::Sweep(args) => app::sweep::run(&args),
         Command::Risk(args) => app::risk::run(&args),

@@ -12,7 +12,8 @@ mod money;
 mod parse;
 
 pub use money::{
-    money, price_per_gj, price_per_kw_year, price_per_mwh, price_per_tonne, MoneyValue,
+    fuel_energy_unit_gj, money, price_per_gj, price_per_kw_year, price_per_mwh, price_per_tonne,
+    MoneyValue,
 };
 
 pub(crate) use parse::{split_quantity, Split};

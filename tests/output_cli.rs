@@ -278,12 +278,18 @@ fn compare_csv_in_us_units_gives_fuel_energy_in_mmbtu() {
 fn check_echoes_us_units() {
     let text = stdout(&["check", DEMO, "--units", "us"]);
     // The file says 3.85 USD/MMBtu HHV, 15 °C: printed back as written.
-    assert!(text.contains("USD 3.85/MMBtu HHV"), "{text}");
+    assert!(text.contains("3.85 USD/MMBtu HHV"), "{text}");
     assert!(text.contains("59.00 °F"), "{text}");
     assert!(text.contains("psia"), "{text}");
     assert!(text.contains("TIT °F"), "{text}");
     let si = stdout(&["check", DEMO]);
-    assert!(si.contains("/GJ HHV"), "{si}");
+    // SI readers get the per-GJ value beside it: 3.85 / 1.055056.
+    assert!(si.contains("3.85 USD/MMBtu HHV (3.6491 USD/GJ)"), "{si}");
+    // The HHV/LHV conversion is information, not a warning.
+    let (info, warnings) = si.split_once("Warnings").expect("a warnings line");
+    assert!(info.contains("Information:"), "{si}");
+    assert!(info.contains("HHV/LHV ratio"), "{si}");
+    assert!(!warnings.contains("HHV/LHV"), "{si}");
     assert!(si.contains("288.15 K"), "{si}");
 }
 

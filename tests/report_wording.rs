@@ -75,3 +75,44 @@ fn a_bid_that_covers_its_premium_states_its_headroom() {
     assert!(text.contains("covers its premium"), "{text}");
     assert!(text.contains("USD 5.60 M of headroom"), "{text}");
 }
+
+/// The terminal table's verdict line and SIR cell, as `compare` prints
+/// them, with the economics of `with_economics`.
+fn table_text(model: &Model) -> String {
+    use brayfin::report::Renderer;
+    let bytes = brayfin::report::table::TableRenderer
+        .render(model)
+        .expect("table renders");
+    String::from_utf8(bytes).expect("utf-8")
+}
+
+#[test]
+fn the_table_words_negative_results_as_the_briefing_does() {
+    // Costs more to own even at no premium: a negative savings-to-
+    // investment ratio is worded, never printed as a number.
+    let mut model = with_economics(-1_453_686, 6_100_000);
+    model.candidates[1].economics.savings_to_investment_ratio = Some(-0.24);
+    let text = table_text(&model);
+    assert!(
+        text.contains("costs more to own than the baseline even at no premium"),
+        "{text}"
+    );
+    assert!(
+        text.contains("none: costs more to own even at no premium"),
+        "{text}"
+    );
+    assert!(!text.contains("-0.24"), "{text}");
+    // Cheaper to buy, cheaper to own; and cheaper to buy, dearer to own.
+    let text = table_text(&with_economics(2_000_000, -8_000_000));
+    assert!(text.contains("cheaper to buy, by USD 8,000,000"), "{text}");
+    assert!(!text.contains("asks USD -"), "{text}");
+    let text = table_text(&with_economics(-10_000_000, -8_000_000));
+    assert!(
+        text.contains("to be USD 10,000,000 cheaper than the baseline, USD 2,000,000 more"),
+        "{text}"
+    );
+    // A positive ratio is still a number.
+    let mut model = with_economics(9_600_000, 4_000_000);
+    model.candidates[1].economics.savings_to_investment_ratio = Some(2.4);
+    assert!(table_text(&model).contains(" 2.40 "));
+}

@@ -26,13 +26,15 @@ fn check_prints_a_summary_and_exits_zero_on_the_demos() {
 }
 
 #[test]
-fn check_warns_about_hhv_pricing_and_unusual_efficiencies() {
+fn check_informs_about_hhv_pricing_and_warns_about_unusual_efficiencies() {
+    // HHV pricing is a routine conversion: an information line.
     brayfin()
         .args(["check", "scenarios/corvel-bay-peaker.toml"])
         .assert()
         .success()
+        .stdout(predicate::str::contains("Information:"))
         .stdout(predicate::str::contains(
-            "per GJ HHV while heat rates are LHV",
+            "per unit of higher heating value (HHV) and heat rates are on the lower (LHV)",
         ));
     let folder = tempfile::tempdir().map_err(|e| e.to_string());
     let folder = folder

@@ -11,7 +11,8 @@
 //! What must hold (what `brayfin compare` promises): no panic; success, or
 //! a bad-input error (exit 1, never an internal error, exit 2) that is one
 //! line starting `file:line:column: `; and on success no non-finite number
-//! in the output.
+//! in the output, and the key numbers of the JSON within their physical
+//! ranges (see [`check_physical`]).
 
 use brayfin::analysis::{build_model, ModelOptions};
 use brayfin::report::json::JsonRenderer;
@@ -155,6 +156,94 @@ fn check_located(message: &str, file: &str) -> Result<(), String> {
     Ok(())
 }
 
+/// The key numbers of each candidate in `compare`'s JSON within their
+/// physical ranges:
+/// - thermal efficiency in (0, 1) and below the Carnot efficiency
+///   1 − T_min/T_max of the cycle's own state temperatures (second law;
+///   every heat added or rejected in a Brayton cycle crosses at a state
+///   temperature between them);
+/// - heat rate × efficiency = 3600 kJ/kWh (definition: 1 kWh = 3600 kJ),
+///   so the heat rate is above 3600 kJ/kWh;
+/// - net output within the declared key range, 1 kW to 2 GW;
+/// - exhaust temperature between the lowest and highest state
+///   temperatures, and every state temperature and pressure positive.
+fn check_physical(json: &str) -> Result<(), String> {
+    let doc: serde_json::Value =
+        serde_json::from_str(json).map_err(|e| format!("JSON does not parse: {e}"))?;
+    let candidates = doc["candidates"]
+        .as_array()
+        .ok_or("no candidates in the JSON")?;
+    for c in candidates {
+        let id = &c["id"];
+        let number = |v: &serde_json::Value, what: &str| {
+            v.as_f64()
+                .filter(|x| x.is_finite())
+                .ok_or_else(|| format!("{id}: {what} is not a finite number: {v}"))
+        };
+        let p = &c["performance"];
+        let efficiency = number(&p["thermal_efficiency"], "thermal efficiency")?;
+        let heat_rate = number(&p["heat_rate_kj_per_kwh"], "heat rate")?;
+        let output = number(&p["net_output_kw"], "net output")?;
+        let exhaust = number(&p["exhaust_temperature_k"], "exhaust temperature")?;
+        let states = c["cycle"]["states"].as_array().ok_or("no state table")?;
+        let mut temperatures = Vec::new();
+        for state in states {
+            let t = number(&state["temperature_k"], "a state temperature")?;
+            let pressure = number(&state["pressure_kpa"], "a state pressure")?;
+            if t <= 0.0 || pressure <= 0.0 {
+                return Err(format!("{id}: state at {t} K, {pressure} kPa"));
+            }
+            temperatures.push(t);
+        }
+        let t_min = temperatures.iter().copied().fold(f64::INFINITY, f64::min);
+        let t_max = temperatures.iter().copied().fold(0.0, f64::max);
+        if !(efficiency > 0.0 && efficiency < 1.0) {
+            return Err(format!("{id}: thermal efficiency {efficiency}"));
+        }
+        let carnot = 1.0 - t_min / t_max;
+        if efficiency > carnot + 1e-9 {
+            return Err(format!(
+                "{id}: efficiency {efficiency} above Carnot {carnot} ({t_min} K to {t_max} K)"
+            ));
+        }
+        if heat_rate <= 3600.0 || (heat_rate * efficiency - 3600.0).abs() > 1e-6 * 3600.0 {
+            return Err(format!(
+                "{id}: heat rate {heat_rate} kJ/kWh at efficiency {efficiency}"
+            ));
+        }
+        if !(1.0..=2e6).contains(&output) {
+            return Err(format!("{id}: net output {output} kW"));
+        }
+        if exhaust < t_min - 1e-9 || exhaust > t_max + 1e-9 {
+            return Err(format!(
+                "{id}: exhaust {exhaust} K outside the cycle's {t_min}–{t_max} K"
+            ));
+        }
+    }
+    Ok(())
+}
+
+/// `rendered` without the texts the scenario file itself wrote and the
+/// output echoes (title, names, ids, labels, in plain and JSON-escaped
+/// form): a mutant titled "nan retrofit decision" is not a non-finite
+/// number.
+fn without_echoed_text(rendered: &str, model: &brayfin::report::model::Model) -> String {
+    let m = &model.meta;
+    let mut echoed: Vec<&str> = vec![&m.title, &m.prepared_for, &m.prepared_by, &m.scenario_file];
+    echoed.extend(m.site_name.as_deref());
+    for c in &model.candidates {
+        echoed.push(&c.id);
+        echoed.push(&c.label);
+    }
+    let mut text = rendered.to_string();
+    for e in echoed.into_iter().filter(|e| !e.is_empty()) {
+        let escaped = serde_json::to_string(e).unwrap_or_default();
+        let escaped = escaped.trim_matches('"');
+        text = text.replace(escaped, " ").replace(e, " ");
+    }
+    text
+}
+
 fn has_non_finite(text: &str) -> bool {
     text.split(|c: char| !c.is_ascii_alphanumeric())
         .any(|word| matches!(word, "NaN" | "nan" | "inf" | "Infinity"))
@@ -220,10 +309,15 @@ fn mutated_scenarios_load_or_fail_located_and_never_panic() {
             match rendered {
                 Ok(bytes) => {
                     let text = String::from_utf8_lossy(&bytes);
-                    if has_non_finite(&text) {
+                    if has_non_finite(&without_echoed_text(&text, &model)) {
                         failures.push(format!(
                             "case {case} ({name}): a non-finite number in the {format} output"
                         ));
+                    }
+                    if format == "json" {
+                        if let Err(why) = check_physical(&text) {
+                            failures.push(format!("case {case} ({name}): {why}"));
+                        }
                     }
                 }
                 Err(e) => failures.push(format!("case {case} ({name}): {format} failed: {e}")),
@@ -242,4 +336,44 @@ fn mutated_scenarios_load_or_fail_located_and_never_panic() {
         loaded_count > CASES / 10,
         "only {loaded_count} mutants loaded"
     );
+}
+
+#[test]
+fn the_physical_check_refuses_impossible_numbers() {
+    let doc = |efficiency: f64, heat_rate: f64, output: f64, exhaust: f64| {
+        serde_json::json!({"candidates": [{
+            "id": "a",
+            "performance": {
+                "thermal_efficiency": efficiency,
+                "heat_rate_kj_per_kwh": heat_rate,
+                "net_output_kw": output,
+                "exhaust_temperature_k": exhaust,
+            },
+            "cycle": {"states": [
+                {"temperature_k": 288.15, "pressure_kpa": 101.325},
+                {"temperature_k": 1500.0, "pressure_kpa": 1500.0},
+            ]},
+        }]})
+        .to_string()
+    };
+    // 3600 / 0.38 kJ/kWh at 38 %: fine (Carnot 1 − 288.15/1500 = 0.81).
+    assert_eq!(
+        check_physical(&doc(0.38, 3600.0 / 0.38, 50_000.0, 800.0)),
+        Ok(())
+    );
+    for (bad, why) in [
+        (doc(1.2, 3000.0, 50_000.0, 800.0), "efficiency above one"),
+        (doc(0.9, 4000.0, 50_000.0, 800.0), "above Carnot"),
+        (
+            doc(0.38, 9000.0, 50_000.0, 800.0),
+            "heat rate not 3600/efficiency",
+        ),
+        (doc(0.38, 3600.0 / 0.38, 0.5, 800.0), "output below 1 kW"),
+        (
+            doc(0.38, 3600.0 / 0.38, 50_000.0, 2000.0),
+            "exhaust above the hottest state",
+        ),
+    ] {
+        assert!(check_physical(&bad).is_err(), "{why} passed");
+    }
 }

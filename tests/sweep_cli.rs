@@ -451,3 +451,29 @@ fn bad_ranges_are_input_errors() {
         "expected once (a line) or twice (a grid)",
     );
 }
+
+#[test]
+fn a_huge_vary_key_or_value_is_quoted_short() {
+    // A key path or a range value of thousands of characters is quoted to
+    // at most about 80 characters with an ellipsis, on one line, exit 1.
+    let long = "q".repeat(5_000);
+    for vary in [
+        format!("fuel.{long}=1:2:1"),
+        format!("fuel.price=1:{}x:1", "9".repeat(5_000)),
+    ] {
+        let out = assert_cmd::Command::cargo_bin("brayfin")
+            .unwrap()
+            .args(["sweep", "scenarios/corvel-bay-peaker.toml", "--vary", &vary])
+            .output()
+            .unwrap();
+        assert_eq!(out.status.code(), Some(1));
+        let message = String::from_utf8_lossy(&out.stderr);
+        assert_eq!(message.trim_end().lines().count(), 1, "{message}");
+        assert!(
+            message.chars().count() < 600,
+            "{} chars",
+            message.chars().count()
+        );
+        assert!(message.contains('…'), "{message}");
+    }
+}

@@ -87,6 +87,16 @@ pub fn engine_config_of(candidate: &Candidate, site: &Site) -> EngineConfig {
     }
 }
 
+/// The cycle's turbine cooling and humidity for a candidate at a site: its
+/// `turbine_cooling`, and the site's relative humidity (none for a cold-air
+/// candidate, see [`super::machine::humidity_for`]).
+pub fn detail_of(candidate: &Candidate, site: &Site) -> cycle::Detail {
+    cycle::Detail {
+        turbine_cooling: candidate.turbine_cooling,
+        relative_humidity: super::machine::humidity_for(candidate, site.relative_humidity),
+    }
+}
+
 /// Solve one candidate's cycle; a refusal becomes an input error at the
 /// candidate's offending key in the scenario file.
 pub fn solve_candidate(
@@ -97,7 +107,8 @@ pub fn solve_candidate(
     let scenario = &loaded.scenario;
     let candidate = &scenario.candidates[index];
     let config = engine_config_of(candidate, &scenario.site);
-    cycle::solve(&config, &gas_model_of(&candidate.gas_model), fuel)
+    let detail = detail_of(candidate, &scenario.site);
+    cycle::solve_detailed(&config, &detail, &gas_model_of(&candidate.gas_model), fuel)
         .map_err(|e| solve_error(loaded, index, &e))
 }
 

@@ -3,7 +3,7 @@
 //! same inputs serve the printed (decimal) ledger and the sampled (`f64`)
 //! one.
 
-use super::engine::{engine_config_of, gas_model_of, solve_error};
+use super::engine::{detail_of, engine_config_of, gas_model_of, solve_error};
 use super::operation::{annual_operation, AnnualOperation};
 use crate::cycle::{self, CycleResult};
 use crate::finance::{
@@ -19,7 +19,8 @@ use rust_decimal::Decimal;
 /// A candidate's solved cycle and its year of operation.
 #[derive(Debug, Clone)]
 pub struct Solved {
-    /// The solved cycle at site conditions, sized to the rated output.
+    /// The solved cycle at site conditions (the site's humidity, the
+    /// candidate's turbine cooling), sized to the rated output.
     pub cycle: CycleResult,
     /// One full year at new-and-clean performance.
     pub year: AnnualOperation,
@@ -33,7 +34,9 @@ pub fn solve(
     fuel: &Fuel,
 ) -> Result<Solved, cycle::CycleError> {
     let config = engine_config_of(candidate, &scenario.site);
-    let result = cycle::solve(&config, &gas_model_of(&candidate.gas_model), fuel)?;
+    let detail = detail_of(candidate, &scenario.site);
+    let result =
+        cycle::solve_detailed(&config, &detail, &gas_model_of(&candidate.gas_model), fuel)?;
     let year = annual_operation(
         &scenario.operation,
         candidate.net_output_kw,

@@ -11,7 +11,7 @@ use crate::finance::{
 };
 use crate::report::model::*;
 use crate::scenario::{
-    engineering_warnings, LoadedScenario, PriceBasis, RateBasis, Scenario, Timing,
+    engineering_warnings, information_notes, LoadedScenario, PriceBasis, RateBasis, Timing,
 };
 use rust_decimal::Decimal;
 
@@ -219,6 +219,15 @@ fn candidate_view(loaded: &LoadedScenario, study: &Study, index: usize) -> Candi
         },
     };
     let [compressor, turbine, regenerator] = outcome.value_per_point;
+    // Dispatch-weighted over full-load heat rate: the year's fuel energy
+    // (GJ · 1e6 kJ/GJ) over its energy (MWh · 1e3 kWh/MWh), divided by the
+    // full-load heat rate the part-load ratios multiply.
+    let operation = &outcome.inputs.operation;
+    let dispatch_ratio = if operation.energy_mwh > 0.0 && cycle.heat_rate_kj_per_kwh > 0.0 {
+        operation.fuel_energy_gj_lhv * 1000.0 / operation.energy_mwh / cycle.heat_rate_kj_per_kwh
+    } else {
+        1.0
+    };
     CandidateView {
         id: candidate.id.clone(),
         label: candidate.label.clone(),
@@ -294,6 +303,11 @@ fn candidate_view(loaded: &LoadedScenario, study: &Study, index: usize) -> Candi
                 regenerator_effectiveness: regenerator.map(money),
             },
             value_per_kj_per_kwh: money(outcome.bid.pv_per_kj_per_kwh.unwrap_or_default()),
+            value_per_kj_per_kwh_full_load: money(
+                outcome.bid.pv_per_kj_per_kwh.unwrap_or_default()
+                    * Decimal::from_f64_retain(dispatch_ratio).unwrap_or(Decimal::ONE),
+            ),
+            dispatch_heat_rate_ratio: dispatch_ratio,
             value_per_kw: money(outcome.bid.pv_per_kw_net_output),
         },
         verdict,
@@ -363,7 +377,8 @@ pub fn key_label(key: &str) -> String {
 /// A key's value as shown, with its unit (values are in the scenario's
 /// internal units: fractions of one, K, h, currency per GJ / t / kW-yr /
 /// MWh).
-fn show(key: &str, value: f64, scenario: &Scenario) -> String {
+fn show(key: &str, value: f64, loaded: &LoadedScenario) -> String {
+    let scenario = &loaded.scenario;
     let currency = &scenario.meta.currency;
     let basis = match scenario.fuel.price_basis {
         PriceBasis::Hhv => "HHV",
@@ -378,7 +393,13 @@ fn show(key: &str, value: f64, scenario: &Scenario) -> String {
         || key.contains("fraction")
         || key.contains("degradation");
     if key == "fuel.price" {
-        format!("{currency} {value:.3}/GJ {basis}")
+        // In the unit the file wrote its price in (a conversion for
+        // display, in the one units module).
+        let unit = crate::report::format::scenario_price_unit(loaded);
+        <Decimal as rust_decimal::prelude::FromPrimitive>::from_f64(value).map_or_else(
+            || format!("{value:.3} {currency}/GJ {basis}"),
+            |per_gj| crate::report::format::fuel_price_as(per_gj, currency, basis, &unit),
+        )
     } else if key == "economics.carbon_price" {
         format!("{currency} {value:.2}/t CO2")
     } else if key == "economics.capacity_value" {
@@ -396,7 +417,7 @@ fn show(key: &str, value: f64, scenario: &Scenario) -> String {
     }
 }
 
-fn sensitivity_bars(swings: &[Swing], scenario: &Scenario) -> Vec<SensitivityBar> {
+fn sensitivity_bars(swings: &[Swing], loaded: &LoadedScenario) -> Vec<SensitivityBar> {
     swings
         .iter()
         .flat_map(|s| {
@@ -408,8 +429,8 @@ fn sensitivity_bars(swings: &[Swing], scenario: &Scenario) -> Vec<SensitivityBar
                     candidate_id: id.clone(),
                     key: s.key.clone(),
                     label: key_label(&s.key),
-                    low_value: show(&s.key, s.low, scenario),
-                    high_value: show(&s.key, s.high, scenario),
+                    low_value: show(&s.key, s.low, loaded),
+                    high_value: show(&s.key, s.high, loaded),
                     default_range: s.source == RangeSource::DefaultTwentyPercent,
                     delta_at_low: money(*low),
                     delta_at_high: money(*high),
@@ -442,7 +463,7 @@ fn runner_up(candidates: &[CandidateView], preferred_id: &str) -> Option<RunnerU
 fn key_assumptions(
     swings: &[Swing],
     decision: &Decision,
-    scenario: &Scenario,
+    loaded: &LoadedScenario,
 ) -> Vec<KeyAssumption> {
     let of = (!decision.preferred_is_baseline).then_some(decision.preferred_id.as_str());
     let mut rows: Vec<KeyAssumption> = swings
@@ -450,7 +471,7 @@ fn key_assumptions(
         .map(|s| KeyAssumption {
             key: s.key.clone(),
             label: key_label(&s.key),
-            base_value: show(&s.key, s.base, scenario),
+            base_value: show(&s.key, s.base, loaded),
             swing: money(of.map_or_else(|| s.magnitude(), |id| s.magnitude_for(id))),
             candidate_id: of.map(str::to_string),
         })
@@ -485,7 +506,7 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
         runner_up: runner_up(&candidates, &preferred.id),
     };
     let swings = rank(loaded, &study)?;
-    let key_assumptions = key_assumptions(&swings, &decision, scenario);
+    let key_assumptions = key_assumptions(&swings, &decision, loaded);
     let mut warnings = engineering_warnings(scenario);
     warnings.extend(cycle_warnings(loaded, &study));
     let e = &scenario.economics;
@@ -527,6 +548,7 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
             })
             .collect(),
         warnings,
+        information: information_notes(scenario),
         method: MethodView {
             gas_models,
             rate_basis: match e.rate_basis {
@@ -547,6 +569,12 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
                 PriceBasis::Lhv => "LHV",
             }
             .to_string(),
+            fuel_price_unit: crate::report::format::scenario_price_unit(loaded),
+            fuel_price_written: crate::report::format::scenario_price_written(
+                &scenario.fuel,
+                &scenario.meta.currency,
+            ),
+            fuel_price_per_gj: scenario.fuel.price_per_gj,
             hhv_over_lhv: study.fuel.hhv_over_lhv(),
             rounding: "money rounded once, for presentation, to the minor unit; midpoints to \
                        even (banker's rounding)"
@@ -561,7 +589,7 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
         },
         fuel_price_curves: fuel_price_curves(loaded, &study),
         sensitivity: if options.sensitivity {
-            sensitivity_bars(&swings, scenario)
+            sensitivity_bars(&swings, loaded)
         } else {
             Vec::new()
         },

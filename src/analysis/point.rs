@@ -16,7 +16,7 @@
 mod restore;
 
 use super::acceptance::contract_inputs;
-use super::engine::{engine_config_of, fuel_of, gas_model_of};
+use super::engine::{detail_of, engine_config_of, fuel_of, gas_model_of};
 use crate::cycle::{self, EngineConfig, GasModel};
 use crate::finance::{compare_summaries, summarize_ledger, LedgerInputs, LedgerSummary};
 use crate::fuel::Fuel;
@@ -127,6 +127,7 @@ pub struct PointModel<'s> {
 #[derive(Debug, Clone)]
 struct CachedCycle {
     config: EngineConfig,
+    detail: cycle::Detail,
     gas: GasModel,
     fuel_is_base: bool,
     heat_rate_kj_per_kwh: f64,
@@ -239,21 +240,31 @@ impl<'s> PointModel<'s> {
                 continue;
             }
             let config = engine_config_of(candidate, &scenario.site);
+            let detail = detail_of(candidate, &scenario.site);
             let gas = gas_model_of(&candidate.gas_model);
             let heat_rate = match &ws.cycles[i] {
                 // Only solves with the scenario's own fuel are reused.
-                Some(c) if fuel_is_base && c.fuel_is_base && c.config == config && c.gas == gas => {
+                Some(c)
+                    if fuel_is_base
+                        && c.fuel_is_base
+                        && c.config == config
+                        && c.detail == detail
+                        && c.gas == gas =>
+                {
                     c.heat_rate_kj_per_kwh
                 }
                 _ => {
                     let solved =
-                        cycle::solve(&config, &gas, fuel).map_err(|e| PointError::Cycle {
-                            candidate: candidate.id.clone(),
-                            message: e.to_string(),
+                        cycle::solve_detailed(&config, &detail, &gas, fuel).map_err(|e| {
+                            PointError::Cycle {
+                                candidate: candidate.id.clone(),
+                                message: e.to_string(),
+                            }
                         })?;
                     let heat_rate = solved.heat_rate_kj_per_kwh;
                     ws.cycles[i] = Some(CachedCycle {
                         config,
+                        detail,
                         gas,
                         fuel_is_base,
                         heat_rate_kj_per_kwh: heat_rate,

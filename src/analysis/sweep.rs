@@ -160,6 +160,8 @@ impl SweepPlan {
 }
 
 fn bad_vary(text: &str, problem: &str) -> Error {
+    let text = crate::scenario::clip(text);
+    let problem = crate::scenario::clip_long(problem);
     Error::Input(format!(
         "--vary {text}: {problem}; expected KEY=FROM:TO:STEP, bare numbers in the key's internal \
          unit or one unit on all three, e.g. --vary fuel.price=3:6:0.25, \
@@ -172,7 +174,10 @@ fn bad_vary(text: &str, problem: &str) -> Error {
 /// when bare).
 fn number<'t>(text: &str, part: &'t str, name: &str) -> crate::Result<(Decimal, &'t str)> {
     let trimmed = part.trim();
-    let not_a_number = || bad_vary(text, &format!("{name} `{trimmed}` is not a finite number"));
+    let not_a_number = || {
+        let shown = crate::scenario::clip(trimmed);
+        bad_vary(text, &format!("{name} `{shown}` is not a finite number"))
+    };
     let (digits, unit) = match split_quantity(trimmed) {
         Split::Quantity { number, unit } => (number, unit),
         Split::NotANumber => return Err(not_a_number()),
@@ -300,9 +305,9 @@ pub fn plan(
     for (axis, text) in axes.iter().zip(vary) {
         for value in [axis.value(0), axis.value(axis.count - 1)] {
             let mut trial = scenario.clone();
-            trial
-                .set_numeric(&axis.key, value)
-                .map_err(|e| Error::Input(format!("--vary {text}: {e}")))?;
+            trial.set_numeric(&axis.key, value).map_err(|e| {
+                Error::Input(format!("--vary {}: {e}", crate::scenario::clip(text)))
+            })?;
         }
     }
     axes.iter()

@@ -7,8 +7,8 @@
 use super::output::{print, text_format, units_of};
 use crate::cli::{CycleArgs, GasModelArg};
 use crate::cycle::{
-    solve, CycleError, EfficiencyBasis, EngineConfig, GasModel, Intercooler, IntercoolerExit,
-    Regenerator, Reheat, Sizing,
+    solve_detailed, CycleError, Detail, EfficiencyBasis, EngineConfig, GasModel, Intercooler,
+    IntercoolerExit, Regenerator, Reheat, Sizing,
 };
 use crate::fuel::Fuel;
 use crate::report::views::{cycle::CycleView, render};
@@ -18,14 +18,24 @@ use crate::{Error, Result};
 /// Run `brayfin cycle`.
 pub fn run(args: &CycleArgs) -> Result<()> {
     let (config, gas, fuel) = inputs(args)?;
-    let result = match solve(&config, &gas, &fuel).map_err(|e| cycle_error(&e)) {
+    let detail = Detail {
+        turbine_cooling: read("turbine-cooling", &args.turbine_cooling, units::fraction)?,
+        relative_humidity: read(
+            "relative-humidity",
+            &args.relative_humidity,
+            units::fraction,
+        )?,
+    };
+    let solved = solve_detailed(&config, &detail, &gas, &fuel).map_err(|e| cycle_error(&e));
+    let result = match solved {
         Err(Error::Input(message)) => return Err(Error::Input(message)),
         other => {
-            sensible_ranges(&config)?;
+            sensible_ranges(&config, &detail)?;
             other?
         }
     };
-    let view = CycleView::new(&result, &fuel, units_of(args.units));
+    let ideal = ideal_defaults(args);
+    let view = CycleView::new(&result, &fuel, units_of(args.units)).with_ideal_defaults(&ideal);
     print(&render(&view, text_format(args.format))?)
 }
 
@@ -45,6 +55,11 @@ fn read(
 fn inputs(args: &CycleArgs) -> Result<(EngineConfig, GasModel, Fuel)> {
     let temperature = |flag: &str, text: &str| read(flag, text, units::temperature_k);
     let fraction = |flag: &str, text: &str| read(flag, text, units::fraction);
+    // An efficiency flag not given is ideal (1); the output says so.
+    let efficiency = |flag: &str, text: &Option<String>| match text {
+        Some(text) => read(flag, text, units::fraction),
+        None => Ok(1.0),
+    };
     let regenerator = match &args.regenerator_effectiveness {
         None => None,
         Some(text) => {
@@ -90,8 +105,8 @@ fn inputs(args: &CycleArgs) -> Result<(EngineConfig, GasModel, Fuel)> {
             "turbine-inlet-temperature",
             &args.turbine_inlet_temperature,
         )?,
-        compressor_efficiency: fraction("compressor-efficiency", &args.compressor_efficiency)?,
-        turbine_efficiency: fraction("turbine-efficiency", &args.turbine_efficiency)?,
+        compressor_efficiency: efficiency("compressor-efficiency", &args.compressor_efficiency)?,
+        turbine_efficiency: efficiency("turbine-efficiency", &args.turbine_efficiency)?,
         efficiency_basis: if args.polytropic {
             EfficiencyBasis::Polytropic
         } else {
@@ -101,11 +116,16 @@ fn inputs(args: &CycleArgs) -> Result<(EngineConfig, GasModel, Fuel)> {
             "combustor-pressure-loss",
             &args.combustor_pressure_loss,
         )?,
+        combustion_efficiency: fraction("combustion-efficiency", &args.combustion_efficiency)?,
+        inlet_pressure_loss: fraction("inlet-pressure-loss", &args.inlet_pressure_loss)?,
+        exhaust_pressure_loss: fraction("exhaust-pressure-loss", &args.exhaust_pressure_loss)?,
+        mechanical_efficiency: efficiency("mechanical-efficiency", &args.mechanical_efficiency)?,
+        generator_efficiency: efficiency("generator-efficiency", &args.generator_efficiency)?,
+        auxiliary_load_fraction: fraction("auxiliary-load", &args.auxiliary_load)?,
         regenerator,
         intercooler,
         reheat,
         sizing,
-        ..EngineConfig::ideal(2.0, 1000.0)
     };
     let gas = match args.gas {
         GasModelArg::ColdAir => GasModel::cold_air_standard(),
@@ -116,9 +136,24 @@ fn inputs(args: &CycleArgs) -> Result<(EngineConfig, GasModel, Fuel)> {
     Ok((config, gas, fuel))
 }
 
+/// The component-efficiency flags left at their ideal default of 1 (not
+/// given on the command line).
+fn ideal_defaults(args: &CycleArgs) -> Vec<&'static str> {
+    [
+        ("--compressor-efficiency", &args.compressor_efficiency),
+        ("--turbine-efficiency", &args.turbine_efficiency),
+        ("--mechanical-efficiency", &args.mechanical_efficiency),
+        ("--generator-efficiency", &args.generator_efficiency),
+    ]
+    .into_iter()
+    .filter(|(_, given)| given.is_none())
+    .map(|(flag, _)| flag)
+    .collect()
+}
+
 /// The scenario's declared sensible ranges hold for the flags too (checked
 /// after the solver's own checks, whose messages come first).
-fn sensible_ranges(c: &EngineConfig) -> Result<()> {
+fn sensible_ranges(c: &EngineConfig, detail: &Detail) -> Result<()> {
     let net_output = match c.sizing {
         Some(Sizing::NetOutputKw(kw)) => Some(kw),
         _ => None,
@@ -149,6 +184,14 @@ fn sensible_ranges(c: &EngineConfig) -> Result<()> {
         ("intercool-temperature", intercool),
         ("reheat-temperature", c.reheat.map(|r| r.temperature_k)),
         ("net-output", net_output),
+        ("combustion-efficiency", Some(c.combustion_efficiency)),
+        ("inlet-pressure-loss", Some(c.inlet_pressure_loss)),
+        ("exhaust-pressure-loss", Some(c.exhaust_pressure_loss)),
+        ("mechanical-efficiency", Some(c.mechanical_efficiency)),
+        ("generator-efficiency", Some(c.generator_efficiency)),
+        ("auxiliary-load", Some(c.auxiliary_load_fraction)),
+        ("turbine-cooling", Some(detail.turbine_cooling)),
+        ("relative-humidity", Some(detail.relative_humidity)),
     ];
     for (flag, value) in values {
         if let Some(value) = value {
@@ -176,6 +219,14 @@ fn flag_for(field: &str) -> &str {
         "intercooler.exit_temperature_k" => "--intercool-temperature",
         "reheat.temperature_k" => "--reheat-temperature",
         "net_output_kw" => "--net-output",
+        "combustion_efficiency" => "--combustion-efficiency",
+        "inlet_pressure_loss" => "--inlet-pressure-loss",
+        "exhaust_pressure_loss" => "--exhaust-pressure-loss",
+        "mechanical_efficiency" => "--mechanical-efficiency",
+        "generator_efficiency" => "--generator-efficiency",
+        "auxiliary_load_fraction" => "--auxiliary-load",
+        "turbine_cooling" => "--turbine-cooling",
+        "relative_humidity" => "--relative-humidity",
         "gas_model" => "--gas",
         other => other,
     }

@@ -7,6 +7,7 @@ pub mod check;
 pub mod compare;
 pub mod cycle;
 pub mod new;
+pub mod offdesign;
 pub mod output;
 pub mod progress;
 pub mod report;

@@ -7,7 +7,7 @@
 //! this module names. Values arrive in SI (the library's units) and are
 //! converted here, for display only.
 
-use super::model::{PaybackView, Units};
+use super::model::{FuelPriceUnit, PaybackView, Units};
 use crate::units::{KJ_PER_BTU, KJ_PER_KG_PER_BTU_PER_LB};
 use rust_decimal::Decimal;
 
@@ -240,6 +240,95 @@ pub fn fuel_price(per_gj: Decimal, currency: &str, basis: &str, units: Units) ->
     }
 }
 
+/// A fuel price per GJ in `unit` (exact decimal: per GJ × GJ per unit);
+/// unchanged if the product would overflow.
+pub fn fuel_price_in(per_gj: Decimal, unit: &FuelPriceUnit) -> Decimal {
+    per_gj.checked_mul(unit.gj_per_unit).unwrap_or(per_gj)
+}
+
+/// A fuel price given per GJ, shown in `unit` the way a scenario file
+/// writes one, with the heating-value basis: `"4.62 USD/MMBtu HHV"`. Two
+/// decimals, four below one currency unit (a price per therm or kWh);
+/// an empty `basis` is left out.
+pub fn fuel_price_as(per_gj: Decimal, currency: &str, basis: &str, unit: &FuelPriceUnit) -> String {
+    let value = fuel_price_in(per_gj, unit);
+    let decimals = if value.abs() < Decimal::ONE { 4 } else { 2 };
+    let text = format!("{} {currency}/{}", grouped(value, decimals), unit.symbol);
+    if basis.is_empty() {
+        text
+    } else {
+        format!("{text} {basis}")
+    }
+}
+
+/// The fuel price of a scenario as its file wrote it, with the basis, and
+/// beside it in parentheses the same price in the unit `units` reads in
+/// (per GJ for SI, per MMBtu for US) when that differs:
+/// `"3.85 USD/MMBtu HHV (3.649 USD/GJ)"`. `written` is the file's text
+/// (`None` for a price path: the per-GJ value is shown in `unit`).
+pub fn fuel_price_echo(
+    per_gj: Decimal,
+    written: Option<&str>,
+    currency: &str,
+    basis: &str,
+    unit: &FuelPriceUnit,
+    units: Units,
+) -> String {
+    let first = match written {
+        Some(text) => format!("{text} {basis}"),
+        None => fuel_price_as(per_gj, currency, basis, unit),
+    };
+    let reader = match units {
+        Units::Si => FuelPriceUnit::gj(),
+        Units::Us => FuelPriceUnit::from_written("/MMBtu"),
+    };
+    if reader.symbol == unit.symbol {
+        return first;
+    }
+    let value = fuel_price_in(per_gj, &reader).round_dp(4).normalize();
+    format!("{first} ({value} {currency}/{})", reader.symbol)
+}
+
+/// The unit a scenario file wrote its fuel price in: that of `price`, else
+/// that of the first year of `price_path` (per GJ for bare numbers).
+pub fn scenario_price_unit(loaded: &crate::scenario::LoadedScenario) -> FuelPriceUnit {
+    let written = loaded.scenario.fuel.price_written.as_ref().map_or_else(
+        || {
+            loaded
+                .inputs
+                .iter()
+                .find(|line| line.key.starts_with("fuel.price_path"))
+                .map_or("", |line| line.unit.as_str())
+        },
+        |w| w.unit.as_str(),
+    );
+    FuelPriceUnit::from_written(written)
+}
+
+/// A scenario's fuel price as its file wrote it (`"3.85 USD/MMBtu"`; a
+/// bare number gets `currency` and `/GJ`); `None` for a price path.
+pub fn scenario_price_written(fuel: &crate::scenario::FuelSpec, currency: &str) -> Option<String> {
+    fuel.price_written.as_ref().map(|w| {
+        if w.unit.is_empty() {
+            format!("{} {currency}/GJ", w.number)
+        } else {
+            format!("{} {}", w.number, w.unit)
+        }
+    })
+}
+
+/// A value per kJ/kWh of heat rate as a value per unit of heat rate in
+/// `units`: per kJ/kWh (SI) or per Btu/kWh (US; 1 Btu/kWh = 1.055056
+/// kJ/kWh, NIST SP 811, Appendix B.8), exact decimal arithmetic.
+pub fn per_heat_rate_unit(per_kj_per_kwh: Decimal, units: Units) -> Decimal {
+    match units {
+        Units::Si => per_kj_per_kwh,
+        Units::Us => per_kj_per_kwh
+            .checked_mul(Decimal::new(1_055_056, 6))
+            .unwrap_or(per_kj_per_kwh),
+    }
+}
+
 /// The name a unit system is echoed with in outputs (`"SI"`, `"US"`).
 pub fn units_name(units: Units) -> &'static str {
     match units {
@@ -307,6 +396,56 @@ mod tests {
             fuel_price(per_gj, "USD", "HHV", Units::Si),
             "USD 3.649/GJ HHV"
         );
+    }
+
+    #[test]
+    fn fuel_price_is_echoed_in_the_written_unit() {
+        // 3.85 USD/MMBtu ÷ 1.055056 GJ/MMBtu = 3.6491 USD/GJ (NIST SP 811,
+        // Appendix B.8: 1 Btu_IT = 1.055056 kJ); back again it is 3.85.
+        let mmbtu = FuelPriceUnit::from_written("USD/MMBtu");
+        assert_eq!(mmbtu.gj_per_unit, Decimal::new(1_055_056, 6));
+        let per_gj = Decimal::new(385, 2) / Decimal::new(1_055_056, 6);
+        assert_eq!(
+            fuel_price_as(per_gj, "USD", "HHV", &mmbtu),
+            "3.85 USD/MMBtu HHV"
+        );
+        assert_eq!(
+            fuel_price_echo(
+                per_gj,
+                Some("3.85 USD/MMBtu"),
+                "USD",
+                "HHV",
+                &mmbtu,
+                Units::Si
+            ),
+            "3.85 USD/MMBtu HHV (3.6491 USD/GJ)"
+        );
+        // The reader's own unit adds nothing beside it.
+        assert_eq!(
+            fuel_price_echo(
+                per_gj,
+                Some("3.85 USD/MMBtu"),
+                "USD",
+                "HHV",
+                &mmbtu,
+                Units::Us
+            ),
+            "3.85 USD/MMBtu HHV"
+        );
+        // 34 EUR/MWh = 9.4444 EUR/GJ (1 MWh = 3.6 GJ exactly).
+        let mwh = FuelPriceUnit::from_written("EUR/MWh");
+        let per_gj = Decimal::new(34, 0) / Decimal::new(36, 1);
+        assert_eq!(
+            fuel_price_as(per_gj, "EUR", "LHV", &mwh),
+            "34.00 EUR/MWh LHV"
+        );
+        assert_eq!(
+            fuel_price_echo(per_gj, Some("34 EUR/MWh"), "EUR", "LHV", &mwh, Units::Si),
+            "34 EUR/MWh LHV (9.4444 EUR/GJ)"
+        );
+        // A bare number or an unknown unit reads per GJ.
+        assert_eq!(FuelPriceUnit::from_written(""), FuelPriceUnit::gj());
+        assert_eq!(FuelPriceUnit::from_written("USD/bbl"), FuelPriceUnit::gj());
     }
 
     #[test]

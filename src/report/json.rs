@@ -31,6 +31,7 @@ pub fn to_value(model: &Model) -> Value {
         "decision": model.decision,
         "candidates": model.candidates.iter().map(candidate).collect::<Vec<_>>(),
         "warnings": model.warnings,
+        "information": model.information,
         "method": model.method,
     });
     if !model.sensitivity.is_empty() {
@@ -83,6 +84,8 @@ fn candidate(c: &CandidateView) -> Value {
             "break_even_fuel_price_per_gj": e.break_even_fuel_price,
             "value_per_point": e.value_per_point,
             "value_per_kj_per_kwh": e.value_per_kj_per_kwh,
+            "value_per_kj_per_kwh_full_load": e.value_per_kj_per_kwh_full_load,
+            "dispatch_heat_rate_ratio": e.dispatch_heat_rate_ratio,
             "value_per_kw": e.value_per_kw,
         },
         "verdict": c.verdict,

@@ -39,6 +39,9 @@ pub struct Model {
     pub applied_defaults: Vec<DefaultView>,
     /// Warnings an engineer would want to see (from `check`).
     pub warnings: Vec<String>,
+    /// Information that is not a warning: routine conversions brayfin
+    /// made (e.g. pricing LHV fuel energy per unit of HHV).
+    pub information: Vec<String>,
     /// How the numbers were made.
     pub method: MethodView,
     /// Break-even premium of each non-baseline candidate against fuel price.
@@ -260,9 +263,24 @@ pub struct EconomicsView {
     pub break_even_fuel_price: Option<Decimal>,
     /// Present value of one point of each component figure.
     pub value_per_point: ValuePerPoint,
-    /// Present value of one kJ/kWh of heat rate over the life.
+    /// Present value of one kJ/kWh of heat rate over the life, per kJ/kWh
+    /// of the dispatch-weighted heat rate (the year's fuel energy over its
+    /// energy).
     pub value_per_kj_per_kwh: Decimal,
-    /// Present value of one kW of net output over the life.
+    /// Present value of one kJ/kWh of the full-load heat rate (the figure
+    /// a bid guarantees) over the life: `value_per_kj_per_kwh` ×
+    /// `dispatch_heat_rate_ratio`. Part-load heat rates are the full-load
+    /// heat rate times a ratio from the part-load table, so 1 kJ/kWh more
+    /// at full load is that ratio's energy-weighted mean more over the
+    /// year; fuel and carbon cost are linear in fuel energy.
+    pub value_per_kj_per_kwh_full_load: Decimal,
+    /// Dispatch-weighted heat rate over full-load heat rate (the
+    /// energy-weighted mean of the part-load ratios; 1 with every hour at
+    /// full load).
+    pub dispatch_heat_rate_ratio: f64,
+    /// Present value of one kW more net output over the life, per kW of
+    /// the output as rated in the bid (the rating the capacity value is
+    /// paid on): the capacity value less the fixed O&M on that kW.
     pub value_per_kw: Decimal,
 }
 
@@ -430,6 +448,20 @@ pub struct MethodView {
     pub service_life_years: u32,
     /// Fuel price basis ("HHV" or "LHV").
     pub fuel_price_basis: String,
+    /// The unit fuel prices are shown in on pages and tables: the one the
+    /// scenario file wrote its price in. Not in JSON, whose prices stay
+    /// per GJ (the key names say so).
+    #[serde(skip)]
+    pub fuel_price_unit: FuelPriceUnit,
+    /// The fuel price exactly as the file wrote it (`"3.85 USD/MMBtu"`;
+    /// a bare number gets the currency and `/GJ`); `None` when the file
+    /// gave a price path. Not in JSON.
+    #[serde(skip)]
+    pub fuel_price_written: Option<String>,
+    /// The scenario's fuel price per GJ on `fuel_price_basis`, unrounded
+    /// (the price at commercial operation for a price path). Not in JSON.
+    #[serde(skip)]
+    pub fuel_price_per_gj: Decimal,
     /// HHV/LHV ratio of the fuel.
     pub hhv_over_lhv: f64,
     /// Rounding rule for money.
@@ -446,6 +478,40 @@ pub struct MethodView {
     /// The date every present value is discounted to (ISO 8601): the
     /// commercial operation date.
     pub present_value_date: String,
+}
+
+/// The energy unit fuel prices are shown per (the one the scenario file
+/// wrote its price in).
+#[derive(Debug, Clone, PartialEq, Eq, Serialize)]
+pub struct FuelPriceUnit {
+    /// Symbol, e.g. `"MMBtu"`, `"GJ"`, `"MWh"`.
+    pub symbol: String,
+    /// Its size in GJ, exact (1 MMBtu = 1.055056 GJ; 1 MWh = 3.6 GJ).
+    pub gj_per_unit: Decimal,
+}
+
+impl FuelPriceUnit {
+    /// Per GJ, the internal unit.
+    pub fn gj() -> Self {
+        FuelPriceUnit {
+            symbol: "GJ".to_string(),
+            gj_per_unit: Decimal::ONE,
+        }
+    }
+
+    /// The unit of a written price unit such as `"USD/MMBtu"` (its part
+    /// after the slash); per GJ for a bare number or an unknown symbol.
+    pub fn from_written(unit: &str) -> Self {
+        unit.split_once('/')
+            .map(|(_, per)| per.trim())
+            .and_then(|per| {
+                crate::units::fuel_energy_unit_gj(per).map(|size| FuelPriceUnit {
+                    symbol: per.to_string(),
+                    gj_per_unit: size,
+                })
+            })
+            .unwrap_or_else(Self::gj)
+    }
 }
 
 /// Break-even premium against fuel price.

@@ -16,16 +16,33 @@ impl Renderer for TableRenderer {
         let meta = &model.meta;
         out.push_str(&format!("{}\n", meta.title));
         out.push_str(&format!(
-            "Baseline: {}   Currency: {}   Scenario: {} (sha256 {})\n\n",
+            "Baseline: {}   Currency: {}   Scenario: {} (sha256 {})\n",
             meta.baseline_id,
             meta.currency,
             meta.scenario_file,
             &meta.scenario_sha256[..meta.scenario_sha256.len().min(12)]
         ));
+        let m = &model.method;
+        out.push_str(&format!(
+            "Fuel price: {}\n\n",
+            format::fuel_price_echo(
+                m.fuel_price_per_gj,
+                m.fuel_price_written.as_deref(),
+                &meta.currency,
+                &m.fuel_price_basis,
+                &m.fuel_price_unit,
+                meta.units,
+            )
+        ));
         out.push_str("Performance at site, new and clean, full load (heat rate on LHV)\n");
         out.push_str(&performance_table(model));
         out.push_str("\n\nEconomics over the service life (present values)\n");
         out.push_str(&economics_table(model));
+        out.push_str(
+            "\n\nEvaluation factors: what one unit more of each figure is worth over the life \
+             (present values; heat rate at full load)\n",
+        );
+        out.push_str(&factors_table(model));
         out.push_str("\n\nVerdict\n");
         for c in &model.candidates {
             out.push_str(&format!("  {}\n", verdict_line(c, &meta.currency)));
@@ -34,6 +51,12 @@ impl Renderer for TableRenderer {
             out.push_str("\nSensitivity of net savings (largest swing first)\n");
             out.push_str(&sensitivity_table(model));
             out.push('\n');
+        }
+        if !model.information.is_empty() {
+            out.push_str("\nInformation\n");
+            for n in &model.information {
+                out.push_str(&format!("  - {n}\n"));
+            }
         }
         if !model.warnings.is_empty() {
             out.push_str("\nWarnings\n");
@@ -119,11 +142,50 @@ fn economics_table(model: &Model) -> String {
             money_opt(e.net_savings_vs_baseline, cur),
             money_opt(e.break_even_premium, cur),
             money_opt(e.premium_asked, cur),
-            e.savings_to_investment_ratio
-                .map_or_else(|| "n/a".into(), |v| format!("{v:.2}")),
+            sir_cell(e),
             e.adjusted_irr
                 .map_or_else(|| "n/a".into(), |v| format!("{:.2}", v * 100.0)),
             format::payback(e.discounted_payback),
+        ]);
+    }
+    finish(b.build())
+}
+
+fn factors_table(model: &Model) -> String {
+    let cur = &model.meta.currency;
+    let units = model.meta.units;
+    let m = &model.method;
+    let mut b = Builder::default();
+    b.push_record([
+        "candidate".to_string(),
+        format!(
+            "1 {} lower heat rate",
+            format::unit(format::Quantity::HeatRate, units)
+        ),
+        "1 kW more output".to_string(),
+        "1 pt compressor".to_string(),
+        "1 pt turbine".to_string(),
+        "1 pt regenerator".to_string(),
+        "break-even fuel price".to_string(),
+    ]);
+    for c in &model.candidates {
+        let e = &c.economics;
+        let fuel = match e.break_even_fuel_price {
+            None => "n/a".to_string(),
+            Some(p) if p.is_sign_negative() => "none above zero".to_string(),
+            Some(p) => format::fuel_price_as(p, cur, &m.fuel_price_basis, &m.fuel_price_unit),
+        };
+        b.push_record([
+            c.id.clone(),
+            money(
+                format::per_heat_rate_unit(e.value_per_kj_per_kwh_full_load, units),
+                cur,
+            ),
+            money(e.value_per_kw, cur),
+            money(e.value_per_point.compressor_efficiency, cur),
+            money(e.value_per_point.turbine_efficiency, cur),
+            money_opt(e.value_per_point.regenerator_effectiveness, cur),
+            fuel,
         ]);
     }
     finish(b.build())
@@ -160,25 +222,63 @@ fn sensitivity_table(model: &Model) -> String {
 /// One verdict line in plain words.
 pub fn verdict_line(c: &CandidateView, currency: &str) -> String {
     let e = &c.economics;
+    let negative =
+        |v: Option<rust_decimal::Decimal>| v.is_some_and(|v| v < rust_decimal::Decimal::ZERO);
+    // Negative amounts are worded the way the briefing words them
+    // (templates/report/verdict.j2), never printed with a minus sign.
+    let cheaper_to_buy = negative(e.premium_asked);
+    let costs_more_at_no_premium = negative(e.break_even_premium);
+    let abs = |v: Option<rust_decimal::Decimal>| money_opt(v.map(|v| v.abs()), currency);
+    let head = format!("{} ({})", c.id, c.label);
     match c.verdict.kind {
-        VerdictKind::Baseline => format!("{} ({}): the baseline.", c.id, c.label),
+        VerdictKind::Baseline => format!("{head}: the baseline."),
+        VerdictKind::WorthPremium if cheaper_to_buy => format!(
+            "{head}: cheaper to buy, by {}, and cheaper to own: it saves {} over the life.",
+            abs(e.premium_asked),
+            money_opt(e.net_savings_vs_baseline, currency)
+        ),
         VerdictKind::WorthPremium => format!(
-            "{} ({}): worth its premium. It asks {} over the baseline and would break even at {}, \
+            "{head}: worth its premium. It asks {} over the baseline and would break even at {}, \
              leaving {} of headroom.",
-            c.id,
-            c.label,
             money_opt(e.premium_asked, currency),
             money_opt(e.break_even_premium, currency),
             money(c.verdict.margin, currency)
         ),
+        VerdictKind::NotWorthPremium if cheaper_to_buy && costs_more_at_no_premium => format!(
+            "{head}: cheaper to buy, by {}, but costs more to own: to break even it would have \
+             to be {} cheaper than the baseline, {} more than it is.",
+            abs(e.premium_asked),
+            abs(e.break_even_premium),
+            money(c.verdict.margin.abs(), currency)
+        ),
+        VerdictKind::NotWorthPremium if cheaper_to_buy => format!(
+            "{head}: cheaper to buy, by {}, but costs {} more to own over the life.",
+            abs(e.premium_asked),
+            abs(e.net_savings_vs_baseline)
+        ),
+        VerdictKind::NotWorthPremium if costs_more_at_no_premium => format!(
+            "{head}: costs more to own than the baseline even at no premium, by {} in present \
+             value, and its bid asks {} more.",
+            abs(e.break_even_premium),
+            money_opt(e.premium_asked, currency)
+        ),
         VerdictKind::NotWorthPremium => format!(
-            "{} ({}): not worth its premium. It asks {} over the baseline but breaks even at {}, \
+            "{head}: not worth its premium. It asks {} over the baseline but breaks even at {}, \
              {} too much.",
-            c.id,
-            c.label,
             money_opt(e.premium_asked, currency),
             money_opt(e.break_even_premium, currency),
             money(-c.verdict.margin, currency)
         ),
+    }
+}
+
+/// The savings-to-investment ratio as the table prints it: a negative
+/// ratio (the bid asks a premium and saves nothing on running costs) is
+/// worded as the briefing words it.
+fn sir_cell(e: &super::model::EconomicsView) -> String {
+    match e.savings_to_investment_ratio {
+        None => "n/a".into(),
+        Some(v) if v < 0.0 => "none: costs more to own even at no premium".into(),
+        Some(v) => format!("{v:.2}"),
     }
 }

@@ -160,10 +160,14 @@ pub struct Candidate {
     pub intercooler: Option<IntercoolerSpec>,
     /// Reheat combustor, if fitted.
     pub reheat: Option<ReheatSpec>,
+    /// Fraction of compressor delivery air that bypasses the combustor to
+    /// cool the turbine and mixes in ahead of the rotor, [0, 1).
+    pub turbine_cooling: f64,
     /// The ambient condition the bid's rating (net output, heat rate) is
-    /// stated at. Read and stored; used by off-design (coming), not yet by
-    /// the design-point solver.
+    /// stated at: the machine is fixed (calibrated) there.
     pub rating: RatingCondition,
+    /// Part-load control of the fixed machine (`[candidate.control]`).
+    pub control: super::candidate_control::ControlSpec,
     /// O&M, overhaul, degradation, residual value, construction schedule.
     pub costs: CandidateCosts,
     /// Performance guarantee with damages (`[candidate.guarantee]`, keys
@@ -206,7 +210,8 @@ const RATIO_HIGH: f64 = 80.0;
 const RATIO_REASON: &str = "industrial and aero-derivative gas turbines run at about 4 to 45; below 1.5 a cycle makes almost no work (common practice)";
 
 /// The keys of a `[[candidate]]` table (paths relative to the candidate),
-/// in the order the docs list them. `costs` keys are in `candidate_costs.rs`.
+/// in the order the docs list them. `control` keys are in `candidate_control.rs`, `costs` keys in
+/// `candidate_costs.rs`.
 pub(crate) const KEYS: &[Key<Candidate>] = &[
     K::plain("id", Shape::Text, Presence::Required { example: "\"premium\"" }, "unique; a letter, then letters, digits, `-`, `_`; at most 64 characters"),
     K::plain("label", Shape::Text, Presence::Optional { text: "the id" }, "name shown in reports"),
@@ -413,6 +418,19 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         },
     )
     .within(0.0, LOSS_HIGH, "", "a few per cent in practice; a plant using half its output is not a generating plant (common practice)"),
+    K::number(
+        "turbine_cooling",
+        Kind::Fraction,
+        Range::Loss,
+        Presence::Default { text: "0 %", value: 0.0 },
+        "fraction of compressor delivery air that bypasses the combustor and mixes in ahead of the turbine rotor (firing temperature = combustor exit)",
+        |c| Some(c.turbine_cooling),
+        |c, v| {
+            c.turbine_cooling = v;
+            Ok(())
+        },
+    )
+    .within(0.0, 0.35, "", "cooling air of current heavy-duty machines is about 10 to 25 % of compressor delivery (from memory); beyond about a third too little air is left to burn the fuel"),
     K::plain("regenerator", Shape::Table, Presence::Optional { text: "none" }, "a regenerator (recuperator) heating compressor air with exhaust"),
     K::number(
         "regenerator.effectiveness",
@@ -550,7 +568,7 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         },
     )
     .within(HOT_LOW, HOT_HIGH, "K", HOT_REASON),
-    K::plain("rating", Shape::Table, Presence::Optional { text: "ISO 3977-2 reference conditions" }, "the ambient condition the bid's rating is stated at; used by off-design (coming), not yet by the design-point solver"),
+    K::plain("rating", Shape::Table, Presence::Optional { text: "ISO 3977-2 reference conditions" }, "the ambient condition the bid's rating is stated at: the machine is fixed there and solved away from it at the site (`brayfin offdesign`)"),
     // 15 degC, 101.325 kPa, 60 %: ISO 3977-2 / ISO 2314 reference
     // conditions (from memory).
     K::number(
@@ -591,5 +609,6 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
             Ok(())
         },
     ),
+K::plain("control", Shape::Table, Presence::Optional { text: "guide vanes to 70 % airflow, 30 % minimum load" }, "how the fixed machine is held away from base load (`brayfin offdesign`)"),
     K::plain("costs", Shape::Table, Presence::Optional { text: "all zero" }, "O&M, overhauls, degradation, residual value, construction schedule (below)"),
 ];

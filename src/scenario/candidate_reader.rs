@@ -6,6 +6,7 @@ use super::candidate::{
     Candidate, EfficiencyBasis, GasModelSpec, IntercoolerSpec, RatingCondition, RegeneratorSpec,
     ReheatSpec, KEYS,
 };
+use super::candidate_control::{read_control, ControlSpec};
 use super::candidate_costs::read_costs;
 use super::candidate_guarantee::read_guarantee;
 use super::context::Context;
@@ -196,6 +197,7 @@ fn read_candidate(ctx: &mut Context, node: &Node, index: usize, cod: NaiveDate) 
     let mechanical_efficiency = number("mechanical_efficiency")?;
     let generator_efficiency = number("generator_efficiency")?;
     let auxiliary_load_fraction = number("auxiliary_load")?;
+    let turbine_cooling = number("turbine_cooling")?;
     let regenerator = read_regenerator(ctx, &r)?;
     let intercooler = read_intercooler(ctx, &r)?;
     let reheat = read_reheat(ctx, &r)?;
@@ -222,6 +224,7 @@ fn read_candidate(ctx: &mut Context, node: &Node, index: usize, cod: NaiveDate) 
         regenerator,
         intercooler,
         reheat,
+        turbine_cooling,
         // Every rating key has a declared default, so each NaN is
         // overwritten by `read_rating` (and a NaN left would fail the
         // range check).
@@ -230,10 +233,12 @@ fn read_candidate(ctx: &mut Context, node: &Node, index: usize, cod: NaiveDate) 
             pressure_kpa: f64::NAN,
             relative_humidity: f64::NAN,
         },
+        control: ControlSpec::default(),
         costs,
         guarantee,
     };
     read_rating(ctx, &r, &mut candidate)?;
+    read_control(ctx, &r, &mut candidate)?;
     Ok(candidate)
 }
 

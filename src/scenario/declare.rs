@@ -264,6 +264,7 @@ pub(crate) fn scenario_keys() -> impl Iterator<Item = &'static Key<Scenario>> {
 pub(crate) fn candidate_keys() -> impl Iterator<Item = &'static Key<Candidate>> {
     super::candidate::KEYS
         .iter()
+        .chain(super::candidate_control::KEYS)
         .chain(super::candidate_costs::KEYS)
         .chain(super::candidate_guarantee::KEYS)
 }
@@ -420,6 +421,14 @@ const FLAG_KEYS: &[(&str, &str)] = &[
     ("intercool-temperature", "intercooler.exit_temperature"),
     ("reheat-temperature", "reheat.temperature"),
     ("net-output", "net_output"),
+    ("combustion-efficiency", "combustion_efficiency"),
+    ("inlet-pressure-loss", "inlet_pressure_loss"),
+    ("exhaust-pressure-loss", "exhaust_pressure_loss"),
+    ("mechanical-efficiency", "mechanical_efficiency"),
+    ("generator-efficiency", "generator_efficiency"),
+    ("auxiliary-load", "auxiliary_load"),
+    ("turbine-cooling", "turbine_cooling"),
+    ("relative-humidity", "site.relative_humidity"),
 ];
 
 /// Check the value of a `cycle` flag (named without its dashes, e.g.

@@ -152,6 +152,7 @@ pub(crate) fn read_fuel(
 ) -> Read<FuelSpec> {
     let r = TableReader::new(ctx, "fuel", node, &keys_in(KEYS, "fuel"))?;
     let composition = read_composition(ctx, &r)?;
+    r.source_below(ctx, "composition");
     let name = match r.string(ctx, "name")? {
         Some(name) => name,
         None => {
@@ -198,6 +199,7 @@ pub(crate) fn read_fuel(
             })
     });
     let price_path = read_price_path(ctx, &r, commercial_operation_year)?;
+    r.source_below(ctx, "price_path");
     let price_per_gj = match (price, price_path.first()) {
         (Some(_), Some(_)) => {
             return Err(r.error(
@@ -275,6 +277,7 @@ fn read_composition(ctx: &mut Context, r: &TableReader) -> Read<FuelComposition>
     match &node.value {
         NodeValue::Str(name) => {
             if FuelComposition::NAMED.iter().any(|(n, _)| n == name) {
+                record_node(ctx, &field, node);
                 Ok(FuelComposition::Named(name.clone()))
             } else {
                 let names: Vec<&str> = FuelComposition::NAMED.iter().map(|(n, _)| *n).collect();

@@ -66,6 +66,8 @@ pub(crate) fn read_operation(ctx: &mut Context, node: &Node) -> Read<Operation> 
             heat_rate_ratio,
         })
         .collect::<Vec<_>>();
+    r.source_below(ctx, "dispatch");
+    r.source_below(ctx, "part_load");
     let total: f64 = dispatch.iter().map(|b| b.hours).sum();
     if total > HOURS_PER_LEAP_YEAR {
         return Err(r.error(

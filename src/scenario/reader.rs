@@ -148,6 +148,24 @@ impl<'a> TableReader<'a> {
         ctx.error_at_offset(offset, &self.field(key), problem, valid)
     }
 
+    /// Give every input recorded below `key` (its nested values, such as
+    /// a mole fraction or a dispatch block, read by other readers) the
+    /// source this table's `sources` states for `key`, unless it has one.
+    pub fn source_below(&self, ctx: &mut Context, key: &str) {
+        let Some(source) = self.source_of(key) else {
+            return;
+        };
+        let field = self.field(key);
+        for line in ctx.inputs.iter_mut().filter(|line| line.source.is_none()) {
+            let below = line.key.strip_prefix(field.as_str()).is_some_and(|rest| {
+                rest.is_empty() || rest.starts_with('.') || rest.starts_with('[')
+            });
+            if below {
+                line.source = Some(source.clone());
+            }
+        }
+    }
+
     fn source_of(&self, key: &str) -> Option<String> {
         self.sources
             .iter()

@@ -22,7 +22,7 @@ pub fn iso_2533_pressure_kpa(elevation_m: f64) -> f64 {
 
 /// Elevations where the troposphere formula holds, m (ISO 2533 tabulates
 /// from −2 km; the troposphere ends at 11 km).
-const ELEVATION_RANGE_M: (f64, f64) = (-500.0, 11_000.0);
+pub const ELEVATION_RANGE_M: (f64, f64) = (-500.0, 11_000.0);
 
 /// The keys of `[site]`.
 pub(crate) const KEYS: &[Key<Scenario>] = &[
@@ -55,6 +55,20 @@ pub(crate) const KEYS: &[Key<Scenario>] = &[
         },
     )
     .within(AMBIENT_P_KPA.0, AMBIENT_P_KPA.1, "kPa", AMBIENT_P_REASON),
+    // 60 %: the ISO 2314 / ISO 3977-2 reference humidity (from memory), so
+    // a site left at its defaults is the rating condition of an ISO bid.
+    K::number(
+        "site.relative_humidity",
+        Kind::Fraction,
+        Range::Fraction,
+        Presence::Default { text: "60 %", value: 0.6 },
+        "ambient relative humidity (water vapour in the air and products); at most saturation",
+        |s| Some(s.site.relative_humidity),
+        |s, v| {
+            s.site.relative_humidity = v;
+            Ok(())
+        },
+    ),
     K::plain("site.elevation", Shape::Quantity(Kind::Length), Presence::Optional { text: "none" }, "instead of `ambient_pressure` (not both): pressure by ISO 2533, p = 101.325 kPa · (1 − 2.25577e-5 · z/m)^5.25588, for −500 m to 11 000 m"),
 ];
 
@@ -96,10 +110,12 @@ pub(crate) fn read_site(ctx: &mut Context, node: &Node) -> Read<Site> {
             101.325
         }
     };
+    let relative_humidity = r.declared_at(ctx, KEYS, "site.relative_humidity")?;
     Ok(Site {
         name,
         ambient_temperature_k,
         ambient_pressure_kpa,
         elevation_m,
+        relative_humidity,
     })
 }

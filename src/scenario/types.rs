@@ -67,6 +67,8 @@ pub struct Site {
     pub ambient_pressure_kpa: f64,
     /// Site elevation above sea level, m, when given.
     pub elevation_m: Option<f64>,
+    /// Ambient relative humidity, a fraction from 0 to 1.
+    pub relative_humidity: f64,
 }
 
 /// How the fuel is described.

@@ -70,7 +70,11 @@ pub fn engineering_warnings(scenario: &Scenario) -> Vec<String> {
     w
 }
 
-fn fuel_warnings(scenario: &Scenario, w: &mut Vec<String>) {
+/// Information an analyst should know that is not a warning: routine
+/// conversions brayfin makes (today the HHV/LHV conversion of a fuel price
+/// on the HHV basis).
+pub fn information_notes(scenario: &Scenario) -> Vec<String> {
+    let mut notes = Vec::new();
     let fuel = &scenario.fuel;
     if fuel.price_basis == PriceBasis::Hhv {
         let ratio = match fuel.composition {
@@ -85,10 +89,15 @@ fn fuel_warnings(scenario: &Scenario, w: &mut Vec<String>) {
             _ => "from the fuel composition; about 1.11 for pipeline natural gas, common practice"
                 .into(),
         };
-        w.push(format!(
-            "fuel.price is per GJ HHV while heat rates are LHV: the fuel energy (LHV) will be multiplied by the fuel's HHV/LHV ratio ({ratio}) before it is priced"
+        notes.push(format!(
+            "fuel.price is per unit of higher heating value (HHV) and heat rates are on the lower (LHV): each year's fuel energy (LHV) is multiplied by the fuel's HHV/LHV ratio ({ratio}) before it is priced"
         ));
     }
+    notes
+}
+
+fn fuel_warnings(scenario: &Scenario, w: &mut Vec<String>) {
+    let fuel = &scenario.fuel;
     if let FuelComposition::MoleFractions(fractions) = &fuel.composition {
         let inert: f64 = fractions
             .iter()

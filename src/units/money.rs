@@ -50,6 +50,16 @@ const FUEL_ENERGY_GJ: &[Per] = &[
     per("kWh", 36, 4),
 ];
 
+/// The size in GJ of a fuel-energy unit a price may be written per
+/// (`"MMBtu"` → 1.055056, `"MWh"` → 3.6), exact; `None` for any other
+/// symbol. The same table the reader divides by.
+pub fn fuel_energy_unit_gj(symbol: &str) -> Option<Decimal> {
+    FUEL_ENERGY_GJ
+        .iter()
+        .find(|p| p.symbol == symbol)
+        .map(|p| Decimal::new(p.mantissa, p.scale))
+}
+
 /// Mass per unit, in tonnes (1 t = 1000 kg).
 const MASS_T: &[Per] = &[per("t", 1, 0), per("tCO2", 1, 0), per("kg", 1, 3)];
 

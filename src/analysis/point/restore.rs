@@ -13,10 +13,12 @@ pub(super) fn site(dst: &mut Site, src: &Site) {
         ambient_temperature_k,
         ambient_pressure_kpa,
         elevation_m,
+        relative_humidity,
     } = src;
     dst.name.clone_from(name);
     dst.ambient_temperature_k = *ambient_temperature_k;
     dst.ambient_pressure_kpa = *ambient_pressure_kpa;
+    dst.relative_humidity = *relative_humidity;
     dst.elevation_m = *elevation_m;
 }
 
@@ -98,7 +100,9 @@ pub(super) fn candidate(dst: &mut Candidate, src: &Candidate) {
         regenerator,
         intercooler,
         reheat,
+        turbine_cooling,
         rating,
+        control,
         costs: src_costs,
         guarantee,
     } = src;
@@ -122,7 +126,9 @@ pub(super) fn candidate(dst: &mut Candidate, src: &Candidate) {
     dst.regenerator = *regenerator;
     dst.intercooler = *intercooler;
     dst.reheat = *reheat;
+    dst.turbine_cooling = *turbine_cooling;
     dst.rating = *rating;
+    dst.control = *control;
     costs(&mut dst.costs, src_costs);
     dst.guarantee = *guarantee;
 }

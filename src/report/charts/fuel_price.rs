@@ -7,6 +7,7 @@ use super::geometry::{Anchor, Colour, LineStyle, Mark, MarkerShape, Pt, Rect};
 use super::scale::{money_f64, tight_ticks, MoneyScale};
 use super::style::{series_marks, series_style};
 use super::Chart;
+use crate::report::format;
 use crate::report::model::Model;
 use crate::report::pdf::labels::Labels;
 
@@ -21,7 +22,11 @@ pub fn fuel_price_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Ch
     if series.is_empty() {
         return None;
     }
-    let scenario_price = money_f64(curves.scenario_price_per_gj);
+    // Prices are drawn in the unit the scenario file wrote its price in.
+    let unit = &model.method.fuel_price_unit;
+    let in_unit = |per_gj| money_f64(format::fuel_price_in(per_gj, unit));
+    // The file's own price, unrounded (34 EUR/MWh, not 9.44 EUR/GJ × 3.6).
+    let scenario_price = in_unit(model.method.fuel_price_per_gj);
     let asked: Vec<(usize, f64)> = series
         .iter()
         .enumerate()
@@ -36,7 +41,7 @@ pub fn fuel_price_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Ch
         .collect();
     let prices = series
         .iter()
-        .flat_map(|s| s.points.iter().map(|(p, _)| money_f64(*p)))
+        .flat_map(|s| s.points.iter().map(|(p, _)| in_unit(*p)))
         .chain([scenario_price]);
     let (x_min, x_max) = prices.fold((f64::INFINITY, f64::NEG_INFINITY), |(lo, hi), v| {
         (lo.min(v), hi.max(v))
@@ -55,8 +60,8 @@ pub fn fuel_price_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Ch
     let y_ticks = tight_ticks(y_min, y_max, 6, 0.06);
     let x_axis = Axis::numeric(
         format!(
-            "{}, {currency}/GJ ({})",
-            labels.fuel_price_axis, model.method.fuel_price_basis
+            "{}, {currency}/{} ({})",
+            labels.fuel_price_axis, unit.symbol, model.method.fuel_price_basis
         ),
         &x_ticks,
         1.0,
@@ -120,9 +125,9 @@ pub fn fuel_price_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Ch
     marks.push(Mark::text(
         Pt::new(price_x + 1.0, frame.plot.top_mm() - SMALL_PT * 0.35 - 1.0),
         format!(
-            "{} {} {currency}/GJ",
+            "{} {}",
             labels.scenario_price,
-            crate::report::format::grouped(curves.scenario_price_per_gj, 2)
+            format::fuel_price_as(model.method.fuel_price_per_gj, currency, "", unit)
         ),
         SMALL_PT,
         Anchor::Left,
@@ -132,7 +137,7 @@ pub fn fuel_price_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Ch
         let points: Vec<Pt> = s
             .points
             .iter()
-            .map(|(p, v)| Pt::new(frame.x.map(money_f64(*p)), frame.y.map(money_f64(*v))))
+            .map(|(p, v)| Pt::new(frame.x.map(in_unit(*p)), frame.y.map(money_f64(*v))))
             .collect();
         marks.extend(series_marks(&points, &style, 8));
     }

@@ -41,6 +41,13 @@ fn report(loaded: &LoadedScenario, extra_warnings: Vec<String>, units: Units) ->
     let mut warnings = scenario::engineering_warnings(&loaded.scenario);
     warnings.extend(extra_warnings);
     let mut out = summary(loaded, units);
+    let notes = scenario::information_notes(&loaded.scenario);
+    if !notes.is_empty() {
+        out.push_str("\nInformation:\n");
+        for n in &notes {
+            let _ = writeln!(out, "  - {n}");
+        }
+    }
     if warnings.is_empty() {
         out.push_str("\nWarnings: none\n");
     } else {
@@ -122,7 +129,14 @@ fn summary(loaded: &LoadedScenario, units: Units) -> String {
     let _ = writeln!(
         out,
         "          {}, escalating {}/yr{path}",
-        format::fuel_price(fuel.price_per_gj, cur, basis, units),
+        format::fuel_price_echo(
+            fuel.price_per_gj,
+            format::scenario_price_written(fuel, cur).as_deref(),
+            cur,
+            basis,
+            &format::scenario_price_unit(loaded),
+            units
+        ),
         percent(fuel.escalation)
     );
     let e = &s.economics;

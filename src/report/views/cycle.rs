@@ -26,6 +26,8 @@ pub struct CycleView<'a> {
     /// LHV heat input of the sized machine, kW (fuel flow × LHV), when the
     /// cycle was sized to a net output.
     fuel_energy_flow_kw: Option<f64>,
+    /// Component-efficiency flags left at their ideal default of 1.
+    ideal_defaults: Vec<&'static str>,
 }
 
 impl<'a> CycleView<'a> {
@@ -40,7 +42,25 @@ impl<'a> CycleView<'a> {
             fuel,
             units,
             fuel_energy_flow_kw,
+            ideal_defaults: Vec::new(),
         }
+    }
+
+    /// Name the component-efficiency flags that were left at their ideal
+    /// default of 1, so the output can say so.
+    pub fn with_ideal_defaults(mut self, flags: &[&'static str]) -> Self {
+        self.ideal_defaults = flags.to_vec();
+        self
+    }
+
+    /// The sentence saying which efficiencies were left ideal, if any.
+    fn ideal_note(&self) -> Option<String> {
+        (!self.ideal_defaults.is_empty()).then(|| {
+            format!(
+                "Left at the ideal default of 1 (no loss): {}. Give them to model a real machine.",
+                self.ideal_defaults.join(", ")
+            )
+        })
     }
 
     /// Rows of (quantity, value, unit) summarising the cycle.
@@ -170,6 +190,8 @@ struct JsonOutput<'a> {
     #[serde(flatten)]
     result: &'a CycleResult,
     fuel: &'a Fuel,
+    /// Flags of component efficiencies left at their ideal default of 1.
+    efficiencies_left_ideal: &'a [&'static str],
 }
 
 impl View for CycleView<'_> {
@@ -233,6 +255,9 @@ impl View for CycleView<'_> {
         out.push_str(
             "Efficiency and heat rate: net electrical output over fuel energy, lower heating value basis.\n",
         );
+        if let Some(note) = self.ideal_note() {
+            let _ = writeln!(out, "{note}");
+        }
         Ok(out)
     }
 
@@ -240,6 +265,7 @@ impl View for CycleView<'_> {
         json_text(&JsonOutput {
             result: self.result,
             fuel: self.fuel,
+            efficiencies_left_ideal: &self.ideal_defaults,
         })
     }
 
@@ -270,6 +296,9 @@ impl View for CycleView<'_> {
             .to_string(),
             format::unit(Q::SpecificEnergy, self.units),
         ]));
+        for flag in &self.ideal_defaults {
+            out.push_str(&csv_line(&["note", "left at ideal default of 1", flag, ""]));
+        }
         Ok(out)
     }
 }

@@ -1,5 +1,5 @@
 //! The outputs of the commands that do not print a whole comparison
-//! (`cycle`, `check`, `risk`, `sweep`): one view per command, each turning
+//! (`cycle`, `check`, `offdesign`, `risk`, `sweep`): one view per command, each turning
 //! what the library returned into table, JSON or CSV text. `compare` and
 //! `report` render [`super::model::Model`] through [`super::Renderer`].
 //!
@@ -9,6 +9,7 @@
 
 pub mod check;
 pub mod cycle;
+pub mod offdesign;
 pub mod risk;
 pub mod sweep;
 

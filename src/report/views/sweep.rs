@@ -191,6 +191,24 @@ impl<'a> SweepView<'a> {
                     self.plan.points(),
                     scenario.meta.currency
                 );
+                if keys.contains(&"fuel.price") {
+                    let fuel = &scenario.fuel;
+                    let currency = &scenario.meta.currency;
+                    out.push_str(&format!(
+                        "Fuel price in the file: {}\n",
+                        format::fuel_price_echo(
+                            fuel.price_per_gj,
+                            format::scenario_price_written(fuel, currency).as_deref(),
+                            currency,
+                            match fuel.price_basis {
+                                PriceBasis::Hhv => "HHV",
+                                PriceBasis::Lhv => "LHV",
+                            },
+                            &format::scenario_price_unit(self.loaded),
+                            self.units,
+                        )
+                    ));
+                }
                 let mut names = format!("{:>7}", "");
                 let mut line = format!("{:>7}", "point");
                 for ((k, u), w) in keys.iter().zip(&self.units_of_keys).zip(&self.key_widths) {

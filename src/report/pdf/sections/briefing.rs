@@ -6,7 +6,7 @@ use super::{pdf_units, Ctx};
 use crate::report::charts::geometry::{Anchor, Colour, Mark, Pt, Weight};
 use crate::report::format;
 use crate::report::model::{CandidateView, Model};
-use crate::report::pdf::context::{short_money, unit_price, with_candidate};
+use crate::report::pdf::context::{short_money, with_candidate};
 use crate::report::pdf::document::{line_height_mm, Composer, BODY_PT};
 use crate::report::pdf::fonts::{Face, MM_PER_PT};
 use crate::report::pdf::table::{draw_table, Column, TableStyle};
@@ -37,11 +37,12 @@ pub fn key_figures(c: &CandidateView, model: &Model) -> Vec<String> {
         if p.is_sign_negative() {
             return "none above zero".to_string();
         }
-        format!(
-            "{}/GJ {}",
-            unit_price(p, currency),
-            model.method.fuel_price_basis
-        )
+        pdf_units(format::fuel_price_as(
+            p,
+            currency,
+            &model.method.fuel_price_basis,
+            &model.method.fuel_price_unit,
+        ))
     });
     vec![
         format!(
@@ -119,6 +120,18 @@ fn title_block(ctx: &Ctx, composer: &mut Composer) {
         facts.push((l.site.as_str(), site.clone()));
     }
     facts.push((l.scenario_file.as_str(), meta.scenario_file.clone()));
+    let m = &ctx.model.method;
+    facts.push((
+        l.fuel_price.as_str(),
+        pdf_units(format::fuel_price_echo(
+            m.fuel_price_per_gj,
+            m.fuel_price_written.as_deref(),
+            &meta.currency,
+            &m.fuel_price_basis,
+            &m.fuel_price_unit,
+            meta.units,
+        )),
+    ));
     let label_width = 32.0;
     for (name, value) in facts {
         let lines = wrap(
@@ -235,5 +248,73 @@ pub fn briefing(ctx: &Ctx, composer: &mut Composer) -> Result<()> {
             .collect();
         draw_table(composer, &columns, &rows, &TableStyle::default());
     }
+    evaluation_factors(ctx, composer);
     Ok(())
+}
+
+/// The evaluation factors of `c`, in the order of [`factor_names`]:
+/// present values, three significant figures.
+pub fn factor_figures(c: &CandidateView, model: &Model) -> Vec<String> {
+    let currency = &model.meta.currency;
+    let e = &c.economics;
+    let short = |v: rust_decimal::Decimal| short_money(v, currency);
+    vec![
+        short(format::per_heat_rate_unit(
+            e.value_per_kj_per_kwh_full_load,
+            model.meta.units,
+        )),
+        short(e.value_per_kw),
+        short(e.value_per_point.compressor_efficiency),
+        short(e.value_per_point.turbine_efficiency),
+        e.value_per_point
+            .regenerator_effectiveness
+            .map_or_else(|| "n/a".to_string(), short),
+        format!("{:.3}", e.dispatch_heat_rate_ratio),
+    ]
+}
+
+/// Row labels of the evaluation-factors table.
+pub fn factor_names(ctx: &Ctx) -> Vec<String> {
+    let l = ctx.labels;
+    vec![
+        match ctx.model.meta.units {
+            crate::report::model::Units::Si => l.factor_heat_rate.clone(),
+            crate::report::model::Units::Us => l.factor_heat_rate_us.clone(),
+        },
+        l.factor_output.clone(),
+        l.factor_compressor.clone(),
+        l.factor_turbine.clone(),
+        l.factor_regenerator.clone(),
+        l.factor_dispatch_ratio.clone(),
+    ]
+}
+
+/// What one unit of each guaranteed figure is worth, per candidate.
+fn evaluation_factors(ctx: &Ctx, composer: &mut Composer) {
+    let model = ctx.model;
+    let l = ctx.labels;
+    composer.heading(&l.evaluation_factors, 2, 30.0);
+    let names = factor_names(ctx);
+    for group in model.candidates.chunks(CANDIDATES_PER_TABLE) {
+        let mut columns = vec![Column::left(l.figure.clone())];
+        columns.extend(group.iter().map(|c| Column::right(c.label.clone())));
+        let figures: Vec<Vec<String>> = group.iter().map(|c| factor_figures(c, model)).collect();
+        let rows: Vec<Vec<String>> = names
+            .iter()
+            .enumerate()
+            .map(|(i, name)| {
+                std::iter::once(name.clone())
+                    .chain(figures.iter().map(|f| f[i].clone()))
+                    .collect()
+            })
+            .collect();
+        let style = TableStyle {
+            size_pt: 8.0,
+            max_lines: 2,
+            bold_first_column: true,
+            header: true,
+        };
+        draw_table(composer, &columns, &rows, &style);
+    }
+    composer.paragraph(&l.factors_note, 8.0, Face::Regular, 0.0);
 }

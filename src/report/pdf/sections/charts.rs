@@ -49,25 +49,31 @@ pub fn charts(ctx: &Ctx, composer: &mut Composer) {
     let l = ctx.labels;
     // Flows on from the briefing page: on short paper whatever of page 1
     // runs over shares the next page with the charts.
-    composer.heading(&l.charts, 1, 100.0);
-    let height = share(composer, 2, 118.0);
+    // The heading keeps with room for the first chart, so it is never left
+    // alone at the foot of a page; each chart then takes the room left on
+    // its page (at most 118 mm), or starts a new page when less than a
+    // chart's minimum is left, so no page holds a lone chart with space
+    // for another.
+    composer.heading(&l.charts, 1, MIN_CHART_MM + GAP_MM + 0.5);
+    let height = share(composer, 1, 118.0);
     let area = composer.reserve(height);
     if let Some(chart) = savings_chart(model, l, area) {
         place(composer, chart.chart.marks);
         composer.gap(GAP_MM);
     }
+    let height = share(composer, 1, 118.0);
     let area = composer.reserve(height);
     if let Some(chart) = fuel_price_chart(model, l, area) {
         place(composer, chart.marks);
         composer.gap(GAP_MM);
     }
-
-    let height = share(composer, 2, 118.0);
+    let height = share(composer, 1, 118.0);
     let area = composer.reserve(height);
     if let Some(chart) = breakdown_chart(model, l, area) {
         place(composer, chart.chart.marks);
         composer.gap(GAP_MM);
     }
+    let height = share(composer, 1, 118.0);
     let area = composer.reserve(height);
     if let Some(chart) = difference_chart(model, l, area) {
         place(composer, chart.chart.marks);

@@ -92,7 +92,16 @@ fn headline(ctx: &Ctx, c: &CandidateView) -> Vec<(String, String)> {
         ),
         (
             l.fuel_flow.clone(),
-            format::mass_flow(p.fuel_flow_kg_per_s, units),
+            // kg/s (SI) or lb/h (US), as the trade quotes fuel.
+            format::with_unit(
+                format::Quantity::FuelMassFlow,
+                p.fuel_flow_kg_per_s,
+                units,
+                match units {
+                    Units::Si => 3,
+                    Units::Us => 0,
+                },
+            ),
         ),
         (
             l.co2_intensity.clone(),
@@ -120,7 +129,7 @@ fn headline(ctx: &Ctx, c: &CandidateView) -> Vec<(String, String)> {
         ),
         (
             l.back_work_ratio.clone(),
-            format::percent(k.back_work_ratio, 1),
+            format::back_work_ratio(k.back_work_ratio),
         ),
         (
             l.energy_residual.clone(),

@@ -2,7 +2,10 @@
 //! candidate-year (long format). Money as plain decimal numbers rounded to
 //! the minor unit; no thousands separators. With US units the fuel energy
 //! column is `fuel_energy_mmbtu` (LHV, 1 MMBtu = 1.055056 GJ) in place of
-//! `fuel_energy_gj`; every other column is the same in both systems.
+//! `fuel_energy_gj`; every other column is the same in both systems. The
+//! `guarantee_settlement` column (bonus paid less damages received at the
+//! acceptance test) is always present, zero on rows without a settlement,
+//! so the stream columns of every row add up to its `total`.
 
 use super::format::{self, Quantity};
 use super::model::{Model, Units};
@@ -12,7 +15,7 @@ use super::Renderer;
 pub struct LedgerCsvRenderer;
 
 /// Column names, in order.
-pub const LEDGER_COLUMNS: [&str; 19] = [
+pub const LEDGER_COLUMNS: [&str; 20] = [
     "candidate_id",
     "year",
     "period_start",
@@ -28,6 +31,7 @@ pub const LEDGER_COLUMNS: [&str; 19] = [
     "replacement",
     "capital",
     "residual",
+    "guarantee_settlement",
     "total",
     "discount_factor",
     "present_value",
@@ -62,6 +66,7 @@ impl Renderer for LedgerCsvRenderer {
                         r.replacement.to_string(),
                         r.capital.to_string(),
                         r.residual.to_string(),
+                        r.guarantee_settlement.to_string(),
                         r.total.to_string(),
                         r.discount_factor.to_string(),
                         r.present_value.to_string(),

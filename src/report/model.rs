@@ -52,6 +52,19 @@ pub struct Model {
     pub risk: Option<RiskView>,
 }
 
+impl Model {
+    /// Whether some candidate settles a guarantee at the acceptance test
+    /// (a non-zero `guarantee_settlement` stream): renderers show the
+    /// settlement column, category or bar only then, as they do output
+    /// replacement only when it is charged.
+    pub fn settled(&self) -> bool {
+        self.candidates.iter().any(|c| {
+            !c.cost_breakdown.guarantee_settlement.is_zero()
+                || c.ledger.iter().any(|r| !r.guarantee_settlement.is_zero())
+        })
+    }
+}
+
 /// Title block and traceability of the report.
 #[derive(Debug, Clone, Serialize)]
 pub struct Meta {

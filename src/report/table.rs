@@ -119,10 +119,15 @@ fn performance_table(model: &Model) -> String {
 
 fn economics_table(model: &Model) -> String {
     let cur = &model.meta.currency;
+    // The settlement column only when some candidate settles a guarantee,
+    // so capital + settlement is what the buyer pays net at the test.
+    let settled = model.settled();
     let mut b = Builder::default();
-    b.push_record([
-        "candidate",
-        "capital",
+    let mut header = vec!["candidate", "capital"];
+    if settled {
+        header.push("guarantee settlement (PV)");
+    }
+    header.extend([
         "lifecycle cost",
         "LCOE /MWh",
         "net savings",
@@ -132,11 +137,14 @@ fn economics_table(model: &Model) -> String {
         "AIRR %",
         "disc. payback",
     ]);
+    b.push_record(header);
     for c in &model.candidates {
         let e = &c.economics;
-        b.push_record([
-            c.id.clone(),
-            money(e.capital_cost, cur),
+        let mut record = vec![c.id.clone(), money(e.capital_cost, cur)];
+        if settled {
+            record.push(money(c.cost_breakdown.guarantee_settlement, cur));
+        }
+        record.extend([
             money(e.lifecycle_cost, cur),
             format!("{} {}", cur, format::grouped(e.levelized_cost_per_mwh, 2)),
             money_opt(e.net_savings_vs_baseline, cur),
@@ -147,8 +155,16 @@ fn economics_table(model: &Model) -> String {
                 .map_or_else(|| "n/a".into(), |v| format!("{:.2}", v * 100.0)),
             format::payback(e.discounted_payback),
         ]);
+        b.push_record(record);
     }
-    finish(b.build())
+    let mut text = finish(b.build());
+    if settled {
+        text.push_str(
+            "\nGuarantee settlement: damages received from the vendor (negative) or bonus paid \
+             (positive) at the acceptance test, already in the lifecycle cost.",
+        );
+    }
+    text
 }
 
 fn factors_table(model: &Model) -> String {

@@ -1,7 +1,10 @@
 //! Lifecycle cost of each candidate broken down by stream (present values):
 //! capital, fuel, O&M, overhauls, carbon and (when any candidate is charged
 //! for an output shortfall) output replacement stacked upward from zero, the
-//! residual-value credit below zero, and the lifecycle cost marked.
+//! residual-value credit below zero, and the lifecycle cost marked. A
+//! guarantee settlement (when any candidate has one) is its own category:
+//! damages received stack below zero with the residual credit, a bonus paid
+//! stacks upward, so each bar's segments still add up to the lifecycle cost.
 
 use super::frame::{category_label, draw_frame, Axis, LegendEntry, Swatch};
 use super::geometry::{hatch_lines, rect_corners, Colour, Mark, MarkerShape, Rect};
@@ -17,7 +20,7 @@ pub struct Segment {
     /// Candidate id.
     pub candidate_id: String,
     /// Stream index (0 capital, 1 fuel, 2 O&M, 3 overhauls, 4 carbon,
-    /// 5 residual, 6 output replacement).
+    /// 5 residual, 6 output replacement, 7 guarantee settlement).
     pub stream: usize,
     /// The segment's box on the page.
     pub rect: Rect,
@@ -35,8 +38,11 @@ pub struct BreakdownChart {
 /// Index of the output-replacement stream.
 const REPLACEMENT: usize = 6;
 
+/// Index of the guarantee-settlement stream.
+pub const SETTLEMENT: usize = 7;
+
 /// Stream values by index; stacking runs in the order of [`STACK_ORDER`].
-fn streams(b: &CostBreakdown) -> [f64; 7] {
+fn streams(b: &CostBreakdown) -> [f64; 8] {
     [
         money_f64(b.capital),
         money_f64(b.fuel),
@@ -45,12 +51,13 @@ fn streams(b: &CostBreakdown) -> [f64; 7] {
         money_f64(b.carbon),
         money_f64(b.residual),
         money_f64(b.replacement),
+        money_f64(b.guarantee_settlement),
     ]
 }
 
 /// Order of stacking and of the legend: the candidate's own costs, then
-/// what it buys elsewhere, then the credit.
-const STACK_ORDER: [usize; 7] = [0, 1, 2, 3, 4, REPLACEMENT, 5];
+/// what it buys elsewhere, then the settlement, then the credit.
+const STACK_ORDER: [usize; 8] = [0, 1, 2, 3, 4, REPLACEMENT, SETTLEMENT, 5];
 
 /// The chart inside `area`; `None` if the model has no candidates.
 pub fn breakdown_chart(model: &Model, labels: &Labels, area: Rect) -> Option<BreakdownChart> {
@@ -65,7 +72,9 @@ pub fn breakdown_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Bre
         &labels.carbon,
         &labels.residual,
         &labels.replacement,
+        &labels.guarantee_settlement,
     ];
+    let settled = model.settled();
     let levelled = model
         .candidates
         .iter()
@@ -105,6 +114,7 @@ pub fn breakdown_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Bre
     let mut legend: Vec<LegendEntry> = STACK_ORDER
         .iter()
         .filter(|i| levelled || **i != REPLACEMENT)
+        .filter(|i| settled || **i != SETTLEMENT)
         .map(|&i| {
             let (colour, hatch) = stream_fill(i);
             LegendEntry {

@@ -2,7 +2,8 @@
 //! values): one row per stream, one horizontal bar per candidate from zero
 //! to its difference. Positive: the candidate spends more on that stream
 //! than the baseline; negative: less (for the residual-value credit, a
-//! larger credit shows as negative). Differences of a few per cent that a
+//! larger credit shows as negative; for a guarantee settlement, more damages
+//! received show as negative). Differences of a few per cent that a
 //! stacked bar hides are readable here.
 
 use super::frame::{draw_frame, Axis, LegendEntry, Swatch, SMALL_PT};
@@ -41,8 +42,9 @@ pub struct DifferenceChart {
 }
 
 /// Stream values by index: capital, fuel, O&M, overhauls, carbon, output
-/// replacement, residual value.
-pub fn stream_values(b: &CostBreakdown) -> [f64; 7] {
+/// replacement, residual value, guarantee settlement (a row of the chart
+/// only when some candidate's settlement differs from the baseline's).
+pub fn stream_values(b: &CostBreakdown) -> [f64; 8] {
     [
         money_f64(b.capital),
         money_f64(b.fuel),
@@ -51,6 +53,7 @@ pub fn stream_values(b: &CostBreakdown) -> [f64; 7] {
         money_f64(b.carbon),
         money_f64(b.replacement),
         money_f64(b.residual),
+        money_f64(b.guarantee_settlement),
     ]
 }
 
@@ -73,6 +76,7 @@ pub fn difference_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Di
         &labels.carbon,
         &labels.replacement,
         &labels.residual,
+        &labels.guarantee_settlement,
     ];
     // Streams where some candidate differs from the baseline.
     let rows: Vec<usize> = (0..names.len())

@@ -51,7 +51,7 @@ pub fn series_style(index: usize) -> SeriesStyle {
 /// Fill of stacked cost streams: greys of clearly different lightness, with
 /// hatching on alternate streams, so streams separate in greyscale.
 pub fn stream_fill(index: usize) -> (Colour, bool) {
-    const FILLS: [(Colour, bool); 7] = [
+    const FILLS: [(Colour, bool); 8] = [
         (Colour::rgb(0.16, 0.29, 0.48), false),
         (Colour::rgb(0.93, 0.55, 0.24), false),
         (Colour::rgb(0.55, 0.75, 0.88), true),
@@ -59,6 +59,7 @@ pub fn stream_fill(index: usize) -> (Colour, bool) {
         (Colour::rgb(0.80, 0.80, 0.80), true),
         (Colour::rgb(0.60, 0.80, 0.55), true),
         (Colour::rgb(0.62, 0.45, 0.70), false),
+        (Colour::rgb(0.85, 0.40, 0.45), true),
     ];
     FILLS[index % FILLS.len()]
 }

@@ -8,8 +8,9 @@ use crate::report::pdf::document::{Composer, Orientation};
 use crate::report::pdf::fonts::Face;
 use crate::report::pdf::table::{draw_table_continued, Column, TableStyle};
 
-/// A row's cells; the replacement column only when `levelled`.
-fn row(r: &LedgerRowView, levelled: bool) -> Vec<String> {
+/// A row's cells; the replacement column only when `levelled`, the
+/// guarantee-settlement column only when `settled`.
+fn row(r: &LedgerRowView, levelled: bool, settled: bool) -> Vec<String> {
     let m = |v| format::grouped(v, 0);
     let mut cells = vec![
         r.year.to_string(),
@@ -24,24 +25,39 @@ fn row(r: &LedgerRowView, levelled: bool) -> Vec<String> {
         m(r.replacement),
         m(r.capital),
         m(r.residual),
+        m(r.guarantee_settlement),
         m(r.total),
         format!("{:.4}", r.discount_factor),
         m(r.present_value),
     ];
+    drop_hidden(&mut cells, levelled, settled);
+    cells
+}
+
+/// Remove the optional columns not shown (the later one first, so the
+/// earlier one's position still holds).
+fn drop_hidden<T>(cells: &mut Vec<T>, levelled: bool, settled: bool) {
+    if !settled {
+        cells.remove(SETTLEMENT_COLUMN);
+    }
     if !levelled {
         cells.remove(REPLACEMENT_COLUMN);
     }
-    cells
 }
 
 /// Position of the replacement column, shown only when some candidate is
 /// charged for an output shortfall.
 const REPLACEMENT_COLUMN: usize = 9;
 
+/// Position of the guarantee-settlement column (after the residual, before
+/// the total), shown only when some candidate settles a guarantee.
+const SETTLEMENT_COLUMN: usize = 12;
+
 /// Lay out the ledger appendix.
 pub fn ledger(ctx: &Ctx, composer: &mut Composer) {
     let l = ctx.labels;
     let levelled = ctx.model.method.levelled;
+    let settled = ctx.model.settled();
     let mut columns = vec![
         Column::left(l.ledger_year.clone()),
         Column::right(l.ledger_hours.clone()),
@@ -55,13 +71,12 @@ pub fn ledger(ctx: &Ctx, composer: &mut Composer) {
         Column::right(l.ledger_replacement.clone()),
         Column::right(l.ledger_capital.clone()),
         Column::right(l.ledger_residual.clone()),
+        Column::right(l.ledger_settlement.clone()),
         Column::right(l.ledger_total.clone()),
         Column::right(l.ledger_discount_factor.clone()),
         Column::right(l.ledger_present_value.clone()),
     ];
-    if !levelled {
-        columns.remove(REPLACEMENT_COLUMN);
-    }
+    drop_hidden(&mut columns, levelled, settled);
     let style = TableStyle {
         size_pt: 7.0,
         max_lines: 2,
@@ -73,9 +88,12 @@ pub fn ledger(ctx: &Ctx, composer: &mut Composer) {
         if i == 0 {
             composer.heading(&l.ledger, 1, 40.0);
             composer.paragraph(&l.ledger_note, 8.5, Face::Regular, 0.0);
+            if settled {
+                composer.paragraph(&l.ledger_settlement_note, 8.5, Face::Regular, 0.0);
+            }
         }
         composer.heading(&c.label, 2, 30.0);
-        let rows: Vec<Vec<String>> = c.ledger.iter().map(|r| row(r, levelled)).collect();
+        let rows: Vec<Vec<String>> = c.ledger.iter().map(|r| row(r, levelled, settled)).collect();
         let caption = format!("{} ({})", c.label, l.continued);
         draw_table_continued(composer, &columns, &rows, &style, Some(&caption));
     }

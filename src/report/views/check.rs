@@ -5,8 +5,10 @@
 
 use crate::report::format::{self, Quantity as Q};
 use crate::report::model::Units;
+
 use crate::scenario::{
-    self, FuelComposition, GasModelSpec, LoadedScenario, PriceBasis, RateBasis, Timing,
+    self, FuelComposition, GasModelSpec, HeatRateDamages, LoadedScenario, PriceBasis, RateBasis,
+    Timing, ToleranceReading,
 };
 use std::fmt::Write;
 
@@ -175,6 +177,106 @@ fn summary(loaded: &LoadedScenario, units: Units) -> String {
     };
     let _ = writeln!(out, "Operation {} h/yr: {profile}", op.hours_per_year);
     out.push_str(&candidate_table(loaded, units));
+    out.push_str(&guarantees(loaded, units));
+    out.push_str(&correlations(loaded));
+    out
+}
+
+/// Each candidate's `[candidate.guarantee]`: the guaranteed figures (or
+/// what they default to), the acceptance test's tolerance and how it is
+/// read, the damages and bonus rates with their caps, the contract price
+/// the caps refer to, and the as-built figures `compare` settles. Empty
+/// when no candidate has a guarantee.
+fn guarantees(loaded: &LoadedScenario, units: Units) -> String {
+    let s = &loaded.scenario;
+    let cur = &s.meta.currency;
+    let mut out = String::new();
+    for c in &s.candidates {
+        let Some(g) = &c.guarantee else {
+            continue;
+        };
+        if out.is_empty() {
+            out.push_str("Guarantees (settled at the acceptance test)\n");
+        }
+        let output = g.net_output_kw.map_or_else(
+            || {
+                format!(
+                    "{} (net_output)",
+                    format::with_unit(Q::Power, c.net_output_kw, units, 0)
+                )
+            },
+            |kw| format::with_unit(Q::Power, kw, units, 0),
+        );
+        let heat_rate = g.heat_rate_kj_per_kwh.map_or_else(
+            || "the rated heat rate at the site".to_string(),
+            |hr| format::with_unit(Q::HeatRate, hr, units, 0),
+        );
+        let rule = match g.reading {
+            ToleranceReading::BeyondTolerance => "only the shortfall beyond it counts",
+            ToleranceReading::WholeShortfall => "the whole shortfall counts once beyond it",
+        };
+        let _ = writeln!(
+            out,
+            "  {}: guaranteed net output {output}, heat rate {heat_rate} (LHV)",
+            c.id
+        );
+        let _ = writeln!(out, "    tolerance {} ({rule})", percent(g.tolerance));
+        let heat_rate_damages = match g.damages_heat_rate {
+            HeatRateDamages::PerPercent(rate) => format!("{rate} {cur} per % of heat rate"),
+            HeatRateDamages::PerKjPerKwh(rate) => format!("{rate} {cur} per kJ/kWh of heat rate"),
+        };
+        let _ = writeln!(
+            out,
+            "    damages {heat_rate_damages}, {} {cur} per kW of output; {}",
+            g.damages_per_kw,
+            cap(g.damages_cap)
+        );
+        if g.bonus_per_heat_rate_percent.is_zero() && g.bonus_per_kw.is_zero() {
+            out.push_str("    no bonus\n");
+        } else {
+            let _ = writeln!(
+                out,
+                "    bonus {} {cur} per % of heat rate, {} {cur} per kW of output; {}",
+                g.bonus_per_heat_rate_percent,
+                g.bonus_per_kw,
+                cap(g.bonus_cap)
+            );
+        }
+        let price = g.contract_price.map_or_else(
+            || format!("{} {cur} (capital_cost)", c.capital_cost),
+            |p| format!("{p} {cur}"),
+        );
+        let _ = writeln!(
+            out,
+            "    contract price {price}; as built: heat rate {} and net output {} of the guarantee",
+            percent(g.as_built_heat_rate),
+            percent(g.as_built_output)
+        );
+    }
+    out
+}
+
+/// A cap as a fraction of the contract price, or its absence.
+fn cap(fraction: Option<f64>) -> String {
+    fraction.map_or_else(
+        || "no cap".to_string(),
+        |f| format!("capped at {} of the contract price", percent(f)),
+    )
+}
+
+/// The `[[correlation]]` pairs with their target rank correlations; empty
+/// when there are none.
+fn correlations(loaded: &LoadedScenario) -> String {
+    let pairs = &loaded.scenario.correlation;
+    if pairs.is_empty() {
+        return String::new();
+    }
+    let mut out = String::from(
+        "Correlations (rank, imposed on risk draws by Iman-Conover; unlisted pairs 0)\n",
+    );
+    for p in pairs {
+        let _ = writeln!(out, "  {} ~ {}: {}", p.first, p.second, p.rank_correlation);
+    }
     out
 }
 

@@ -394,3 +394,66 @@ fn check_lists_the_guarantee_and_the_correlations() {
         "{out}"
     );
 }
+
+/// Page 1's text of the briefing of `scenario` written with `samples`.
+fn page_one(dir: &tempfile::TempDir, scenario: &str, samples: &str) -> String {
+    let pdf = dir.path().join(format!("briefing-{samples}.pdf"));
+    let pdf_text = pdf.to_string_lossy().to_string();
+    brayfin(&[
+        "report",
+        scenario,
+        "--samples",
+        samples,
+        "--seed",
+        "2",
+        "-o",
+        &pdf_text,
+    ]);
+    let doc = match lopdf::Document::load(&pdf) {
+        Ok(d) => d,
+        Err(e) => panic!("PDF: {e}"),
+    };
+    doc.extract_text(&[1])
+        .unwrap_or_default()
+        .replace('\u{a0}', " ")
+        .split_whitespace()
+        .collect::<Vec<_>>()
+        .join(" ")
+}
+
+#[test]
+fn briefing_page_names_the_settled_damages_or_bonus() {
+    let dir = temp();
+    let damages = write(&dir, "damages.toml", &guaranteed_text(false));
+    // Without a risk run, page 1 gives the settlement of the as-built
+    // figures (1 100 000 by hand, module notes).
+    let text = page_one(&dir, &damages, "0");
+    assert!(
+        text.contains(
+            "As built it misses its guarantee beyond the test tolerance: USD 1.10 M of damages"
+        ),
+        "{text}"
+    );
+    // With one, the risk section gives the chance of a shortfall and the
+    // expected damages (tests/guarantee_report.rs) and page 1 stays as it
+    // was.
+    assert!(!page_one(&dir, &damages, "200").contains("As built it misses"));
+    // A bonus: heat rate 3 % better, 1 % tolerance, 2 counted % × 100 000.
+    let at = DEMO
+        .find("[[candidate]]\nid = \"regenerated\"")
+        .unwrap_or(DEMO.len());
+    let bonus = format!(
+        "{}[candidate.guarantee]\ntolerance = \"1 %\"\n\
+         bonus_per_heat_rate_percent = \"100000 USD\"\nas_built_heat_rate = \"97 %\"\n\n{}",
+        &DEMO[..at],
+        &DEMO[at..]
+    );
+    let bonus = write(&dir, "bonus.toml", &bonus);
+    let text = page_one(&dir, &bonus, "0");
+    assert!(
+        text.contains("As built it beats its guarantee: USD 200 k of bonus"),
+        "{text}"
+    );
+    let plain = write(&dir, "plain.toml", DEMO);
+    assert!(!page_one(&dir, &plain, "0").contains("As built"));
+}

@@ -123,6 +123,8 @@ labels! {
     risk_samples,
     risk_note,
     risk_contract,
+    briefing_damages,
+    briefing_bonus,
     risk_seed,
     risk_redraws,
     performance,

@@ -222,7 +222,11 @@ pub fn briefing(ctx: &Ctx, composer: &mut Composer) -> Result<()> {
         let text = ctx
             .wording
             .render("verdict.j2", &with_candidate(model, c))?;
-        composer.bullet(text.trim(), BODY_PT);
+        let text = match contract_sentence(ctx, c) {
+            Some(sentence) => format!("{} {sentence}", text.trim()),
+            None => text.trim().to_string(),
+        };
+        composer.bullet(&text, BODY_PT);
     }
 
     composer.heading(&l.key_assumptions, 2, 15.0);
@@ -250,6 +254,43 @@ pub fn briefing(ctx: &Ctx, composer: &mut Composer) -> Result<()> {
     }
     evaluation_factors(ctx, composer);
     Ok(())
+}
+
+/// The sentence on `c`'s guarantee for its verdict, when the briefing has
+/// no risk section to give the chance of a shortfall and the expected
+/// damages (that section prints them for every candidate with a guarantee,
+/// and one more line here would push the key assumptions off page 1): the
+/// damages or bonus settled on the scenario's as-built figures, if any.
+fn contract_sentence(ctx: &Ctx, c: &CandidateView) -> Option<String> {
+    let l = ctx.labels;
+    let currency = &ctx.model.meta.currency;
+    let sampled = ctx
+        .model
+        .risk
+        .as_ref()
+        .and_then(|r| r.candidates.iter().find(|rc| rc.candidate_id == c.id))
+        .is_some_and(|rc| rc.contract.is_some());
+    if sampled {
+        return None;
+    }
+    // The amount on the settlement row (paid once, on the commercial
+    // operation date).
+    let settled = c
+        .ledger
+        .iter()
+        .map(|r| r.guarantee_settlement)
+        .find(|v| !v.is_zero())?;
+    if settled.is_sign_negative() {
+        Some(
+            l.briefing_damages
+                .replace("{damages}", &short_money(-settled, currency)),
+        )
+    } else {
+        Some(
+            l.briefing_bonus
+                .replace("{bonus}", &short_money(settled, currency)),
+        )
+    }
 }
 
 /// The evaluation factors of `c`, in the order of [`factor_names`]:

@@ -2,7 +2,9 @@
 //! each set against the baseline: the study behind `compare` and `report`.
 
 use super::engine::fuel_of;
-use super::evaluate::{ledger_inputs, solve, solve_at, Solved};
+use super::evaluate::{
+    ledger_inputs, output_reference_of, solve, solve_at, OutputReference, Solved,
+};
 use crate::finance::{
     self, bid_factors, build_ledger, compare_ledgers, summarize_ledger, BidFactors, CapacityValue,
     Comparison, Ledger, LedgerInputs,
@@ -64,10 +66,24 @@ fn finance_error(
     )
 }
 
-/// Lifecycle cost of `candidate` with the scenario as given (decimal).
-fn lifecycle_cost(scenario: &Scenario, candidate: &Candidate, fuel: &Fuel) -> Option<Decimal> {
+/// Lifecycle cost of `candidate` with the scenario as given (decimal),
+/// levelled to `reference` (the study's, so a changed figure moves only this
+/// candidate's own costs and shortfall).
+fn lifecycle_cost(
+    scenario: &Scenario,
+    candidate: &Candidate,
+    fuel: &Fuel,
+    reference: &OutputReference,
+) -> Option<Decimal> {
     let solved = solve(scenario, candidate, fuel).ok()?;
-    let inputs = ledger_inputs(scenario, candidate, fuel, &solved.year).ok()?;
+    let inputs = ledger_inputs(
+        scenario,
+        candidate,
+        fuel,
+        (&solved.year, solved.site.net_output_kw),
+        reference,
+    )
+    .ok()?;
     Some(summarize_ledger(&inputs).ok()?.lifecycle_cost)
 }
 
@@ -78,6 +94,7 @@ fn value_of_point(
     scenario: &Scenario,
     candidate: &Candidate,
     fuel: &Fuel,
+    reference: &OutputReference,
     set: impl Fn(&mut Candidate, f64),
     value: f64,
 ) -> Option<Decimal> {
@@ -86,7 +103,7 @@ fn value_of_point(
     let at = |x: f64| {
         let mut c = candidate.clone();
         set(&mut c, x);
-        lifecycle_cost(scenario, &c, fuel)
+        lifecycle_cost(scenario, &c, fuel, reference)
     };
     let (low_cost, high_cost) = (at(down)?, at(up)?);
     let points = Decimal::try_from((up - down) * 100.0).ok()?;
@@ -96,12 +113,18 @@ fn value_of_point(
     Some((low_cost - high_cost) / points)
 }
 
-fn values_per_point(scenario: &Scenario, c: &Candidate, fuel: &Fuel) -> [Option<Decimal>; 3] {
+fn values_per_point(
+    scenario: &Scenario,
+    c: &Candidate,
+    fuel: &Fuel,
+    reference: &OutputReference,
+) -> [Option<Decimal>; 3] {
     [
         value_of_point(
             scenario,
             c,
             fuel,
+            reference,
             |c, x| c.compressor_efficiency = x,
             c.compressor_efficiency,
         ),
@@ -109,6 +132,7 @@ fn values_per_point(scenario: &Scenario, c: &Candidate, fuel: &Fuel) -> [Option<
             scenario,
             c,
             fuel,
+            reference,
             |c, x| c.turbine_efficiency = x,
             c.turbine_efficiency,
         ),
@@ -117,6 +141,7 @@ fn values_per_point(scenario: &Scenario, c: &Candidate, fuel: &Fuel) -> [Option<
                 scenario,
                 c,
                 fuel,
+                reference,
                 |c, x| {
                     if let Some(r) = c.regenerator.as_mut() {
                         r.effectiveness = x;
@@ -149,15 +174,26 @@ pub fn run_study(loaded: &LoadedScenario) -> crate::Result<Study> {
         per_kw_year: scenario.economics.capacity_value_per_kw_year,
         escalation: 0.0,
     };
+    // Every candidate at the site first: the output reference is the most
+    // any of them makes there.
+    let solved_all = (0..scenario.candidates.len())
+        .map(|index| solve_at(loaded, index, &fuel))
+        .collect::<crate::Result<Vec<_>>>()?;
+    let reference = output_reference_of(scenario, solved_all.iter().map(|s| s.site.net_output_kw));
     let mut outcomes = Vec::with_capacity(scenario.candidates.len());
-    for (index, candidate) in scenario.candidates.iter().enumerate() {
-        let solved = solve_at(loaded, index, &fuel)?;
-        let inputs = ledger_inputs(scenario, candidate, &fuel, &solved.year)
-            .map_err(|e| finance_error(loaded, candidate, e))?;
+    for (candidate, solved) in scenario.candidates.iter().zip(solved_all) {
+        let inputs = ledger_inputs(
+            scenario,
+            candidate,
+            &fuel,
+            (&solved.year, solved.site.net_output_kw),
+            &reference,
+        )
+        .map_err(|e| finance_error(loaded, candidate, e))?;
         let ledger = build_ledger(&inputs).map_err(|e| finance_error(loaded, candidate, e))?;
         let bid =
             bid_factors(&inputs, &capacity).map_err(|e| finance_error(loaded, candidate, e))?;
-        let value_per_point = values_per_point(scenario, candidate, &fuel);
+        let value_per_point = values_per_point(scenario, candidate, &fuel, &reference);
         outcomes.push(CandidateOutcome {
             solved,
             inputs,

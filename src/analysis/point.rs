@@ -21,7 +21,7 @@ mod restore;
 
 use super::engine::{detail_of, engine_config_of, fuel_of, gas_model_of};
 use super::evaluate::{ledger_inputs, output_reference_of, year_of};
-use super::site::{site_performance, SitePerformance};
+use super::site::{fixed_machine_site, rated_site, SitePerformance};
 use crate::cycle::{self, EngineConfig, GasModel};
 use crate::finance::{compare_summaries, summarize_ledger, LedgerInputs, LedgerSummary};
 use crate::fuel::Fuel;
@@ -282,10 +282,19 @@ impl<'s> PointModel<'s> {
                 candidate: candidate.id.clone(),
                 message,
             };
-            let solved = cycle::solve_detailed(&config, &detail, &gas, fuel)
-                .map_err(|e| cycle_error(e.to_string()))?;
-            let site = site_performance(scenario, candidate, fuel, &solved)
-                .map_err(|e| cycle_error(e.to_string()))?;
+            // The machine's calibration is its own design solve: the design
+            // cycle at the site is solved only for a candidate kept at its
+            // rating.
+            let site = match fixed_machine_site(scenario, candidate, fuel)
+                .map_err(|e| cycle_error(e.to_string()))?
+            {
+                Ok(site) => site,
+                Err(reason) => {
+                    let solved = cycle::solve_detailed(&config, &detail, &gas, fuel)
+                        .map_err(|e| cycle_error(e.to_string()))?;
+                    rated_site(scenario, candidate, solved.heat_rate_kj_per_kwh, reason)
+                }
+            };
             ws.cycles[i] = Some(CachedCycle {
                 config,
                 detail,

@@ -103,6 +103,40 @@ pub fn site_performance(
     fuel: &Fuel,
     rated: &CycleResult,
 ) -> Result<SitePerformance, SiteError> {
+    Ok(match fixed_machine_site(scenario, candidate, fuel)? {
+        Ok(site) => site,
+        Err(reason) => rated_site(scenario, candidate, rated.heat_rate_kj_per_kwh, reason),
+    })
+}
+
+/// The performance of a candidate the fixed-machine model refuses for its
+/// arrangement (`reason`): its rated output, the design-point heat rate at
+/// the site `rated_heat_rate_kj_per_kwh`, part load from the scenario's
+/// table.
+pub fn rated_site(
+    scenario: &Scenario,
+    candidate: &Candidate,
+    rated_heat_rate_kj_per_kwh: f64,
+    reason: String,
+) -> SitePerformance {
+    SitePerformance {
+        net_output_kw: candidate.net_output_kw,
+        heat_rate_kj_per_kwh: rated_heat_rate_kj_per_kwh,
+        block_ratios: table_ratios(&scenario.operation),
+        basis: Basis::Rated(reason),
+    }
+}
+
+/// A candidate's fixed machine at the site: `Ok(Ok(site))`; `Ok(Err(reason))`
+/// when the model refuses the candidate's arrangement (intercooler, reheat:
+/// price it with [`rated_site`]); `Err` when the machine cannot be built or
+/// cannot run at the site or a dispatch load. Needs no design solve at the
+/// site: the calibration at the rating is the machine's own.
+pub fn fixed_machine_site(
+    scenario: &Scenario,
+    candidate: &Candidate,
+    fuel: &Fuel,
+) -> Result<Result<SitePerformance, String>, SiteError> {
     let located = |error: OffDesignError, load: Option<f64>| SiteError {
         candidate: candidate.id.clone(),
         error: Box::new(error),
@@ -110,14 +144,7 @@ pub fn site_performance(
     };
     let machine = match machine_of(candidate, &scenario.site, fuel) {
         Ok(m) => m,
-        Err(e) if arrangement_refused(&e) => {
-            return Ok(SitePerformance {
-                net_output_kw: candidate.net_output_kw,
-                heat_rate_kj_per_kwh: rated.heat_rate_kj_per_kwh,
-                block_ratios: table_ratios(&scenario.operation),
-                basis: Basis::Rated(e.to_string()),
-            })
-        }
+        Err(e) if arrangement_refused(&e) => return Ok(Err(e.to_string())),
         Err(e) => return Err(located(e, None)),
     };
     let ambient = site_ambient(candidate, &scenario.site);
@@ -142,12 +169,12 @@ pub fn site_performance(
     } else {
         table_ratios(operation)
     };
-    Ok(SitePerformance {
+    Ok(Ok(SitePerformance {
         net_output_kw: base.net_output_kw,
         heat_rate_kj_per_kwh: base.heat_rate_kj_per_kwh,
         block_ratios,
         basis: Basis::Machine(Box::new(base)),
-    })
+    }))
 }
 
 /// Information lines for `check` and the report: how the site performance

@@ -200,3 +200,99 @@ fn check_says_the_part_load_table_is_a_stated_curve() {
             "operation.part_load is applied as a stated vendor curve",
         ));
 }
+
+/// An intercooled bid, which the fixed-machine model does not cover, keeps
+/// its rated output and its design-point heat rate at the site (exactly,
+/// the same numbers as before the machine was priced), and `check` says so
+/// in an information line; the other bids are still fixed machines.
+#[test]
+fn an_intercooled_bid_keeps_rated_pricing_with_a_note() {
+    let text = demo_text();
+    let from = "[candidate.costs]\nfixed_om = \"14.5 USD/kW-yr\"";
+    assert!(text.contains(from), "the standard bid's costs moved");
+    let with = text.replacen(
+        from,
+        &format!("[candidate.intercooler]\neffectiveness = \"85 %\"\n\n{from}"),
+        1,
+    );
+    let loaded = parse(&with, "intercooled.toml").expect("the intercooled demo loads");
+    let study = run_study(&loaded).expect("the study runs");
+    let standard = &study.outcomes[0].solved;
+    assert!(matches!(standard.site.basis, Basis::Rated(_)));
+    assert_eq!(standard.site.net_output_kw, 50_000.0);
+    assert_eq!(
+        standard.site.heat_rate_kj_per_kwh,
+        standard.cycle.heat_rate_kj_per_kwh
+    );
+    assert!(matches!(
+        study.outcomes[1].solved.site.basis,
+        Basis::Machine(_)
+    ));
+    let dir = tempfile::tempdir().expect("temp dir");
+    let path = dir.path().join("intercooled.toml");
+    std::fs::write(&path, with).expect("scenario written");
+    Command::cargo_bin("brayfin")
+        .expect("binary builds")
+        .args(["check", path.to_str().expect("utf-8 path")])
+        .assert()
+        .success()
+        .stdout(predicates::str::contains(
+            "candidate[standard]: priced at its rated output (50000 kW)",
+        ));
+}
+
+/// `sweep` and `risk` points follow the machine like `compare`: with the
+/// site temperature and the fuel price varied together (a cache hit on
+/// every price-only change, a full re-solve on every temperature change),
+/// each point's heat rate equals the decimal study of the edited scenario
+/// and its lifecycle cost is within a cent.
+#[test]
+fn points_follow_the_machine_like_the_study() {
+    use brayfin::analysis::point::{Figures, PointModel};
+    use brayfin::finance::Money;
+    let loaded = parse(&demo_text(), "demo.toml").expect("the demo loads");
+    let base = run_study(&loaded).expect("the study runs");
+    let keys = vec![
+        "site.ambient_temperature".to_string(),
+        "fuel.price".to_string(),
+    ];
+    let model = PointModel::new(
+        &loaded.scenario,
+        base.fuel.clone(),
+        base.baseline_index,
+        keys.clone(),
+        vec![true; 3],
+    );
+    let mut workspace = model.workspace();
+    for values in [
+        [288.15, 3.0],
+        [288.15, 5.0],
+        [308.15, 5.0],
+        [308.15, 3.0],
+        [288.15, 3.0],
+    ] {
+        let mut figures = vec![Figures::default(); 3];
+        if let Err(error) = model.evaluate(&mut workspace, &values, &mut figures) {
+            panic!("{values:?}: {error}");
+        }
+        let mut edited = loaded.clone();
+        for (key, value) in keys.iter().zip(values) {
+            if let Err(error) = edited.scenario.set_numeric(key, value) {
+                panic!("{key} = {value}: {error}");
+            }
+        }
+        let expected = run_study(&edited).expect("the edited study runs");
+        for (f, outcome) in figures.iter().zip(&expected.outcomes) {
+            assert_eq!(
+                f.heat_rate_kj_per_kwh, outcome.solved.site.heat_rate_kj_per_kwh,
+                "{values:?}"
+            );
+            let lcc = outcome.ledger.summary.lifecycle_cost.to_f64();
+            assert!(
+                (f.lifecycle_cost - lcc).abs() <= 0.01,
+                "{values:?}: {} vs {lcc}",
+                f.lifecycle_cost
+            );
+        }
+    }
+}

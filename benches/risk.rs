@@ -7,7 +7,7 @@
 //! general-purpose Python script (about 35 µs per point here).
 
 use brayfin::analysis::engine::{engine_config_of, gas_model_of};
-use brayfin::analysis::evaluate::{ledger_inputs, solve};
+use brayfin::analysis::evaluate::{ledger_inputs, output_reference, solve};
 use brayfin::analysis::point::{Figures, PointModel};
 use brayfin::analysis::risk::run_risk;
 use brayfin::analysis::sweep::{plan, run_sweep};
@@ -136,6 +136,9 @@ fn parts(c: &mut Criterion) {
             }
         })
     });
+    let Ok(reference) = output_reference(scenario, &fuel) else {
+        panic!("the demo machines must solve");
+    };
     let inputs: Vec<_> = scenario
         .candidates
         .iter()
@@ -143,7 +146,13 @@ fn parts(c: &mut Criterion) {
             let Ok(solved) = solve(scenario, k, &fuel) else {
                 panic!("the demo cycles must solve");
             };
-            match ledger_inputs(scenario, k, &fuel, &solved.year) {
+            match ledger_inputs(
+                scenario,
+                k,
+                &fuel,
+                (&solved.year, solved.site.net_output_kw),
+                &reference,
+            ) {
                 Ok(i) => i.to_f64(),
                 Err(e) => panic!("the demo ledger inputs must build: {e}"),
             }

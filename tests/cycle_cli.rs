@@ -378,17 +378,36 @@ fn negative_efficiency_is_an_input_error_naming_the_flag() {
 }
 
 /// `cycle` reproduces a scenario's heat rate once every loss the scenario
-/// gives is given as a flag: the demo's `standard` bid at its site
-/// (59 degF; 120 ft, so ISO 2533 gives 100.886378 kPa; the default 60 %
-/// relative humidity), against the heat rate `compare` prints for it. Same
-/// solver, so to 1e-9 relative.
+/// gives is given as a flag: the demo's `standard` bid with its site at the
+/// rating condition (15 °C, 101.325 kPa, the default 60 % relative
+/// humidity), against the heat rate `compare` prints for it. Same solver,
+/// and the fixed machine reproduces its design solve at the rating, so to
+/// 1e-9 relative.
 #[test]
 fn cycle_flags_reproduce_a_scenario_heat_rate() {
+    // The comparison prices each bid's fixed machine at the site, which is
+    // its design point only at its rating condition: the demo's site is put
+    // there (ISO 3977-2: 15 °C, sea level, 60 %, the demo bids' default
+    // rating), where the machine reproduces the design solve.
+    let text = std::fs::read_to_string("scenarios/corvel-bay-peaker.toml").expect("demo");
+    let from = "ambient_temperature = \"59 degF\"\nelevation = \"120 ft\"";
+    assert!(text.contains(from), "the demo's site lines moved");
+    let dir = tempfile::tempdir().expect("temp dir");
+    let path = dir.path().join("at-rating.toml");
+    std::fs::write(
+        &path,
+        text.replacen(
+            from,
+            "ambient_temperature = \"15 degC\"\nelevation = \"0 m\"",
+            1,
+        ),
+    )
+    .expect("scenario written");
     let out = Command::cargo_bin("brayfin")
         .expect("binary builds")
         .args([
             "compare",
-            "scenarios/corvel-bay-peaker.toml",
+            path.to_str().expect("utf-8 path"),
             "--format",
             "json",
         ])
@@ -429,9 +448,9 @@ fn cycle_flags_reproduce_a_scenario_heat_rate() {
         "--fuel",
         "CH4=0.947,C2H6=0.027,C3H8=0.004,C4H10=0.001,N2=0.013,CO2=0.008",
         "--ambient-temperature",
-        "59 degF",
+        "15 degC",
         "--ambient-pressure",
-        "100.88637780766385 kPa",
+        "101.325 kPa",
         "--relative-humidity",
         "60 %",
     ]);

@@ -291,7 +291,9 @@ fn check_notes_a_site_where_the_machine_differs_from_its_rating() {
             .success()
             .stdout(
                 predicate::str::contains("candidate[standard]: as a fixed machine at the site")
-                    .and(predicate::str::contains("do not follow the machine yet")),
+                    .and(predicate::str::contains(
+                        "price the fixed machine's figures",
+                    )),
             );
     }
     Command::cargo_bin("brayfin")

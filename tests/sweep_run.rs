@@ -108,7 +108,7 @@ fn each_point_equals_a_study_of_the_scenario_set_to_its_value() {
             };
             assert_eq!(
                 f.heat_rate_kj_per_kwh,
-                outcome.solved.cycle.heat_rate_kj_per_kwh
+                outcome.solved.site.heat_rate_kj_per_kwh
             );
             let lcc = outcome
                 .ledger

@@ -4,11 +4,12 @@
 //!
 //! - As built: heat rate = guaranteed heat rate × `as_built_heat_rate`,
 //!   net output = guaranteed output × `as_built_output`. The machine in
-//!   operation is the modelled one scaled by the same ratios (its heat rate
-//!   from the cycle, its output the bid's `net_output`), so a guarantee that
-//!   defaults to the rating runs exactly the as-built figures. Output short
-//!   of the scenario's output reference is bought elsewhere like any other
-//!   shortfall (the reference stays the rated outputs).
+//!   operation is the fixed machine at the site scaled by the same ratios
+//!   (its year's energy by the output ratio, its fuel by both), so a
+//!   guarantee that defaults to the rating at 100 % runs exactly the site
+//!   year. Output short of the scenario's output reference is bought
+//!   elsewhere like any other shortfall (the reference stays the site
+//!   outputs of the machines as modelled).
 //! - Settlement: [`finance::settle`] by the contract (tolerance, rule,
 //!   rates, caps on the contract price, which defaults to the capital
 //!   cost), paid once at commercial operation as the ledger's settlement
@@ -18,7 +19,8 @@
 //!   guarantee, so no damages and no settlement row. `risk` settles each
 //!   sample's draw of the as-built keys.
 
-use super::operation::annual_operation;
+use super::evaluate::{ledger_inputs, OutputReference};
+use super::operation::AnnualOperation;
 use crate::finance::{
     self, FinanceError, Guarantee, HeatRateRate, LedgerInputs, MeasuredPerformance, Settlement,
     SettlementRates, TestTolerance, ToleranceRule,
@@ -60,21 +62,21 @@ pub fn guarantee_of(
 }
 
 /// A candidate's ledger inputs by its contract: without a guarantee,
-/// exactly [`super::evaluate::ledger_inputs`] of its rated year; with one,
-/// the as-built machine's year and the settlement row (returned too).
+/// exactly [`super::evaluate::ledger_inputs`] of its year at the site; with
+/// one, the as-built machine's year (the site year's energy scaled by
+/// `as_built_output`, its fuel by both ratios) and the settlement row
+/// (returned too). `rated_heat_rate_kj_per_kwh` is the heat rate at the
+/// rating condition, the guarantee's default.
 pub fn contract_inputs(
     scenario: &Scenario,
     candidate: &Candidate,
     fuel: &Fuel,
     rated_heat_rate_kj_per_kwh: f64,
+    (year, site_output_kw): (&AnnualOperation, f64),
+    reference: &OutputReference,
 ) -> Result<(LedgerInputs<Decimal>, Option<Settlement<Decimal>>), FinanceError> {
     let Some(g) = &candidate.guarantee else {
-        let year = annual_operation(
-            &scenario.operation,
-            candidate.net_output_kw,
-            rated_heat_rate_kj_per_kwh,
-        );
-        let inputs = super::evaluate::ledger_inputs(scenario, candidate, fuel, &year)?;
+        let inputs = ledger_inputs(scenario, candidate, fuel, (year, site_output_kw), reference)?;
         return Ok((inputs, None));
     };
     let guarantee = guarantee_of(candidate, g, rated_heat_rate_kj_per_kwh);
@@ -86,12 +88,18 @@ pub fn contract_inputs(
     let settlement = finance::settle(&guarantee, price, &measured)?;
     let mut built = candidate.clone();
     built.net_output_kw = candidate.net_output_kw * g.as_built_output;
-    let year = annual_operation(
-        &scenario.operation,
-        built.net_output_kw,
-        rated_heat_rate_kj_per_kwh * g.as_built_heat_rate,
-    );
-    let mut inputs = super::evaluate::ledger_inputs(scenario, &built, fuel, &year)?;
+    let built_year = AnnualOperation {
+        operating_hours: year.operating_hours,
+        energy_mwh: year.energy_mwh * g.as_built_output,
+        fuel_energy_gj_lhv: year.fuel_energy_gj_lhv * g.as_built_output * g.as_built_heat_rate,
+    };
+    let mut inputs = ledger_inputs(
+        scenario,
+        &built,
+        fuel,
+        (&built_year, site_output_kw * g.as_built_output),
+        reference,
+    )?;
     inputs.acceptance_settlement = settlement.to_ledger();
     Ok((inputs, Some(settlement)))
 }

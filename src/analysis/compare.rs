@@ -3,7 +3,9 @@
 
 use super::acceptance::contract_inputs;
 use super::engine::fuel_of;
-use super::evaluate::{ledger_inputs, solve, solve_at, Solved};
+use super::evaluate::{
+    ledger_inputs, output_reference_of, solve, solve_at, OutputReference, Solved,
+};
 use crate::finance::{
     self, bid_factors, build_ledger, compare_ledgers, summarize_ledger, BidFactors, CapacityValue,
     Comparison, Ledger, LedgerInputs,
@@ -65,10 +67,24 @@ fn finance_error(
     )
 }
 
-/// Lifecycle cost of `candidate` with the scenario as given (decimal).
-fn lifecycle_cost(scenario: &Scenario, candidate: &Candidate, fuel: &Fuel) -> Option<Decimal> {
+/// Lifecycle cost of `candidate` with the scenario as given (decimal),
+/// levelled to `reference` (the study's, so a changed figure moves only this
+/// candidate's own costs and shortfall).
+fn lifecycle_cost(
+    scenario: &Scenario,
+    candidate: &Candidate,
+    fuel: &Fuel,
+    reference: &OutputReference,
+) -> Option<Decimal> {
     let solved = solve(scenario, candidate, fuel).ok()?;
-    let inputs = ledger_inputs(scenario, candidate, fuel, &solved.year).ok()?;
+    let inputs = ledger_inputs(
+        scenario,
+        candidate,
+        fuel,
+        (&solved.year, solved.site.net_output_kw),
+        reference,
+    )
+    .ok()?;
     Some(summarize_ledger(&inputs).ok()?.lifecycle_cost)
 }
 
@@ -79,6 +95,7 @@ fn value_of_point(
     scenario: &Scenario,
     candidate: &Candidate,
     fuel: &Fuel,
+    reference: &OutputReference,
     set: impl Fn(&mut Candidate, f64),
     value: f64,
 ) -> Option<Decimal> {
@@ -87,7 +104,7 @@ fn value_of_point(
     let at = |x: f64| {
         let mut c = candidate.clone();
         set(&mut c, x);
-        lifecycle_cost(scenario, &c, fuel)
+        lifecycle_cost(scenario, &c, fuel, reference)
     };
     let (low_cost, high_cost) = (at(down)?, at(up)?);
     let points = Decimal::try_from((up - down) * 100.0).ok()?;
@@ -97,12 +114,18 @@ fn value_of_point(
     Some((low_cost - high_cost) / points)
 }
 
-fn values_per_point(scenario: &Scenario, c: &Candidate, fuel: &Fuel) -> [Option<Decimal>; 3] {
+fn values_per_point(
+    scenario: &Scenario,
+    c: &Candidate,
+    fuel: &Fuel,
+    reference: &OutputReference,
+) -> [Option<Decimal>; 3] {
     [
         value_of_point(
             scenario,
             c,
             fuel,
+            reference,
             |c, x| c.compressor_efficiency = x,
             c.compressor_efficiency,
         ),
@@ -110,6 +133,7 @@ fn values_per_point(scenario: &Scenario, c: &Candidate, fuel: &Fuel) -> [Option<
             scenario,
             c,
             fuel,
+            reference,
             |c, x| c.turbine_efficiency = x,
             c.turbine_efficiency,
         ),
@@ -118,6 +142,7 @@ fn values_per_point(scenario: &Scenario, c: &Candidate, fuel: &Fuel) -> [Option<
                 scenario,
                 c,
                 fuel,
+                reference,
                 |c, x| {
                     if let Some(r) = c.regenerator.as_mut() {
                         r.effectiveness = x;
@@ -150,22 +175,29 @@ pub fn run_study(loaded: &LoadedScenario) -> crate::Result<Study> {
         per_kw_year: scenario.economics.capacity_value_per_kw_year,
         escalation: 0.0,
     };
+    // Every candidate at the site first: the output reference is the most
+    // any of them makes there.
+    let solved_all = (0..scenario.candidates.len())
+        .map(|index| solve_at(loaded, index, &fuel))
+        .collect::<crate::Result<Vec<_>>>()?;
+    let reference = output_reference_of(scenario, solved_all.iter().map(|s| s.site.net_output_kw));
     let mut outcomes = Vec::with_capacity(scenario.candidates.len());
-    for (index, candidate) in scenario.candidates.iter().enumerate() {
-        let solved = solve_at(loaded, index, &fuel)?;
-        // By the contract: the rated year without a guarantee, else the
+    for (candidate, solved) in scenario.candidates.iter().zip(solved_all) {
+        // By the contract: the site year without a guarantee, else the
         // as-built machine and its settlement (see `analysis::acceptance`).
         let (inputs, _) = contract_inputs(
             scenario,
             candidate,
             &fuel,
-            solved.cycle.heat_rate_kj_per_kwh,
+            solved.site.rated_heat_rate_kj_per_kwh,
+            (&solved.year, solved.site.net_output_kw),
+            &reference,
         )
         .map_err(|e| finance_error(loaded, candidate, e))?;
         let ledger = build_ledger(&inputs).map_err(|e| finance_error(loaded, candidate, e))?;
         let bid =
             bid_factors(&inputs, &capacity).map_err(|e| finance_error(loaded, candidate, e))?;
-        let value_per_point = values_per_point(scenario, candidate, &fuel);
+        let value_per_point = values_per_point(scenario, candidate, &fuel, &reference);
         outcomes.push(CandidateOutcome {
             solved,
             inputs,

@@ -4,7 +4,8 @@
 //! one.
 
 use super::engine::{detail_of, engine_config_of, gas_model_of, solve_error};
-use super::operation::{annual_operation, AnnualOperation};
+use super::operation::{annual_operation, annual_operation_with_ratios, AnnualOperation};
+use super::site::{site_performance, SiteError, SitePerformance};
 use crate::cycle::{self, CycleResult};
 use crate::finance::{
     self, Capital, CapitalPayment, Carbon, Degradation, EscalatingPrice, FuelPrice, LedgerInputs,
@@ -16,42 +17,81 @@ use crate::scenario::{
 };
 use rust_decimal::Decimal;
 
-/// A candidate's solved cycle and its year of operation.
+/// A candidate's solved cycle, its performance at the site and its year of
+/// operation.
 #[derive(Debug, Clone)]
 pub struct Solved {
-    /// The solved cycle at site conditions (the site's humidity, the
-    /// candidate's turbine cooling), sized to the rated output.
+    /// The solved design cycle at site conditions (the site's humidity, the
+    /// candidate's turbine cooling), sized to the rated output: the cycle
+    /// shown in the report's state table.
     pub cycle: CycleResult,
-    /// One full year at new-and-clean performance.
+    /// What is priced: the fixed machine at the site (or the rated
+    /// figures, for a candidate the fixed-machine model refuses).
+    pub site: SitePerformance,
+    /// One full year at new-and-clean performance, from `site`.
     pub year: AnnualOperation,
 }
 
-/// Solve a candidate's cycle and its year of operation. The error is the
-/// solver's, for the caller to place.
+/// Why a candidate cannot be solved.
+#[derive(Debug, Clone, PartialEq, thiserror::Error)]
+pub enum SolveError {
+    /// The design cycle does not solve.
+    #[error("{0}")]
+    Cycle(crate::cycle::CycleError),
+    /// The fixed machine cannot run at the site or a dispatch load.
+    #[error("{0}")]
+    Site(SiteError),
+}
+
+/// The year of a candidate whose site performance is `site`.
+pub fn year_of(scenario: &Scenario, site: &SitePerformance) -> AnnualOperation {
+    annual_operation_with_ratios(
+        &scenario.operation,
+        site.net_output_kw,
+        site.heat_rate_kj_per_kwh,
+        &site.block_ratios,
+    )
+}
+
+/// Solve a candidate's cycle, its fixed machine at the site and its year of
+/// operation. The error is the solver's, for the caller to place.
 pub fn solve(
     scenario: &Scenario,
     candidate: &Candidate,
     fuel: &Fuel,
-) -> Result<Solved, cycle::CycleError> {
+) -> Result<Solved, SolveError> {
     let config = engine_config_of(candidate, &scenario.site);
     let detail = detail_of(candidate, &scenario.site);
-    let result =
-        cycle::solve_detailed(&config, &detail, &gas_model_of(&candidate.gas_model), fuel)?;
-    let year = annual_operation(
-        &scenario.operation,
-        candidate.net_output_kw,
-        result.heat_rate_kj_per_kwh,
-    );
+    let result = cycle::solve_detailed(&config, &detail, &gas_model_of(&candidate.gas_model), fuel)
+        .map_err(SolveError::Cycle)?;
+    let site = site_performance(scenario, candidate, fuel, &result).map_err(SolveError::Site)?;
+    let year = year_of(scenario, &site);
     Ok(Solved {
         cycle: result,
+        site,
         year,
     })
 }
 
-/// Like [`solve`], with a refusal placed at the candidate's key in the file.
+/// Like [`solve`], with a refusal placed at the candidate's key in the file
+/// (a dispatch load the machine cannot run at, at `operation.dispatch`).
 pub fn solve_at(loaded: &LoadedScenario, index: usize, fuel: &Fuel) -> crate::Result<Solved> {
     let scenario = &loaded.scenario;
-    solve(scenario, &scenario.candidates[index], fuel).map_err(|e| solve_error(loaded, index, &e))
+    solve(scenario, &scenario.candidates[index], fuel).map_err(|e| match e {
+        SolveError::Cycle(e) => solve_error(loaded, index, &e),
+        SolveError::Site(e) => site_error(loaded, index, &e),
+    })
+}
+
+/// Map a site refusal to an error at the right key.
+fn site_error(loaded: &LoadedScenario, index: usize, e: &SiteError) -> crate::Error {
+    if e.load.is_some() && e.error.is_input_error() {
+        return loaded.error_at("operation.dispatch", &e.to_string());
+    }
+    if e.error.field().is_some_and(|f| f.starts_with("ambient")) && e.error.is_input_error() {
+        return loaded.error_at("site", &e.to_string());
+    }
+    super::machine::calibration_error(loaded, index, &e.error)
 }
 
 /// The output every candidate of a scenario is levelled to: the most any
@@ -62,28 +102,42 @@ pub fn solve_at(loaded: &LoadedScenario, index: usize, fuel: &Fuel) -> crate::Re
 pub struct OutputReference {
     /// Largest net energy of a full year among the candidates, MWh.
     pub energy_mwh: f64,
-    /// Largest rated net output among the candidates, kW.
+    /// Largest base-load net output at the site among the candidates, kW.
     pub net_output_kw: f64,
 }
 
-/// The scenario's output reference. A year's energy depends only on the
-/// rated output and the scenario's operation (hours or dispatch profile),
-/// not on the heat rate ([`annual_operation`]), so no cycle is solved:
-/// the reference always follows the scenario as it stands, including any
-/// rating changed by a sweep or a sample.
-pub fn output_reference(scenario: &Scenario) -> OutputReference {
-    scenario.candidates.iter().fold(
+/// The output reference of candidates whose base-load outputs at the site
+/// are `outputs_kw`: a year's energy depends only on that output and the
+/// scenario's operation (hours or dispatch profile), not on the heat rate
+/// ([`annual_operation`]).
+pub fn output_reference_of(
+    scenario: &Scenario,
+    outputs_kw: impl IntoIterator<Item = f64>,
+) -> OutputReference {
+    outputs_kw.into_iter().fold(
         OutputReference {
             energy_mwh: 0.0,
             net_output_kw: 0.0,
         },
-        |most, c| OutputReference {
+        |most, kw| OutputReference {
             energy_mwh: most
                 .energy_mwh
-                .max(annual_operation(&scenario.operation, c.net_output_kw, 0.0).energy_mwh),
-            net_output_kw: most.net_output_kw.max(c.net_output_kw),
+                .max(annual_operation(&scenario.operation, kw, 0.0).energy_mwh),
+            net_output_kw: most.net_output_kw.max(kw),
         },
     )
+}
+
+/// The scenario's output reference from each candidate's fixed machine at
+/// the site: every candidate is solved. The error is the first candidate's
+/// that cannot be.
+pub fn output_reference(scenario: &Scenario, fuel: &Fuel) -> Result<OutputReference, SolveError> {
+    let outputs = scenario
+        .candidates
+        .iter()
+        .map(|c| solve(scenario, c, fuel).map(|s| s.site.net_output_kw))
+        .collect::<Result<Vec<_>, _>>()?;
+    Ok(output_reference_of(scenario, outputs))
 }
 
 /// A candidate's shortfall against `reference`, priced at the scenario's
@@ -92,7 +146,7 @@ pub fn output_reference(scenario: &Scenario) -> OutputReference {
 /// (one set apart from the scenario's list) has no shortfall.
 fn replacement(
     scenario: &Scenario,
-    candidate: &Candidate,
+    site_output_kw: f64,
     year: &AnnualOperation,
     reference: &OutputReference,
 ) -> Replacement<Decimal> {
@@ -103,7 +157,7 @@ fn replacement(
             price: e.energy_value_per_mwh,
             escalation: 0.0,
         },
-        capacity_kw: (reference.net_output_kw - candidate.net_output_kw).max(0.0),
+        capacity_kw: (reference.net_output_kw - site_output_kw).max(0.0),
         capacity_price: EscalatingPrice {
             price: e.capacity_value_per_kw_year,
             escalation: 0.0,
@@ -111,14 +165,17 @@ fn replacement(
     }
 }
 
-/// The ledger inputs of a candidate whose year of operation is `year`,
-/// levelled on output to the scenario's [`output_reference`] (an output
-/// replacement stream for its shortfall in energy and capacity).
+/// The ledger inputs of a candidate whose year of operation is `year` and
+/// base-load output at the site `site_output_kw`, levelled on output to
+/// `reference` (an output replacement stream for its shortfall in energy
+/// and capacity). Fixed O&M stays on the rated net output: it is quoted per
+/// kW of rating (common practice) and does not fall on a hot day.
 pub fn ledger_inputs(
     scenario: &Scenario,
     candidate: &Candidate,
     fuel: &Fuel,
-    year: &AnnualOperation,
+    (year, site_output_kw): (&AnnualOperation, f64),
+    reference: &OutputReference,
 ) -> Result<LedgerInputs<Decimal>, finance::FinanceError> {
     let e = &scenario.economics;
     let costs = &candidate.costs;
@@ -207,7 +264,7 @@ pub fn ledger_inputs(
             },
             escalation: 0.0,
         },
-        replacement: replacement(scenario, candidate, year, &output_reference(scenario)),
+        replacement: replacement(scenario, site_output_kw, year, reference),
         acceptance_settlement: finance::AcceptanceSettlement::default(),
     })
 }

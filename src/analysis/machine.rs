@@ -9,8 +9,9 @@
 
 use super::compare::Study;
 use super::engine::{engine_config_of, gas_model_of};
+use super::site::Basis;
 use crate::fuel::Fuel;
-use crate::offdesign::{Ambient, Control, Load, Machine, OffDesignError, Strategy};
+use crate::offdesign::{Ambient, Control, Machine, OffDesignError, Strategy};
 use crate::scenario::{
     Candidate, ControlSpec, ControlStrategy, GasModelSpec, LoadedScenario, Scenario, Site,
 };
@@ -62,56 +63,53 @@ pub fn site_ambient(candidate: &Candidate, site: &Site) -> Ambient {
 }
 
 /// Above this relative difference between what a candidate's fixed machine
-/// makes at the site and what the comparison prices (its rated output, the
-/// design-point heat rate at the site), `check` says so: 1 % is about the
-/// uncertainty of an output acceptance test (ASME PTC 22 puts output at
-/// roughly 1 %, from memory), so a smaller difference is within what a test
-/// could tell.
+/// makes at the site and its rating (rated output; the design-point heat
+/// rate at the site), `check` says so: 1 % is about the uncertainty of an
+/// output acceptance test (ASME PTC 22 puts output at roughly 1 %, from
+/// memory), so a smaller difference is within what a test could tell.
 const SITE_NOTE_FRACTION: f64 = 0.01;
 
-/// Notes for `check`: each candidate whose fixed machine at the site's
-/// ambient differs from what `compare` prices by more than 1 % in output or
-/// heat rate, or that cannot be built as a fixed machine. The comparison
-/// does not follow the machine yet; these notes say where that matters.
+/// Information for `check`: each candidate whose fixed machine at the
+/// site's ambient differs from its rating by more than 1 % in output or
+/// heat rate (the comparison prices the site figures), how part load is
+/// priced, and each candidate kept at its rating
+/// ([`super::site::pricing_notes`]).
 pub fn site_notes(scenario: &Scenario, study: &Study) -> Vec<String> {
     let mut notes = Vec::new();
     for (candidate, outcome) in scenario.candidates.iter().zip(&study.outcomes) {
-        let ambient = site_ambient(candidate, &scenario.site);
-        let point = machine_of(candidate, &scenario.site, &study.fuel)
-            .and_then(|m| m.solve(ambient, Load::BASE));
-        let p = match point {
-            Ok(p) => p,
-            Err(e) => {
-                notes.push(format!(
-                    "candidate[{}]: not solved as a fixed machine at the site ({e}); \
-                     `brayfin offdesign` refuses it",
-                    candidate.id
-                ));
-                continue;
-            }
+        let site = &outcome.solved.site;
+        let Basis::Machine(point) = &site.basis else {
+            continue;
         };
-        let priced_hr = outcome.solved.cycle.heat_rate_kj_per_kwh;
-        let output = p.net_output_kw / candidate.net_output_kw - 1.0;
-        let heat_rate = p.heat_rate_kj_per_kwh / priced_hr - 1.0;
+        let rated_hr = outcome.solved.cycle.heat_rate_kj_per_kwh;
+        let output = site.net_output_kw / candidate.net_output_kw - 1.0;
+        let heat_rate = site.heat_rate_kj_per_kwh / rated_hr - 1.0;
         if output.abs() > SITE_NOTE_FRACTION || heat_rate.abs() > SITE_NOTE_FRACTION {
             notes.push(format!(
                 "candidate[{}]: as a fixed machine at the site ({:.2} K, {:.3} kPa, {:.0} % \
                  relative humidity) it makes {:.0} kW ({:+.1} %) at {:.0} kJ/kWh ({:+.1} %) \
-                 against the {:.0} kW and {:.0} kJ/kWh the comparison prices; compare, report, \
-                 sweep and risk do not follow the machine yet (see `brayfin offdesign`)",
+                 against its rated {:.0} kW and the {:.0} kJ/kWh of its design point at the \
+                 site; compare, report, sweep and risk price the fixed machine's figures \
+                 (see `brayfin offdesign`)",
                 candidate.id,
-                ambient.temperature_k,
-                ambient.pressure_kpa,
-                ambient.relative_humidity * 100.0,
-                p.net_output_kw,
+                point.ambient_temperature_k,
+                point.ambient_pressure_kpa,
+                point.relative_humidity * 100.0,
+                site.net_output_kw,
                 output * 100.0,
-                p.heat_rate_kj_per_kwh,
+                site.heat_rate_kj_per_kwh,
                 heat_rate * 100.0,
                 candidate.net_output_kw,
-                priced_hr,
+                rated_hr,
             ));
         }
     }
+    let sites: Vec<_> = study
+        .outcomes
+        .iter()
+        .map(|o| o.solved.site.clone())
+        .collect();
+    notes.extend(super::site::pricing_notes(scenario, &sites));
     notes
 }
 

@@ -10,6 +10,7 @@ pub mod model;
 pub mod offdesign_grid;
 pub mod operation;
 pub mod sensitivity;
+pub mod site;
 pub mod warnings;
 
 pub use model::{build_model, ModelOptions};

@@ -3,7 +3,9 @@
 //! finance layer's midpoint rule).
 
 use super::compare::{run_study, CandidateOutcome, Study};
+use super::evaluate::Solved;
 use super::sensitivity::{rank, RangeSource, Swing};
+use super::site::Basis;
 use super::warnings::cycle_warnings;
 use crate::finance::{
     compare_summaries, round_for_presentation, summarize_ledger, BreakEvenFuelPrice, Payback,
@@ -193,12 +195,46 @@ fn fuel_price_curves(loaded: &LoadedScenario, study: &Study) -> FuelPriceCurves 
     }
 }
 
+/// What is priced for a candidate: its fixed machine at the site at base
+/// load (or its rated figures when the fixed-machine model refuses it).
+/// Heat rate in Btu/kWh and CO2 per MWh scale with the heat rate from the
+/// design cycle's own conversions (same fuel, same units).
+fn performance_view(solved: &Solved) -> PerformanceView {
+    let cycle = &solved.cycle;
+    let site = &solved.site;
+    let flows = cycle.flows.as_ref();
+    let scale = if cycle.heat_rate_kj_per_kwh > 0.0 {
+        site.heat_rate_kj_per_kwh / cycle.heat_rate_kj_per_kwh
+    } else {
+        1.0
+    };
+    let common = PerformanceView {
+        net_output_kw: site.net_output_kw,
+        heat_rate_kj_per_kwh: site.heat_rate_kj_per_kwh,
+        heat_rate_btu_per_kwh: cycle.heat_rate_btu_per_kwh * scale,
+        thermal_efficiency: cycle.thermal_efficiency,
+        exhaust_temperature_k: cycle.exhaust_temperature_k,
+        air_flow_kg_per_s: flows.map_or(0.0, |f| f.air_flow_kg_per_s),
+        fuel_flow_kg_per_s: flows.map_or(0.0, |f| f.fuel_flow_kg_per_s),
+        co2_kg_per_mwh: cycle.co2_kg_per_mwh.unwrap_or(0.0) * scale,
+    };
+    match &site.basis {
+        Basis::Machine(point) => PerformanceView {
+            thermal_efficiency: point.thermal_efficiency,
+            exhaust_temperature_k: point.stack_temperature_k,
+            air_flow_kg_per_s: point.air_flow_kg_per_s,
+            fuel_flow_kg_per_s: point.fuel_flow_kg_per_s,
+            ..common
+        },
+        Basis::Rated(_) => common,
+    }
+}
+
 fn candidate_view(loaded: &LoadedScenario, study: &Study, index: usize) -> CandidateView {
     let candidate = &loaded.scenario.candidates[index];
     let outcome = &study.outcomes[index];
     let baseline = &study.outcomes[study.baseline_index];
     let cycle = &outcome.solved.cycle;
-    let flows = cycle.flows.as_ref();
     let versus = outcome.versus_baseline.as_ref();
     let savings = versus.map(|v| &v.savings);
     let pv = &outcome.ledger.summary.present_value;
@@ -219,12 +255,13 @@ fn candidate_view(loaded: &LoadedScenario, study: &Study, index: usize) -> Candi
         },
     };
     let [compressor, turbine, regenerator] = outcome.value_per_point;
-    // Dispatch-weighted over full-load heat rate: the year's fuel energy
-    // (GJ · 1e6 kJ/GJ) over its energy (MWh · 1e3 kWh/MWh), divided by the
-    // full-load heat rate the part-load ratios multiply.
+    // Dispatch-weighted over base-load heat rate at the site: the year's
+    // fuel energy (GJ · 1e6 kJ/GJ) over its energy (MWh · 1e3 kWh/MWh),
+    // divided by the base-load heat rate the part-load ratios multiply.
     let operation = &outcome.inputs.operation;
-    let dispatch_ratio = if operation.energy_mwh > 0.0 && cycle.heat_rate_kj_per_kwh > 0.0 {
-        operation.fuel_energy_gj_lhv * 1000.0 / operation.energy_mwh / cycle.heat_rate_kj_per_kwh
+    let site_hr = outcome.solved.site.heat_rate_kj_per_kwh;
+    let dispatch_ratio = if operation.energy_mwh > 0.0 && site_hr > 0.0 {
+        operation.fuel_energy_gj_lhv * 1000.0 / operation.energy_mwh / site_hr
     } else {
         1.0
     };
@@ -233,16 +270,7 @@ fn candidate_view(loaded: &LoadedScenario, study: &Study, index: usize) -> Candi
         label: candidate.label.clone(),
         is_baseline: index == study.baseline_index,
         gas_model: cycle.gas_model.to_string(),
-        performance: PerformanceView {
-            net_output_kw: candidate.net_output_kw,
-            heat_rate_kj_per_kwh: cycle.heat_rate_kj_per_kwh,
-            heat_rate_btu_per_kwh: cycle.heat_rate_btu_per_kwh,
-            thermal_efficiency: cycle.thermal_efficiency,
-            exhaust_temperature_k: cycle.exhaust_temperature_k,
-            air_flow_kg_per_s: flows.map_or(0.0, |f| f.air_flow_kg_per_s),
-            fuel_flow_kg_per_s: flows.map_or(0.0, |f| f.fuel_flow_kg_per_s),
-            co2_kg_per_mwh: cycle.co2_kg_per_mwh.unwrap_or(0.0),
-        },
+        performance: performance_view(&outcome.solved),
         cycle: CycleView {
             states: cycle
                 .states

@@ -51,7 +51,7 @@ pub fn heat_rate_ratio(part_load: &[PartLoadPoint], load_fraction: f64) -> f64 {
 }
 
 /// A year of operation for a unit of `net_output_kw` at full-load heat rate
-/// `heat_rate_kj_per_kwh` (LHV).
+/// `heat_rate_kj_per_kwh` (LHV), part load from the scenario's table.
 ///
 /// energy = Σ load·P·h / 1000 (MWh); fuel = Σ load·P·h · HR · ratio(load)
 /// / 1e6 (GJ). With no dispatch profile every hour runs at full load.
@@ -59,6 +59,31 @@ pub fn annual_operation(
     operation: &Operation,
     net_output_kw: f64,
     heat_rate_kj_per_kwh: f64,
+) -> AnnualOperation {
+    year_with(operation, net_output_kw, heat_rate_kj_per_kwh, |_, load| {
+        heat_rate_ratio(&operation.part_load, load)
+    })
+}
+
+/// Like [`annual_operation`], with each dispatch block's heat-rate ratio
+/// given (`block_ratios[i]` for `operation.dispatch[i]`, as a fixed
+/// machine's part-load physics give it); a missing ratio counts as 1.
+pub fn annual_operation_with_ratios(
+    operation: &Operation,
+    net_output_kw: f64,
+    heat_rate_kj_per_kwh: f64,
+    block_ratios: &[f64],
+) -> AnnualOperation {
+    year_with(operation, net_output_kw, heat_rate_kj_per_kwh, |i, _| {
+        block_ratios.get(i).copied().unwrap_or(1.0)
+    })
+}
+
+fn year_with(
+    operation: &Operation,
+    net_output_kw: f64,
+    heat_rate_kj_per_kwh: f64,
+    ratio: impl Fn(usize, f64) -> f64,
 ) -> AnnualOperation {
     if operation.dispatch.is_empty() {
         let energy_kwh = net_output_kw * operation.hours_per_year;
@@ -71,13 +96,11 @@ pub fn annual_operation(
     let mut hours = 0.0;
     let mut energy_kwh = 0.0;
     let mut fuel_kj = 0.0;
-    for block in &operation.dispatch {
+    for (i, block) in operation.dispatch.iter().enumerate() {
         let block_kwh = block.load_fraction * net_output_kw * block.hours;
         hours += block.hours;
         energy_kwh += block_kwh;
-        fuel_kj += block_kwh
-            * heat_rate_kj_per_kwh
-            * heat_rate_ratio(&operation.part_load, block.load_fraction);
+        fuel_kj += block_kwh * heat_rate_kj_per_kwh * ratio(i, block.load_fraction);
     }
     AnnualOperation {
         operating_hours: hours,

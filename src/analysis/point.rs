@@ -6,9 +6,13 @@
 //! the sections the keys write to are copied back from the base scenario, so
 //! a point depends on its values alone (never on the points a worker did
 //! before), which keeps parallel results identical to serial ones. A
-//! candidate's cycle is solved again only when its solver inputs differ from
+//! candidate's cycle and fixed machine at the site are solved again only
+//! when their physics inputs (engine, cooling, gas model, fuel, site
+//! ambient, rating, control, dispatch loads, part-load table) differ from
 //! the last solve in this workspace: a sample that moves only economics
-//! reuses the heat rate, which is the same number a new solve would give.
+//! reuses the site output and heat rates, which are the same numbers a new
+//! solve would give; a sample that moves a component efficiency, the
+//! cooling, the site's ambient or humidity re-solves the machine in full.
 //! Likewise a candidate's ledger is summed again only when its ledger
 //! inputs differ from the last ones (a sweep of one bid's figure leaves the
 //! baseline's ledger as it was).
@@ -17,16 +21,18 @@ mod restore;
 
 use super::acceptance::contract_inputs;
 use super::engine::{detail_of, engine_config_of, fuel_of, gas_model_of};
+use super::evaluate::{output_reference_of, year_of};
+use super::site::{fixed_machine_site, rated_site, SitePerformance};
 use crate::cycle::{self, EngineConfig, GasModel};
 use crate::finance::{compare_summaries, summarize_ledger, LedgerInputs, LedgerSummary};
 use crate::fuel::Fuel;
-use crate::scenario::Scenario;
+use crate::scenario::{Candidate, ControlSpec, PartLoadPoint, RatingCondition, Scenario};
 use rust_decimal::prelude::ToPrimitive;
 
 /// What one candidate's figures are at one point.
 #[derive(Debug, Clone, Copy, PartialEq, Default)]
 pub struct Figures {
-    /// Full-load net heat rate, LHV, kJ/kWh.
+    /// Base-load net heat rate at the site, LHV, kJ/kWh.
     pub heat_rate_kj_per_kwh: f64,
     /// Lifecycle cost (present value), scenario currency, `f64` ledger.
     pub lifecycle_cost: f64,
@@ -124,13 +130,46 @@ pub struct PointModel<'s> {
     evaluated: Vec<bool>,
 }
 
+/// A candidate's site performance and the physics inputs it was solved
+/// from.
 #[derive(Debug, Clone)]
 struct CachedCycle {
     config: EngineConfig,
     detail: cycle::Detail,
     gas: GasModel,
     fuel_is_base: bool,
-    heat_rate_kj_per_kwh: f64,
+    rating: RatingCondition,
+    control: ControlSpec,
+    dispatch_loads: Vec<f64>,
+    part_load: Vec<PartLoadPoint>,
+    site: SitePerformance,
+}
+
+impl CachedCycle {
+    /// Whether this solve holds for `candidate` in `scenario` (engine
+    /// `config`, `detail`, `gas`, and the scenario's own fuel).
+    fn holds(
+        &self,
+        scenario: &Scenario,
+        candidate: &Candidate,
+        (config, detail, gas): (&EngineConfig, &cycle::Detail, &GasModel),
+        fuel_is_base: bool,
+    ) -> bool {
+        // Only solves with the scenario's own fuel are reused.
+        fuel_is_base
+            && self.fuel_is_base
+            && self.config == *config
+            && self.detail == *detail
+            && self.gas == *gas
+            && self.rating == candidate.rating
+            && self.control == candidate.control
+            && self.part_load == scenario.operation.part_load
+            && self.dispatch_loads.iter().copied().eq(scenario
+                .operation
+                .dispatch
+                .iter()
+                .map(|b| b.load_fraction))
+    }
 }
 
 /// One worker's scratch copy of the scenario and its cycle cache.
@@ -235,49 +274,81 @@ impl<'s> PointModel<'s> {
             own_fuel = fuel_of(&scenario.fuel).map_err(PointError::Fuel)?;
             &own_fuel
         };
+        // Every candidate's site output sets the output reference, so each
+        // is solved (or found in the cache), evaluated or not.
+        for (i, candidate) in scenario.candidates.iter().enumerate() {
+            let config = engine_config_of(candidate, &scenario.site);
+            let detail = detail_of(candidate, &scenario.site);
+            let gas = gas_model_of(&candidate.gas_model);
+            let hit = ws.cycles[i].as_ref().is_some_and(|c| {
+                c.holds(scenario, candidate, (&config, &detail, &gas), fuel_is_base)
+            });
+            if hit {
+                continue;
+            }
+            let cycle_error = |message: String| PointError::Cycle {
+                candidate: candidate.id.clone(),
+                message,
+            };
+            // The machine's calibration is its own design solve: the design
+            // cycle at the site is solved only for a candidate kept at its
+            // rating.
+            let site = match fixed_machine_site(scenario, candidate, fuel)
+                .map_err(|e| cycle_error(e.to_string()))?
+            {
+                Ok(site) => site,
+                Err(reason) => {
+                    let solved = cycle::solve_detailed(&config, &detail, &gas, fuel)
+                        .map_err(|e| cycle_error(e.to_string()))?;
+                    rated_site(scenario, candidate, solved.heat_rate_kj_per_kwh, reason)
+                }
+            };
+            ws.cycles[i] = Some(CachedCycle {
+                config,
+                detail,
+                gas,
+                fuel_is_base,
+                rating: candidate.rating,
+                control: candidate.control,
+                dispatch_loads: scenario
+                    .operation
+                    .dispatch
+                    .iter()
+                    .map(|b| b.load_fraction)
+                    .collect(),
+                part_load: scenario.operation.part_load.clone(),
+                site,
+            });
+        }
+        let reference = output_reference_of(
+            scenario,
+            ws.cycles
+                .iter()
+                .map(|c| c.as_ref().map_or(0.0, |c| c.site.net_output_kw)),
+        );
         for (i, candidate) in scenario.candidates.iter().enumerate() {
             if !self.evaluated[i] {
                 continue;
             }
-            let config = engine_config_of(candidate, &scenario.site);
-            let detail = detail_of(candidate, &scenario.site);
-            let gas = gas_model_of(&candidate.gas_model);
-            let heat_rate = match &ws.cycles[i] {
-                // Only solves with the scenario's own fuel are reused.
-                Some(c)
-                    if fuel_is_base
-                        && c.fuel_is_base
-                        && c.config == config
-                        && c.detail == detail
-                        && c.gas == gas =>
-                {
-                    c.heat_rate_kj_per_kwh
-                }
-                _ => {
-                    let solved =
-                        cycle::solve_detailed(&config, &detail, &gas, fuel).map_err(|e| {
-                            PointError::Cycle {
-                                candidate: candidate.id.clone(),
-                                message: e.to_string(),
-                            }
-                        })?;
-                    let heat_rate = solved.heat_rate_kj_per_kwh;
-                    ws.cycles[i] = Some(CachedCycle {
-                        config,
-                        detail,
-                        gas,
-                        fuel_is_base,
-                        heat_rate_kj_per_kwh: heat_rate,
-                    });
-                    heat_rate
-                }
+            let Some(cached) = ws.cycles[i].as_ref() else {
+                continue;
             };
+            let site = &cached.site;
+            let heat_rate = site.heat_rate_kj_per_kwh;
+            let year = year_of(scenario, site);
             let ledger_error = |e: crate::finance::FinanceError| PointError::Ledger {
                 candidate: candidate.id.clone(),
                 message: e.to_string(),
             };
-            let (inputs, settlement) =
-                contract_inputs(scenario, candidate, fuel, heat_rate).map_err(ledger_error)?;
+            let (inputs, settlement) = contract_inputs(
+                scenario,
+                candidate,
+                fuel,
+                site.rated_heat_rate_kj_per_kwh,
+                (&year, site.net_output_kw),
+                &reference,
+            )
+            .map_err(ledger_error)?;
             let inputs = inputs.to_f64();
             let summary = match &ws.ledgers[i] {
                 Some((last, summary)) if *last == inputs => *summary,

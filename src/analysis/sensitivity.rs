@@ -14,7 +14,7 @@
 
 use super::compare::Study;
 use super::engine::fuel_of;
-use super::evaluate::{ledger_inputs, solve};
+use super::evaluate::{ledger_inputs, output_reference_of, solve};
 use crate::finance::{compare_summaries, summarize_ledger};
 use crate::scenario::{Distribution, LoadedScenario, Scenario, UncertainInput};
 use rust_decimal::Decimal;
@@ -142,10 +142,22 @@ fn range_of(input: &UncertainInput, base: f64) -> (f64, f64, RangeSource) {
 /// any candidate cannot be solved or costed at these inputs.
 pub fn net_savings(scenario: &Scenario, baseline: &str) -> Option<Vec<(String, Decimal)>> {
     let fuel = fuel_of(&scenario.fuel).ok()?;
+    let solved_all = scenario
+        .candidates
+        .iter()
+        .map(|c| solve(scenario, c, &fuel).ok())
+        .collect::<Option<Vec<_>>>()?;
+    let reference = output_reference_of(scenario, solved_all.iter().map(|s| s.site.net_output_kw));
     let mut summaries = Vec::with_capacity(scenario.candidates.len());
-    for candidate in &scenario.candidates {
-        let solved = solve(scenario, candidate, &fuel).ok()?;
-        let inputs = ledger_inputs(scenario, candidate, &fuel, &solved.year).ok()?;
+    for (candidate, solved) in scenario.candidates.iter().zip(&solved_all) {
+        let inputs = ledger_inputs(
+            scenario,
+            candidate,
+            &fuel,
+            (&solved.year, solved.site.net_output_kw),
+            &reference,
+        )
+        .ok()?;
         summaries.push((candidate.id.clone(), summarize_ledger(&inputs).ok()?));
     }
     let base = summaries.iter().find(|(id, _)| id == baseline)?.1;

@@ -14,11 +14,8 @@ pub fn run(args: &CheckArgs) -> Result<()> {
     // Solving every candidate also validates what only physics and the
     // ledger can: an impossible cycle is an input error here too.
     let study = crate::analysis::compare::run_study(&loaded)?;
-    let mut extra = crate::analysis::warnings::cycle_warnings(&loaded, &study);
-    extra.extend(crate::analysis::machine::site_notes(
-        &loaded.scenario,
-        &study,
-    ));
-    let view = CheckView::new(&loaded, extra, units_of(args.units));
+    let extra = crate::analysis::warnings::cycle_warnings(&loaded, &study);
+    let information = crate::analysis::machine::site_notes(&loaded.scenario, &study);
+    let view = CheckView::new(&loaded, extra, units_of(args.units)).with_information(information);
     print(view.table().as_bytes())
 }

@@ -167,9 +167,10 @@ pub struct CandidateView {
 /// Headline performance at site conditions, new and clean, full load.
 #[derive(Debug, Clone, Serialize)]
 pub struct PerformanceView {
-    /// Rated net electrical output, kW.
+    /// Base-load net electrical output at the site (the fixed machine's;
+    /// the rated output for a candidate kept at its rating), kW.
     pub net_output_kw: f64,
-    /// Net heat rate, LHV basis, kJ/kWh.
+    /// Base-load net heat rate at the site, LHV basis, kJ/kWh.
     pub heat_rate_kj_per_kwh: f64,
     /// Net heat rate, LHV basis, Btu/kWh.
     pub heat_rate_btu_per_kwh: f64,
@@ -177,9 +178,9 @@ pub struct PerformanceView {
     pub thermal_efficiency: f64,
     /// Exhaust (stack) temperature, K.
     pub exhaust_temperature_k: f64,
-    /// Compressor inlet air flow for the rated output, kg/s.
+    /// Compressor inlet air flow at base load at the site, kg/s.
     pub air_flow_kg_per_s: f64,
-    /// Fuel flow for the rated output, kg/s.
+    /// Fuel flow at base load at the site, kg/s.
     pub fuel_flow_kg_per_s: f64,
     /// CO2 emitted per MWh of net output, kg/MWh.
     pub co2_kg_per_mwh: f64,

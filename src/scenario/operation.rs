@@ -27,7 +27,7 @@ pub(crate) const KEYS: &[Key<Scenario>] = &[
         set_hours_per_year,
     ),
     K::plain("operation.dispatch", Shape::Array, Presence::Optional { text: "every hour at full load" }, "`[{ load = \"100 %\", hours = 2000 }, { load = \"75 %\", hours = 1000 }]`; loads in (0, 100 %], hours ≥ 0, total ≤ 8784. With `hours_per_year` too, the total must equal it"),
-    K::plain("operation.part_load", Shape::Array, Presence::Optional { text: "none" }, "`[{ load = \"75 %\", heat_rate_ratio = 1.07 }, …]`: heat rate at that load ÷ full-load heat rate. Loads strictly ascending or descending; ratios ≥ 1 and not rising with load; exactly 1.0 at 100 % (added if absent). Required when any dispatch load is below 100 %, and must reach down to the lowest dispatch load (no extrapolation)"),
+    K::plain("operation.part_load", Shape::Array, Presence::Optional { text: "none" }, "`[{ load = \"75 %\", heat_rate_ratio = 1.07 }, …]`: heat rate at that load ÷ full-load heat rate. Loads strictly ascending or descending; ratios ≥ 1 and not rising with load; exactly 1.0 at 100 % (added if absent). Optional: without it each candidate's own fixed machine gives its part-load heat rate (see `brayfin offdesign`); with it, the table is a stated vendor curve applied to each candidate's base-load heat rate at the site, and must reach down to the lowest dispatch load (no extrapolation)"),
 ];
 
 /// Scale every dispatch block so the hours sum to `hours`.
@@ -98,13 +98,9 @@ pub(crate) fn read_operation(ctx: &mut Context, node: &Node) -> Read<Operation> 
         }
         let field = format!("operation.dispatch[{}].load", i + 1);
         match part_load.first() {
-            None => {
-                return Err(ctx.error_for(
-                    &field,
-                    format!("{} is below full load but [operation] has no part_load table", block.load_fraction),
-                    "expected part_load = [{ load = \"100 %\", heat_rate_ratio = 1.0 }, { load = \"50 %\", heat_rate_ratio = 1.25 }, …] covering every dispatch load",
-                ))
-            }
+            // No table: each candidate's fixed machine gives its own part
+            // load (its control's minimum load is checked when solved).
+            None => {}
             Some(lowest) if block.load_fraction < lowest.load_fraction => {
                 return Err(ctx.error_for(
                     &field,

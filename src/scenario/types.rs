@@ -203,9 +203,9 @@ pub struct Economics {
     /// Yearly carbon price escalation (fraction, > −1).
     pub carbon_escalation: f64,
     /// Value of one kW of net output for one year (currency per kW-yr):
-    /// the price at which a candidate's shortfall in rated output against
-    /// the largest candidate is bought elsewhere; 0 when capacity
-    /// differences are not valued.
+    /// the price at which a candidate's shortfall in base-load output at
+    /// the site against the largest candidate is bought elsewhere; 0 when
+    /// capacity differences are not valued.
     pub capacity_value_per_kw_year: Decimal,
     /// Value of one MWh of net energy (currency per MWh): the price at which
     /// a candidate's shortfall in annual energy against the candidate that

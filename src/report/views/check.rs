@@ -16,6 +16,7 @@ use std::fmt::Write;
 pub struct CheckView<'a> {
     loaded: &'a LoadedScenario,
     extra_warnings: Vec<String>,
+    extra_information: Vec<String>,
     units: Units,
 }
 
@@ -26,24 +27,43 @@ impl<'a> CheckView<'a> {
         CheckView {
             loaded,
             extra_warnings,
+            extra_information: Vec::new(),
             units,
         }
     }
 
+    /// The same view with information lines found beyond the scenario
+    /// alone (e.g. how each candidate's site performance is priced).
+    pub fn with_information(mut self, information: Vec<String>) -> Self {
+        self.extra_information = information;
+        self
+    }
+
     /// The text `check` prints.
     pub fn table(&self) -> String {
-        report(self.loaded, self.extra_warnings.clone(), self.units)
+        report(
+            self.loaded,
+            self.extra_warnings.clone(),
+            &self.extra_information,
+            self.units,
+        )
     }
 }
 
 /// The text `check` prints: the summary, then the warnings from the
 /// scenario alone followed by `extra_warnings` (e.g. from solving the
 /// cycle), then a one-line verdict.
-fn report(loaded: &LoadedScenario, extra_warnings: Vec<String>, units: Units) -> String {
+fn report(
+    loaded: &LoadedScenario,
+    extra_warnings: Vec<String>,
+    extra_information: &[String],
+    units: Units,
+) -> String {
     let mut warnings = scenario::engineering_warnings(&loaded.scenario);
     warnings.extend(extra_warnings);
     let mut out = summary(loaded, units);
-    let notes = scenario::information_notes(&loaded.scenario);
+    let mut notes = scenario::information_notes(&loaded.scenario);
+    notes.extend(extra_information.iter().cloned());
     if !notes.is_empty() {
         out.push_str("\nInformation:\n");
         for n in &notes {

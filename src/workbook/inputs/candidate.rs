@@ -153,19 +153,27 @@ pub(super) fn write(
         &source_of(loaded, &key("net_output")),
         Origin::Input,
     )?;
-    let cycle = &outcome.solved.cycle;
+    let site = &outcome.solved.site;
     w.named(
-        "Heat rate at site rating (LHV)",
+        "Base-load net output at the site",
+        &n.name("SiteOutputKw"),
+        Shown::Number(site.net_output_kw),
+        "kW",
+        &format!("{COMPUTED_NOTE}; the fixed machine at the site's ambient"),
+        Origin::Computed,
+    )?;
+    w.named(
+        "Base-load heat rate at the site (LHV)",
         &n.name("HeatRate"),
-        Shown::Number(cycle.heat_rate_kj_per_kwh),
+        Shown::Number(site.heat_rate_kj_per_kwh),
         "kJ/kWh",
         COMPUTED_NOTE,
         Origin::Computed,
     )?;
     w.named(
-        "Thermal efficiency at site rating (LHV)",
+        "Base-load thermal efficiency at the site (LHV)",
         &n.name("Efficiency"),
-        Shown::Percent(cycle.thermal_efficiency),
+        Shown::Percent(3600.0 / site.heat_rate_kj_per_kwh),
         "",
         COMPUTED_NOTE,
         Origin::Computed,
@@ -195,14 +203,9 @@ pub(super) fn write(
         &format!("{COMPUTED_NOTE}; dispatch × part-load heat rate"),
         Origin::Computed,
     )?;
-    bins(
-        w,
-        scenario,
-        inputs.operation.net_output_kw,
-        cycle.heat_rate_kj_per_kwh,
-    )?;
+    bins(w, scenario, site)?;
     let energies = names.all("AnnualEnergy");
-    let outputs = names.all("NetOutputKw");
+    let outputs = names.all("SiteOutputKw");
     w.formula(
         "Energy shortfall bought elsewhere",
         &n.name("EnergyShortfall"),
@@ -214,31 +217,36 @@ pub(super) fn write(
     w.formula(
         "Capacity shortfall bought elsewhere",
         &n.name("CapacityShortfall"),
-        &format!("=MAX(0,MAX({outputs})-{})", n.name("NetOutputKw")),
+        &format!("=MAX(0,MAX({outputs})-{})", n.name("SiteOutputKw")),
         inputs.replacement.capacity_kw,
         "kW",
-        "levelling: the largest rated output, less this candidate's",
+        "levelling: the largest base-load output at the site, less this candidate's",
     )?;
     Ok(())
 }
 
 /// The candidate's operating points of the year (dispatch blocks, or all
-/// hours at full load): output and heat rate from brayfin's cycle model and
-/// the scenario's part-load table, as computed constants.
+/// hours at full load): output and heat rate of its fixed machine at the
+/// site (part load from the machine or the scenario's part-load table), as
+/// computed constants.
 fn bins(
     w: &mut Writer,
     scenario: &crate::scenario::Scenario,
-    net_output_kw: f64,
-    heat_rate: f64,
+    site: &crate::analysis::site::SitePerformance,
 ) -> Result<()> {
     let operation = &scenario.operation;
-    let points: Vec<(f64, f64)> = if operation.dispatch.is_empty() {
-        vec![(1.0, operation.hours_per_year)]
+    let (net_output_kw, heat_rate) = (site.net_output_kw, site.heat_rate_kj_per_kwh);
+    let points: Vec<(f64, f64, f64)> = if operation.dispatch.is_empty() {
+        vec![(1.0, operation.hours_per_year, 1.0)]
     } else {
         operation
             .dispatch
             .iter()
-            .map(|b| (b.load_fraction, b.hours))
+            .enumerate()
+            .map(|(i, b)| {
+                let ratio = site.block_ratios.get(i).copied().unwrap_or(1.0);
+                (b.load_fraction, b.hours, ratio)
+            })
             .collect()
     };
     let s = w.styles;
@@ -257,8 +265,7 @@ fn bins(
             .map_err(xlsx_error)?;
     }
     w.row += 1;
-    for (load, hours) in points {
-        let ratio = crate::analysis::operation::heat_rate_ratio(&operation.part_load, load);
+    for (load, hours, ratio) in points {
         w.sheet
             .write_number_with_format(w.row, 1, load, &s.percent.computed)
             .and_then(|x| {

@@ -19,6 +19,10 @@ pub fn run(args: &CheckArgs) -> Result<()> {
         &loaded.scenario,
         &study,
     ));
-    let view = CheckView::new(&loaded, extra, units_of(args.units));
+    let implied = crate::analysis::implied::implied_bids(&loaded, &study.fuel)?;
+    for bid in &implied {
+        extra.extend(crate::analysis::implied::verdict_warning(bid));
+    }
+    let view = CheckView::new(&loaded, extra, units_of(args.units)).with_implied(&implied);
     print(view.table().as_bytes())
 }

@@ -216,6 +216,7 @@ pub(crate) fn value_of_kind(kind: Kind, text: &str) -> Result<f64, UnitError> {
         Kind::Length => units::length_m(text),
         Kind::Duration => units::duration_h(text),
         Kind::EmissionFactor => units::emission_factor_kg_per_gj(text),
+        Kind::MassFlow => units::mass_flow_kg_per_s(text),
         Kind::Money => units::money(text).map(money),
         Kind::FuelPrice => units::price_per_gj(text).map(money),
         Kind::PricePerTonne => units::price_per_tonne(text).map(money),
@@ -309,6 +310,7 @@ fn kind_text(kind: Kind) -> &'static str {
         Kind::PricePerCapacity => "price per kW-year",
         Kind::Duration => "duration",
         Kind::EmissionFactor => "emission factor",
+        Kind::MassFlow => "mass flow",
     }
 }
 

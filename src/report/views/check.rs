@@ -3,6 +3,7 @@
 //! the scenario currency per internal unit: per GJ or per MMBtu of fuel, per
 //! t of CO2, per kW-yr of capacity).
 
+use crate::analysis::implied::ImpliedBid;
 use crate::report::format::{self, Quantity as Q};
 use crate::report::model::Units;
 use crate::scenario::{
@@ -14,6 +15,7 @@ use std::fmt::Write;
 pub struct CheckView<'a> {
     loaded: &'a LoadedScenario,
     extra_warnings: Vec<String>,
+    implied: &'a [ImpliedBid],
     units: Units,
 }
 
@@ -24,23 +26,43 @@ impl<'a> CheckView<'a> {
         CheckView {
             loaded,
             extra_warnings,
+            implied: &[],
             units,
         }
     }
 
+    /// The same view with what each bid's datasheet implies
+    /// ([`crate::analysis::implied::implied_bids`]), printed after the
+    /// summary.
+    pub fn with_implied(mut self, implied: &'a [ImpliedBid]) -> Self {
+        self.implied = implied;
+        self
+    }
+
     /// The text `check` prints.
     pub fn table(&self) -> String {
-        report(self.loaded, self.extra_warnings.clone(), self.units)
+        report(
+            self.loaded,
+            self.extra_warnings.clone(),
+            self.implied,
+            self.units,
+        )
     }
 }
 
 /// The text `check` prints: the summary, then the warnings from the
 /// scenario alone followed by `extra_warnings` (e.g. from solving the
 /// cycle), then a one-line verdict.
-fn report(loaded: &LoadedScenario, extra_warnings: Vec<String>, units: Units) -> String {
+fn report(
+    loaded: &LoadedScenario,
+    extra_warnings: Vec<String>,
+    implied: &[ImpliedBid],
+    units: Units,
+) -> String {
     let mut warnings = scenario::engineering_warnings(&loaded.scenario);
     warnings.extend(extra_warnings);
     let mut out = summary(loaded, units);
+    out.push_str(&super::implied::implied_text(implied, units));
     let notes = scenario::information_notes(&loaded.scenario);
     if !notes.is_empty() {
         out.push_str("\nInformation:\n");

@@ -61,7 +61,7 @@ pub fn datasheet_of(candidate: &Candidate, fuel: &Fuel) -> Option<Datasheet> {
 }
 
 /// The component values a candidate states, on the polytropic basis, at its
-/// rating condition.
+/// rating condition; its turbine cooling only when the file states it.
 pub fn stated_components(
     loaded: &LoadedScenario,
     candidate: &Candidate,
@@ -71,13 +71,20 @@ pub fn stated_components(
     let mut config = engine_config_of(candidate, &loaded.scenario.site);
     config.ambient_temperature_k = rating.temperature_k;
     config.ambient_pressure_kpa = rating.pressure_kpa;
-    ComponentData::from_engine(
+    let mut data = ComponentData::from_engine(
         &config,
         candidate.turbine_cooling,
         rating.relative_humidity,
         gas_model_of(&candidate.gas_model),
         fuel,
-    )
+    )?;
+    // A cooling the file does not state (the default, none) is not the
+    // vendor's claim: it is left out of the comparison with the fit.
+    let cooling_key = format!("candidate[{}].turbine_cooling", candidate.id);
+    if loaded.applied_defaults.iter().any(|d| d.key == cooling_key) {
+        data.turbine_cooling = None;
+    }
+    Ok(data)
 }
 
 /// Assess every candidate that states a datasheet, in scenario order,

@@ -283,3 +283,66 @@ fn stated_components_that_disagree_are_reported_with_both_values() {
         "{reasons}"
     );
 }
+
+/// The Corvel Bay demo's Bid B states a heat rate about 1.8 % better than
+/// its own cycle gives: the briefing says so, and the appendix table
+/// "What each bid implies" prints each bid's verdict and loss remainder as
+/// the model holds them.
+#[test]
+fn the_report_shows_what_each_bid_implies_and_the_briefing_flags_bid_b() {
+    use brayfin::analysis::model::{build_model, ModelOptions};
+    use brayfin::report::charts::geometry::Mark;
+    use brayfin::report::model::Units;
+    use brayfin::report::pdf::{Paper, PdfRenderer};
+    use brayfin::report::wording::Wording;
+
+    let loaded = scenario::load(std::path::Path::new("scenarios/corvel-bay-peaker.toml"))
+        .expect("demo loads");
+    let model = build_model(
+        &loaded,
+        &ModelOptions {
+            units: Units::Si,
+            sensitivity: false,
+        },
+    )
+    .expect("demo evaluates");
+    let renderer = PdfRenderer {
+        paper: Paper::A4,
+        wording: Wording::builtin().expect("templates load"),
+    };
+    let pages = renderer.layout(&model).expect("layout");
+    let texts: Vec<String> = pages
+        .iter()
+        .flat_map(|p| p.marks.iter())
+        .filter_map(|m| match m {
+            Mark::Label { text, .. } => Some(text.clone()),
+            _ => None,
+        })
+        .collect();
+    let all = texts.join("\n");
+    assert!(all.contains("What each bid implies"));
+    for c in &model.candidates {
+        let implied = c
+            .performance
+            .implied
+            .as_ref()
+            .expect("every demo bid states a datasheet");
+        let remainder = format!("{:.2} %", implied.loss_remainder_fraction * 100.0);
+        assert!(
+            all.contains(&remainder),
+            "{} remainder {remainder} not printed",
+            c.id
+        );
+    }
+    let premium = model
+        .candidates
+        .iter()
+        .find(|c| c.id == "premium")
+        .and_then(|c| c.performance.implied.as_ref())
+        .expect("Bid B");
+    assert_eq!(premium.verdict, "optimistic");
+    assert!(
+        all.contains("the vendor's figures at the rating are optimistic"),
+        "the briefing does not flag Bid B"
+    );
+}

@@ -518,8 +518,8 @@ turbine_efficiency = "89 %"
             matched += 1;
         }
         // Every declared default of a key outside optional parts
-        // (regenerator, intercooler, reheat, guarantee, cold-air constants)
-        // applies.
+        // (regenerator, intercooler, reheat, guarantee, cold-air constants,
+        // the basis of a datasheet's heat rate) applies.
         let expected = scenario_keys()
             .map(|k| (k.path, k.presence))
             .chain(candidate_keys().map(|k| (k.path, k.presence)))
@@ -528,7 +528,12 @@ turbine_efficiency = "89 %"
                     && !["regenerator.", "intercooler.", "reheat.", "guarantee."]
                         .iter()
                         .any(|p| path.starts_with(p))
-                    && !["cp_kj_per_kg_k", "specific_heat_ratio"].contains(path)
+                    && ![
+                        "cp_kj_per_kg_k",
+                        "specific_heat_ratio",
+                        "rating.heat_rate_basis",
+                    ]
+                    .contains(path)
             })
             .count();
         assert_eq!(matched, expected);

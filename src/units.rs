@@ -74,6 +74,8 @@ pub enum Kind {
     Duration,
     /// CO2 mass per unit of fuel energy (internal unit kg/GJ).
     EmissionFactor,
+    /// Mass flow, e.g. a turbine's exhaust flow (internal unit kg/s).
+    MassFlow,
 }
 
 impl Kind {
@@ -95,6 +97,7 @@ impl Kind {
             Kind::PricePerCapacity => "a price per kW-year",
             Kind::Duration => "a duration",
             Kind::EmissionFactor => "an emission factor",
+            Kind::MassFlow => "a mass flow",
         }
     }
 
@@ -116,6 +119,7 @@ impl Kind {
             Kind::PricePerCapacity => "CUR/kW-yr, CUR/MW-yr, e.g. 12 USD/kW-yr",
             Kind::Duration => "h; bare number = h",
             Kind::EmissionFactor => "kg/GJ, kg/TJ, kg/MMBtu, lb/MMBtu; bare number = kg/GJ",
+            Kind::MassFlow => "kg/s, t/h, lb/s; bare number = kg/s",
         }
     }
 }
@@ -245,6 +249,10 @@ const UNITS: &[Unit] = &[
     ),
     unit("m", Kind::Length, 1.0, 0.0),
     unit("ft", Kind::Length, M_PER_FT, 0.0),
+    unit("kg/s", Kind::MassFlow, 1.0, 0.0),
+    // 1 t/h = 1000 kg / 3600 s (SI definitions).
+    unit("t/h", Kind::MassFlow, 1000.0 / 3600.0, 0.0),
+    unit("lb/s", Kind::MassFlow, KG_PER_LB, 0.0),
 ];
 
 /// The kind of quantity `text` states by its unit, or `None` when it has no
@@ -373,6 +381,12 @@ pub fn duration_h(text: &str) -> Result<f64, UnitError> {
 /// kg/MMBtu or lb/MMBtu (bare number: kg/GJ).
 pub fn emission_factor_kg_per_gj(text: &str) -> Result<f64, UnitError> {
     convert(text, Kind::EmissionFactor)
+}
+
+/// Mass flow in kg/s from kg/s, t/h or lb/s (bare number: kg/s), e.g. a
+/// turbine's exhaust flow.
+pub fn mass_flow_kg_per_s(text: &str) -> Result<f64, UnitError> {
+    convert(text, Kind::MassFlow)
 }
 
 /// Length in m from m or ft (bare number: m), e.g. a site elevation.

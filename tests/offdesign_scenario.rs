@@ -16,11 +16,17 @@ fn parse(text: &str) -> LoadedScenario {
 }
 
 /// Add `lines` to the first candidate (`standard`) of the demo, just
-/// before its costs table.
+/// before its rating table (which states its vendor figures).
 fn with_standard(lines: &str) -> String {
+    with_standard_rating(lines, "")
+}
+
+/// Add `before` to the first candidate (`standard`) of the demo just before
+/// its rating table, and `keys` at the top of that table.
+fn with_standard_rating(before: &str, keys: &str) -> String {
     demo_text().replacen(
-        "[candidate.costs]",
-        &format!("{lines}\n[candidate.costs]"),
+        "[candidate.rating]\n",
+        &format!("{before}\n[candidate.rating]\n{keys}"),
         1,
     )
 }
@@ -32,8 +38,9 @@ fn with_standard(lines: &str) -> String {
 fn each_demo_machine_makes_its_rated_output_at_its_rating() {
     for text in [
         demo_text(),
-        with_standard(
-            "turbine_cooling = \"12 %\"\n[candidate.rating]\ntemperature = \"30 degC\"\npressure = \"95 kPa\"\nrelative_humidity = \"20 %\"\n",
+        with_standard_rating(
+            "turbine_cooling = \"12 %\"",
+            "temperature = \"30 degC\"\npressure = \"95 kPa\"\nrelative_humidity = \"20 %\"\n",
         ),
     ] {
         let loaded = parse(&text);
@@ -41,9 +48,17 @@ fn each_demo_machine_makes_its_rated_output_at_its_rating() {
         let fuel = fuel_of(&s.fuel).expect("fuel");
         for (i, c) in s.candidates.iter().enumerate() {
             let machine = calibrate_candidate(&loaded, i, &fuel).expect("machine");
-            let p = machine.solve(rating_of(c), Load::BASE).expect("rating point");
+            let p = machine
+                .solve(rating_of(c), Load::BASE)
+                .expect("rating point");
             let rel = (p.net_output_kw - c.net_output_kw).abs() / c.net_output_kw;
-            assert!(rel <= 1e-9, "{}: {} kW vs rated {} kW", c.id, p.net_output_kw, c.net_output_kw);
+            assert!(
+                rel <= 1e-9,
+                "{}: {} kW vs rated {} kW",
+                c.id,
+                p.net_output_kw,
+                c.net_output_kw
+            );
         }
     }
 }
@@ -53,9 +68,7 @@ fn each_demo_machine_makes_its_rated_output_at_its_rating() {
 /// Turbine Performance*, ambient effects; common practice).
 #[test]
 fn a_hot_rated_machine_makes_more_on_a_cooler_day() {
-    let loaded = parse(&with_standard(
-        "[candidate.rating]\ntemperature = \"30 degC\"\n",
-    ));
+    let loaded = parse(&with_standard_rating("", "temperature = \"30 degC\"\n"));
     let s = &loaded.scenario;
     let fuel = fuel_of(&s.fuel).expect("fuel");
     let c = &s.candidates[0];

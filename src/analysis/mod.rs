@@ -5,6 +5,7 @@ pub mod acceptance;
 pub mod compare;
 pub mod engine;
 pub mod evaluate;
+pub mod implied;
 pub mod machine;
 pub mod model;
 pub mod offdesign_grid;

@@ -4,6 +4,7 @@
 
 use super::compare::{run_study, CandidateOutcome, Study};
 use super::evaluate::Solved;
+use super::implied::{implied_bids, verdict_warning, ImpliedBid};
 use super::sensitivity::{rank, RangeSource, Swing};
 use super::site::Basis;
 use super::warnings::cycle_warnings;
@@ -217,6 +218,7 @@ fn performance_view(solved: &Solved) -> PerformanceView {
         air_flow_kg_per_s: flows.map_or(0.0, |f| f.air_flow_kg_per_s),
         fuel_flow_kg_per_s: flows.map_or(0.0, |f| f.fuel_flow_kg_per_s),
         co2_kg_per_mwh: cycle.co2_kg_per_mwh.unwrap_or(0.0) * scale,
+        implied: None,
     };
     match &site.basis {
         Basis::Machine(point) => PerformanceView {
@@ -230,7 +232,41 @@ fn performance_view(solved: &Solved) -> PerformanceView {
     }
 }
 
-fn candidate_view(loaded: &LoadedScenario, study: &Study, index: usize) -> CandidateView {
+/// The model's view of what a bid's datasheet implies: the implied values,
+/// the verdict, its reasons followed by each disagreement with a stated
+/// component value (both values), and the fit's assumptions.
+fn implied_view(bid: &ImpliedBid) -> ImpliedView {
+    let i = &bid.assessment.implied;
+    let mut reasons = i.reasons.clone();
+    reasons.extend(
+        bid.assessment
+            .disagreements
+            .iter()
+            .map(|d| format!("disagrees with the stated components: {}", d.describe())),
+    );
+    ImpliedView {
+        compressor_polytropic_efficiency: i.compressor_polytropic_efficiency,
+        turbine_polytropic_efficiency: i.turbine_polytropic_efficiency,
+        firing_temperature_k: i.firing_temperature_k,
+        turbine_cooling: i.turbine_cooling,
+        air_flow_kg_per_s: i.air_flow_kg_per_s,
+        loss_remainder_fraction: i.loss_remainder_fraction,
+        verdict: crate::report::views::implied::verdict_word(i.verdict).to_string(),
+        reasons,
+        assumptions: bid
+            .assessment
+            .calibration
+            .as_ref()
+            .map_or_else(Vec::new, |c| c.assumptions.clone()),
+    }
+}
+
+fn candidate_view(
+    loaded: &LoadedScenario,
+    study: &Study,
+    implied: &[ImpliedBid],
+    index: usize,
+) -> CandidateView {
     let candidate = &loaded.scenario.candidates[index];
     let outcome = &study.outcomes[index];
     let baseline = &study.outcomes[study.baseline_index];
@@ -270,7 +306,10 @@ fn candidate_view(loaded: &LoadedScenario, study: &Study, index: usize) -> Candi
         label: candidate.label.clone(),
         is_baseline: index == study.baseline_index,
         gas_model: cycle.gas_model.to_string(),
-        performance: performance_view(&outcome.solved),
+        performance: PerformanceView {
+            implied: implied.iter().find(|b| b.index == index).map(implied_view),
+            ..performance_view(&outcome.solved)
+        },
         cycle: CycleView {
             states: cycle
                 .states
@@ -513,8 +552,9 @@ fn key_assumptions(
 pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Result<Model> {
     let scenario = &loaded.scenario;
     let study = run_study(loaded)?;
+    let implied = implied_bids(loaded, &study.fuel)?;
     let candidates: Vec<CandidateView> = (0..scenario.candidates.len())
-        .map(|i| candidate_view(loaded, &study, i))
+        .map(|i| candidate_view(loaded, &study, &implied, i))
         .collect();
     let preferred = candidates
         .iter()
@@ -537,6 +577,7 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
     let key_assumptions = key_assumptions(&swings, &decision, loaded);
     let mut warnings = engineering_warnings(scenario);
     warnings.extend(cycle_warnings(loaded, &study));
+    warnings.extend(implied.iter().filter_map(verdict_warning));
     let e = &scenario.economics;
     let mut gas_models: Vec<String> = candidates.iter().map(|c| c.gas_model.clone()).collect();
     gas_models.dedup();

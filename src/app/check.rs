@@ -16,6 +16,13 @@ pub fn run(args: &CheckArgs) -> Result<()> {
     let study = crate::analysis::compare::run_study(&loaded)?;
     let extra = crate::analysis::warnings::cycle_warnings(&loaded, &study);
     let information = crate::analysis::machine::site_notes(&loaded.scenario, &study);
-    let view = CheckView::new(&loaded, extra, units_of(args.units)).with_information(information);
+    let implied = crate::analysis::implied::implied_bids(&loaded, &study.fuel)?;
+    let mut extra = extra;
+    for bid in &implied {
+        extra.extend(crate::analysis::implied::verdict_warning(bid));
+    }
+    let view = CheckView::new(&loaded, extra, units_of(args.units))
+        .with_information(information)
+        .with_implied(&implied);
     print(view.table().as_bytes())
 }

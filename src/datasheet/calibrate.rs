@@ -135,13 +135,13 @@ impl CalibrationOptions {
     fn describe(&self, sheet: &Datasheet, fit: Fit) -> Vec<String> {
         let mut out = vec![
             format!(
-                "inlet pressure loss {:.1} %, exhaust pressure loss {:.1} %, combustor pressure loss {:.1} % (defaults, common practice)",
+                "inlet pressure loss {:.1} %, exhaust pressure loss {:.1} %, combustor pressure loss {:.1} % (the candidate's where it states components, else defaults: common practice)",
                 self.inlet_pressure_loss * 100.0,
                 self.exhaust_pressure_loss * 100.0,
                 self.combustor_pressure_loss * 100.0
             ),
             format!(
-                "combustion efficiency {:.3} (default, common practice)",
+                "combustion efficiency {:.3} (the candidate's where it states components, else default: common practice)",
                 self.combustion_efficiency
             ),
             format!(

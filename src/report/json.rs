@@ -1,7 +1,7 @@
 //! JSON renderer: one object, money as decimal strings, other figures as
 //! numbers, always in SI units (the key names carry the unit).
 
-use super::model::{CandidateView, Model, PaybackView};
+use super::model::{CandidateView, Model, PaybackView, PerformanceView};
 use super::Renderer;
 use serde_json::{json, Value};
 
@@ -51,15 +51,10 @@ fn payback_years(payback: PaybackView) -> Value {
     }
 }
 
-fn candidate(c: &CandidateView) -> Value {
-    let p = &c.performance;
-    let e = &c.economics;
-    json!({
-        "id": c.id,
-        "label": c.label,
-        "is_baseline": c.is_baseline,
-        "gas_model": c.gas_model,
-        "performance": {
+/// A candidate's `performance`; `implied` only for a bid that states a
+/// datasheet, so the JSON of a scenario without one is unchanged.
+fn performance(p: &PerformanceView) -> Value {
+    let mut value = json!({
             "net_output_kw": p.net_output_kw,
             "heat_rate_kj_per_kwh": p.heat_rate_kj_per_kwh,
             "heat_rate_btu_per_kwh": p.heat_rate_btu_per_kwh,
@@ -69,7 +64,35 @@ fn candidate(c: &CandidateView) -> Value {
             "air_flow_kg_per_s": p.air_flow_kg_per_s,
             "fuel_flow_kg_per_s": p.fuel_flow_kg_per_s,
             "co2_kg_per_mwh": p.co2_kg_per_mwh,
-        },
+    });
+    if let (Some(implied), Value::Object(map)) = (&p.implied, &mut value) {
+        map.insert(
+            "implied".into(),
+            json!({
+                "compressor_polytropic_efficiency": implied.compressor_polytropic_efficiency,
+                "turbine_polytropic_efficiency": implied.turbine_polytropic_efficiency,
+                "firing_temperature_k": implied.firing_temperature_k,
+                "turbine_cooling": implied.turbine_cooling,
+                "air_flow_kg_per_s": implied.air_flow_kg_per_s,
+                "loss_remainder_fraction": implied.loss_remainder_fraction,
+                "verdict": implied.verdict,
+                "reasons": implied.reasons,
+                "assumptions": implied.assumptions,
+            }),
+        );
+    }
+    value
+}
+
+fn candidate(c: &CandidateView) -> Value {
+    let p = &c.performance;
+    let e = &c.economics;
+    json!({
+        "id": c.id,
+        "label": c.label,
+        "is_baseline": c.is_baseline,
+        "gas_model": c.gas_model,
+        "performance": performance(p),
         "economics": {
             "capital_cost": e.capital_cost,
             "lifecycle_cost": e.lifecycle_cost,

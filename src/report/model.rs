@@ -184,6 +184,38 @@ pub struct PerformanceView {
     pub fuel_flow_kg_per_s: f64,
     /// CO2 emitted per MWh of net output, kg/MWh.
     pub co2_kg_per_mwh: f64,
+    /// What the bid's datasheet (`[candidate.rating]` figures) implies;
+    /// absent for a bid without one.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub implied: Option<ImpliedView>,
+}
+
+/// What a bid's vendor figures imply about the engine inside, and whether
+/// they are credible (`crate::datasheet::assess`). Values that no fitted
+/// engine gives are `None` (JSON `null`).
+#[derive(Debug, Clone, Serialize)]
+pub struct ImpliedView {
+    /// Implied compressor polytropic efficiency, fraction.
+    pub compressor_polytropic_efficiency: Option<f64>,
+    /// Implied turbine polytropic efficiency, fraction.
+    pub turbine_polytropic_efficiency: Option<f64>,
+    /// Implied firing temperature, K.
+    pub firing_temperature_k: Option<f64>,
+    /// Implied turbine cooling air, fraction of compressor air.
+    pub turbine_cooling: Option<f64>,
+    /// Implied compressor inlet air flow, kg/s.
+    pub air_flow_kg_per_s: f64,
+    /// The datasheet's energy-balance remainder (mechanical, generator,
+    /// auxiliary and casing losses), fraction of fuel energy.
+    pub loss_remainder_fraction: f64,
+    /// `"plausible"`, `"optimistic"` or `"impossible"`.
+    pub verdict: String,
+    /// Why, one sentence each (including every stated component value the
+    /// fit does not bear out, both values).
+    pub reasons: Vec<String>,
+    /// The assumptions the fit rests on, in words (empty when no engine
+    /// fits the figures).
+    pub assumptions: Vec<String>,
 }
 
 /// One row of the cycle state table.

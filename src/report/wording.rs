@@ -16,7 +16,7 @@ use std::collections::BTreeMap;
 use std::path::{Path, PathBuf};
 
 /// Every template, with its built-in text.
-const BUILTIN: [(&str, &str); 7] = [
+const BUILTIN: [(&str, &str); 8] = [
     (
         "headings.j2",
         include_str!("../../templates/report/headings.j2"),
@@ -28,6 +28,10 @@ const BUILTIN: [(&str, &str); 7] = [
     (
         "verdict.j2",
         include_str!("../../templates/report/verdict.j2"),
+    ),
+    (
+        "datasheet.j2",
+        include_str!("../../templates/report/datasheet.j2"),
     ),
     (
         "method.j2",

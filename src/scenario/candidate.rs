@@ -83,6 +83,70 @@ pub struct RatingCondition {
     pub pressure_kpa: f64,
     /// Relative humidity of the rating, fraction of one.
     pub relative_humidity: f64,
+    /// The vendor's stated figures at the rating (heat rate, exhaust flow
+    /// and temperature, …), when the bid gives them; `None` judges the bid
+    /// on its components alone.
+    pub datasheet: Option<RatingFigures>,
+}
+
+/// The heating-value basis of a stated heat rate (`rating.heat_rate_basis`).
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum HeatRateBasisSpec {
+    /// Lower heating value (the usual basis of gas-turbine ratings).
+    Lhv,
+    /// Higher heating value.
+    Hhv,
+}
+
+/// A vendor's figures at the rating condition (`[candidate.rating]`
+/// `heat_rate`, `exhaust_flow`, `exhaust_temperature` and the optional
+/// `pressure_ratio`, `firing_temperature`). The three first are given
+/// together or not at all (checked by the reader); the reader starts the
+/// required ones at NaN and fills them.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct RatingFigures {
+    /// Stated net heat rate, kJ/kWh on `heat_rate_basis`.
+    pub heat_rate_kj_per_kwh: f64,
+    /// Basis of `heat_rate_kj_per_kwh`.
+    pub heat_rate_basis: HeatRateBasisSpec,
+    /// Stated exhaust mass flow (air plus fuel), kg/s.
+    pub exhaust_flow_kg_per_s: f64,
+    /// Stated exhaust temperature, K.
+    pub exhaust_temperature_k: f64,
+    /// Stated compressor pressure ratio, if given.
+    pub pressure_ratio: Option<f64>,
+    /// Stated firing temperature, K, if given.
+    pub firing_temperature_k: Option<f64>,
+}
+
+impl RatingFigures {
+    /// Figures not read yet: NaN for the required three, LHV basis.
+    pub fn unread() -> RatingFigures {
+        RatingFigures {
+            heat_rate_kj_per_kwh: f64::NAN,
+            heat_rate_basis: HeatRateBasisSpec::Lhv,
+            exhaust_flow_kg_per_s: f64::NAN,
+            exhaust_temperature_k: f64::NAN,
+            pressure_ratio: None,
+            firing_temperature_k: None,
+        }
+    }
+}
+
+/// Set one rating figure, refusing it on a candidate whose rating states
+/// no datasheet (a `--vary` or `[[uncertainty]]` of a figure the file does
+/// not give).
+fn set_figure(c: &mut Candidate, v: f64, set: impl FnOnce(&mut RatingFigures, f64)) -> SetResult {
+    match c.rating.datasheet.as_mut() {
+        Some(d) => {
+            set(d, v);
+            Ok(())
+        }
+        None => Err(
+            "this candidate's rating states no heat rate, exhaust flow and exhaust temperature"
+                .into(),
+        ),
+    }
 }
 
 /// Value left at the end of the service life (a credit).
@@ -609,6 +673,57 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
             Ok(())
         },
     ),
+    K::number(
+        "rating.heat_rate",
+        Kind::HeatRate,
+        Range::Positive,
+        Presence::Optional { text: "none: the bid is judged on its components; with `exhaust_flow` and `exhaust_temperature`" },
+        "the vendor's net heat rate at the rating, on `heat_rate_basis`",
+        |c| c.rating.datasheet.map(|d| d.heat_rate_kj_per_kwh),
+        |c, v| set_figure(c, v, |d, v| d.heat_rate_kj_per_kwh = v),
+    )
+    .within(3600.0, 36000.0, "kJ/kWh", "from 100 % efficiency (3600 kJ/kWh, the first law) to 10 %"),
+    K::plain("rating.heat_rate_basis", Shape::Choice(&["lhv", "hhv"]), Presence::Default { text: "lhv", value: 0.0 }, "heating value the stated heat rate is on: `lhv` (the usual basis of ratings) or `hhv`"),
+    K::number(
+        "rating.exhaust_flow",
+        Kind::MassFlow,
+        Range::Positive,
+        Presence::Optional { text: "with `heat_rate` and `exhaust_temperature`" },
+        "the vendor's exhaust mass flow (air plus fuel) at the rating",
+        |c| c.rating.datasheet.map(|d| d.exhaust_flow_kg_per_s),
+        |c, v| set_figure(c, v, |d, v| d.exhaust_flow_kg_per_s = v),
+    )
+    .within(0.05, 2000.0, "kg/s", "from a micro-turbine (about 0.3 kg/s at 30 kW) to beyond the largest heavy-duty machines (about 1 100 kg/s), common practice"),
+    K::number(
+        "rating.exhaust_temperature",
+        Kind::Temperature,
+        Range::Positive,
+        Presence::Optional { text: "with `heat_rate` and `exhaust_flow`" },
+        "the vendor's exhaust temperature at the rating (turbine exit, or regenerator gas exit)",
+        |c| c.rating.datasheet.map(|d| d.exhaust_temperature_k),
+        |c, v| set_figure(c, v, |d, v| d.exhaust_temperature_k = v),
+    )
+    .within(400.0, 1200.0, "K", "recuperated machines leave about 500–600 K, simple cycles 700–900 K; outside 400–1 200 K no gas turbine exhausts (common practice)"),
+    K::number(
+        "rating.pressure_ratio",
+        Kind::Number,
+        Range::AboveOne,
+        Presence::Optional { text: "fitted from the other figures" },
+        "the vendor's compressor pressure ratio at the rating",
+        |c| c.rating.datasheet.and_then(|d| d.pressure_ratio),
+        |c, v| set_figure(c, v, |d, v| d.pressure_ratio = Some(v)),
+    )
+    .within(RATIO_LOW, RATIO_HIGH, "", RATIO_REASON),
+    K::number(
+        "rating.firing_temperature",
+        Kind::Temperature,
+        Range::Positive,
+        Presence::Optional { text: "fitted from the other figures" },
+        "the vendor's firing temperature (combustor exit) at the rating",
+        |c| c.rating.datasheet.and_then(|d| d.firing_temperature_k),
+        |c, v| set_figure(c, v, |d, v| d.firing_temperature_k = Some(v)),
+    )
+    .within(HOT_LOW, HOT_HIGH, "K", HOT_REASON),
 K::plain("control", Shape::Table, Presence::Optional { text: "guide vanes to 70 % airflow, 30 % minimum load" }, "how the fixed machine is held away from base load (`brayfin offdesign`)"),
     K::plain("costs", Shape::Table, Presence::Optional { text: "all zero" }, "O&M, overhauls, degradation, residual value, construction schedule (below)"),
 ];

@@ -3,8 +3,8 @@
 //! tables and a costs table.
 
 use super::candidate::{
-    Candidate, EfficiencyBasis, GasModelSpec, IntercoolerSpec, RatingCondition, RegeneratorSpec,
-    ReheatSpec, KEYS,
+    Candidate, EfficiencyBasis, GasModelSpec, HeatRateBasisSpec, IntercoolerSpec, RatingCondition,
+    RatingFigures, RegeneratorSpec, ReheatSpec, KEYS,
 };
 use super::candidate_control::{read_control, ControlSpec};
 use super::candidate_costs::read_costs;
@@ -232,6 +232,7 @@ fn read_candidate(ctx: &mut Context, node: &Node, index: usize, cod: NaiveDate) 
             temperature_k: f64::NAN,
             pressure_kpa: f64::NAN,
             relative_humidity: f64::NAN,
+            datasheet: None,
         },
         control: ControlSpec::default(),
         costs,
@@ -250,7 +251,52 @@ fn read_rating(ctx: &mut Context, r: &TableReader, candidate: &mut Candidate) ->
     };
     let node = r.node(ctx, "rating").unwrap_or(&empty);
     let t = TableReader::new(ctx, &r.field("rating"), node, &keys_in(KEYS, "rating"))?;
-    t.declared_into(ctx, KEYS, "rating", candidate)
+    // The vendor's figures come as a group: heat rate, exhaust flow and
+    // exhaust temperature together (the energy balance needs all three).
+    const GROUP: [&str; 3] = ["heat_rate", "exhaust_flow", "exhaust_temperature"];
+    let stated = GROUP.iter().any(|k| t.has(k));
+    if stated {
+        candidate.rating.datasheet = Some(RatingFigures::unread());
+    } else if let Some(key) = ["heat_rate_basis", "pressure_ratio", "firing_temperature"]
+        .into_iter()
+        .find(|k| t.has(k))
+    {
+        return Err(t.error(
+            ctx,
+            key,
+            "is a figure of the vendor's datasheet, but the rating states no heat rate, \
+             exhaust flow and exhaust temperature",
+            "expected `heat_rate`, `exhaust_flow` and `exhaust_temperature` beside it, or no datasheet keys",
+        ));
+    }
+    t.declared_into(ctx, KEYS, "rating", candidate)?;
+    if stated {
+        if let Some(missing) = GROUP.into_iter().find(|k| !t.has(k)) {
+            let given: Vec<&str> = GROUP.into_iter().filter(|k| t.has(k)).collect();
+            return Err(r.error(
+                ctx,
+                "rating",
+                format!(
+                    "states {} but not `{missing}`",
+                    given
+                        .iter()
+                        .map(|k| format!("`{k}`"))
+                        .collect::<Vec<_>>()
+                        .join(" and ")
+                ),
+                "expected `heat_rate`, `exhaust_flow` and `exhaust_temperature` together \
+                 (the datasheet's energy balance needs all three), or none of them",
+            ));
+        }
+        let basis = match t.choice(ctx, "heat_rate_basis", &["lhv", "hhv"], "lhv")? {
+            "hhv" => HeatRateBasisSpec::Hhv,
+            _ => HeatRateBasisSpec::Lhv,
+        };
+        if let Some(d) = candidate.rating.datasheet.as_mut() {
+            d.heat_rate_basis = basis;
+        }
+    }
+    Ok(())
 }
 
 fn read_gas_model(ctx: &mut Context, r: &TableReader) -> Read<GasModelSpec> {

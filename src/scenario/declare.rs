@@ -216,6 +216,7 @@ pub(crate) fn value_of_kind(kind: Kind, text: &str) -> Result<f64, UnitError> {
         Kind::Length => units::length_m(text),
         Kind::Duration => units::duration_h(text),
         Kind::EmissionFactor => units::emission_factor_kg_per_gj(text),
+        Kind::MassFlow => units::mass_flow_kg_per_s(text),
         Kind::Money => units::money(text).map(money),
         Kind::FuelPrice => units::price_per_gj(text).map(money),
         Kind::PricePerTonne => units::price_per_tonne(text).map(money),
@@ -309,6 +310,7 @@ fn kind_text(kind: Kind) -> &'static str {
         Kind::PricePerCapacity => "price per kW-year",
         Kind::Duration => "duration",
         Kind::EmissionFactor => "emission factor",
+        Kind::MassFlow => "mass flow",
     }
 }
 
@@ -516,8 +518,8 @@ turbine_efficiency = "89 %"
             matched += 1;
         }
         // Every declared default of a key outside optional parts
-        // (regenerator, intercooler, reheat, guarantee, cold-air constants)
-        // applies.
+        // (regenerator, intercooler, reheat, guarantee, cold-air constants,
+        // the basis of a datasheet's heat rate) applies.
         let expected = scenario_keys()
             .map(|k| (k.path, k.presence))
             .chain(candidate_keys().map(|k| (k.path, k.presence)))
@@ -526,7 +528,12 @@ turbine_efficiency = "89 %"
                     && !["regenerator.", "intercooler.", "reheat.", "guarantee."]
                         .iter()
                         .any(|p| path.starts_with(p))
-                    && !["cp_kj_per_kg_k", "specific_heat_ratio"].contains(path)
+                    && ![
+                        "cp_kj_per_kg_k",
+                        "specific_heat_ratio",
+                        "rating.heat_rate_basis",
+                    ]
+                    .contains(path)
             })
             .count();
         assert_eq!(matched, expected);

@@ -8,8 +8,8 @@
 //! MWh).
 
 pub use super::candidate::{
-    Candidate, CandidateCosts, EfficiencyBasis, GasModelSpec, IntercoolerSpec, RatingCondition,
-    RegeneratorSpec, ReheatSpec, ResidualValue,
+    Candidate, CandidateCosts, EfficiencyBasis, GasModelSpec, HeatRateBasisSpec, IntercoolerSpec,
+    RatingCondition, RatingFigures, RegeneratorSpec, ReheatSpec, ResidualValue,
 };
 pub use super::candidate_guarantee::{CandidateGuarantee, HeatRateDamages, ToleranceReading};
 pub use super::uncertainty::{Distribution, UncertainInput};

@@ -145,6 +145,7 @@ fn candidate(
             air_flow_kg_per_s: 121.5,
             fuel_flow_kg_per_s: 2.41,
             co2_kg_per_mwh: 512.3,
+            implied: None,
         },
         cycle: CycleView {
             states: states(1500.0, regenerator),

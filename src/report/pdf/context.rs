@@ -176,6 +176,8 @@ pub fn with_candidate(model: &Model, c: &CandidateView) -> Value {
             chance => chance(model, &c.id),
             discounted_payback => format::payback(e.discounted_payback),
             simple_payback => format::payback(e.simple_payback),
+            datasheet_verdict => c.performance.implied.as_ref().map(|i| i.verdict.clone()),
+            datasheet_reason => c.performance.implied.as_ref().and_then(|i| i.reasons.first().cloned()),
         },
     }
 }

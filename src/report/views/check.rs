@@ -3,6 +3,7 @@
 //! the scenario currency per internal unit: per GJ or per MMBtu of fuel, per
 //! t of CO2, per kW-yr of capacity).
 
+use crate::analysis::implied::ImpliedBid;
 use crate::report::format::{self, Quantity as Q};
 use crate::report::model::Units;
 
@@ -17,6 +18,7 @@ pub struct CheckView<'a> {
     loaded: &'a LoadedScenario,
     extra_warnings: Vec<String>,
     extra_information: Vec<String>,
+    implied: &'a [ImpliedBid],
     units: Units,
 }
 
@@ -28,6 +30,7 @@ impl<'a> CheckView<'a> {
             loaded,
             extra_warnings,
             extra_information: Vec::new(),
+            implied: &[],
             units,
         }
     }
@@ -39,12 +42,21 @@ impl<'a> CheckView<'a> {
         self
     }
 
+    /// The same view with what each bid's datasheet implies
+    /// ([`crate::analysis::implied::implied_bids`]), printed after the
+    /// summary.
+    pub fn with_implied(mut self, implied: &'a [ImpliedBid]) -> Self {
+        self.implied = implied;
+        self
+    }
+
     /// The text `check` prints.
     pub fn table(&self) -> String {
         report(
             self.loaded,
             self.extra_warnings.clone(),
             &self.extra_information,
+            self.implied,
             self.units,
         )
     }
@@ -57,11 +69,13 @@ fn report(
     loaded: &LoadedScenario,
     extra_warnings: Vec<String>,
     extra_information: &[String],
+    implied: &[ImpliedBid],
     units: Units,
 ) -> String {
     let mut warnings = scenario::engineering_warnings(&loaded.scenario);
     warnings.extend(extra_warnings);
     let mut out = summary(loaded, units);
+    out.push_str(&super::implied::implied_text(implied, units));
     let mut notes = scenario::information_notes(&loaded.scenario);
     notes.extend(extra_information.iter().cloned());
     if !notes.is_empty() {

@@ -9,6 +9,7 @@
 
 pub mod check;
 pub mod cycle;
+pub mod implied;
 pub mod offdesign;
 pub mod risk;
 pub mod sweep;

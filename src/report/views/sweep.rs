@@ -59,6 +59,7 @@ fn internal_unit(kind: Option<Kind>, currency: &str) -> String {
             Kind::PricePerCapacity => format!("{currency}/kW-yr"),
             Kind::Duration => "h".into(),
             Kind::EmissionFactor => "kg/GJ".into(),
+            Kind::MassFlow => "kg/s".into(),
         },
     }
 }

@@ -228,6 +228,19 @@ pub fn briefing(ctx: &Ctx, composer: &mut Composer) -> Result<()> {
         };
         composer.bullet(&text, BODY_PT);
     }
+    // Every bid whose vendor figures the datasheet check flags, the
+    // baseline included.
+    for c in model.candidates.iter().filter(|c| {
+        c.performance
+            .implied
+            .as_ref()
+            .is_some_and(|i| i.verdict != "plausible")
+    }) {
+        let text = ctx
+            .wording
+            .render("datasheet.j2", &with_candidate(model, c))?;
+        composer.bullet(text.trim(), BODY_PT);
+    }
 
     composer.heading(&l.key_assumptions, 2, 15.0);
     if model.key_assumptions.is_empty() {

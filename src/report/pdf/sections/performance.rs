@@ -1,9 +1,10 @@
 //! Performance of each candidate at site conditions: headline figures,
-//! specific works and heat, the first-law residual, and the state table.
+//! specific works and heat, the first-law residual, and the state table;
+//! then what each bid's datasheet implies.
 
 use super::{pdf_units, Ctx};
 use crate::report::format;
-use crate::report::model::{CandidateView, Units};
+use crate::report::model::{CandidateView, ImpliedView, Units};
 use crate::report::pdf::document::Composer;
 use crate::report::pdf::fonts::Face;
 use crate::report::pdf::table::{draw_table, Column, TableStyle};
@@ -171,6 +172,82 @@ fn state_rows(c: &CandidateView, units: Units) -> Vec<Vec<String>> {
         .collect()
 }
 
+/// The table "What each bid implies": one row per bid that states a
+/// datasheet (verdict, implied polytropic efficiencies, firing temperature,
+/// cooling, air flow, loss remainder), each reason as a bullet, then the
+/// fit's assumptions once each. Nothing for a scenario without datasheets.
+fn implied_table(ctx: &Ctx, composer: &mut Composer) {
+    let l = ctx.labels;
+    let units = ctx.model.meta.units;
+    let bids: Vec<(&CandidateView, &ImpliedView)> = ctx
+        .model
+        .candidates
+        .iter()
+        .filter_map(|c| c.performance.implied.as_ref().map(|i| (c, i)))
+        .collect();
+    if bids.is_empty() {
+        return;
+    }
+    composer.heading(&l.implied, 2, 50.0);
+    composer.paragraph(&l.implied_note, 9.0, Face::Regular, 0.0);
+    let columns = vec![
+        Column::left(l.candidate.clone()),
+        Column::left(l.implied_verdict.clone()),
+        Column::right(l.implied_compressor.clone()),
+        Column::right(l.implied_turbine.clone()),
+        Column::right(l.implied_firing.clone()),
+        Column::right(l.implied_cooling.clone()),
+        Column::right(l.implied_air_flow.clone()),
+        Column::right(l.implied_remainder.clone()),
+    ];
+    let dash = || "–".to_string();
+    let rows: Vec<Vec<String>> = bids
+        .iter()
+        .map(|(c, i)| {
+            vec![
+                c.label.clone(),
+                i.verdict.clone(),
+                i.compressor_polytropic_efficiency
+                    .map_or_else(dash, |v| format!("{v:.3}")),
+                i.turbine_polytropic_efficiency
+                    .map_or_else(dash, |v| format!("{v:.3}")),
+                i.firing_temperature_k
+                    .map_or_else(dash, |t| pdf_units(format::temperature(t, units))),
+                i.turbine_cooling
+                    .map_or_else(dash, |v| format!("{:.1} %", v * 100.0)),
+                format::with_unit(format::Quantity::MassFlow, i.air_flow_kg_per_s, units, 1),
+                format!("{:.2} %", i.loss_remainder_fraction * 100.0),
+            ]
+        })
+        .collect();
+    let style = TableStyle {
+        size_pt: 8.0,
+        max_lines: 2,
+        bold_first_column: true,
+        header: true,
+    };
+    draw_table(composer, &columns, &rows, &style);
+    for (c, i) in &bids {
+        for reason in &i.reasons {
+            composer.bullet(&pdf_units(format!("{}: {reason}", c.label)), 8.0);
+        }
+    }
+    let mut assumptions: Vec<&String> = Vec::new();
+    for (_, i) in &bids {
+        for a in &i.assumptions {
+            if !assumptions.contains(&a) {
+                assumptions.push(a);
+            }
+        }
+    }
+    if !assumptions.is_empty() {
+        composer.paragraph(&l.implied_assumptions, 8.0, Face::Bold, 0.0);
+        for a in assumptions {
+            composer.bullet(&pdf_units(a.clone()), 8.0);
+        }
+    }
+}
+
 /// Lay out the performance section.
 pub fn performance(ctx: &Ctx, composer: &mut Composer) {
     let l = ctx.labels;
@@ -224,4 +301,5 @@ pub fn performance(ctx: &Ctx, composer: &mut Composer) {
             &TableStyle::default(),
         );
     }
+    implied_table(ctx, composer);
 }

@@ -1,0 +1,198 @@
+//! What each bid's vendor figures imply: for every candidate whose
+//! `[candidate.rating]` states a datasheet (heat rate, exhaust flow and
+//! temperature), [`crate::datasheet::assess`] with the candidate's stated
+//! components ([`ComponentData::from_engine`]) as the data to check against
+//! the fit. A candidate without a datasheet is judged on its components as
+//! before and has no entry.
+//!
+//! Figures that cannot all be true are not an error: they are an
+//! [`Verdict::Impossible`](crate::datasheet::Verdict) with reasons. Only
+//! figures that cannot be read (a fuel without composition, a machine the
+//! calibration does not model) are refused, at the candidate's key.
+
+use super::engine::{engine_config_of, gas_model_of};
+use super::machine::rating_of;
+use crate::cycle::Regenerator;
+use crate::datasheet::{
+    assess, Assessment, CalibrationOptions, ComponentData, Datasheet, DatasheetError,
+    HeatRateBasis, Verdict,
+};
+use crate::fuel::Fuel;
+use crate::scenario::{Candidate, HeatRateBasisSpec, LoadedScenario, RatingFigures};
+use crate::Error;
+
+/// What one bid's datasheet implies.
+#[derive(Debug, Clone, PartialEq)]
+pub struct ImpliedBid {
+    /// The candidate's id.
+    pub candidate_id: String,
+    /// Index of the candidate in the scenario.
+    pub index: usize,
+    /// The datasheet as assessed (figures in SI, LHV or HHV as stated).
+    pub datasheet: Datasheet,
+    /// Balance, calibration, implied values, verdict and disagreements.
+    pub assessment: Assessment,
+}
+
+/// The datasheet a candidate states, if any: its rated `net_output`, the
+/// rating figures, its regenerator as stated, the rating condition and the
+/// scenario's fuel.
+pub fn datasheet_of(candidate: &Candidate, fuel: &Fuel) -> Option<Datasheet> {
+    let figures: RatingFigures = candidate.rating.datasheet?;
+    Some(Datasheet {
+        net_output_kw: candidate.net_output_kw,
+        heat_rate_kj_per_kwh: figures.heat_rate_kj_per_kwh,
+        heat_rate_basis: match figures.heat_rate_basis {
+            HeatRateBasisSpec::Lhv => HeatRateBasis::Lhv,
+            HeatRateBasisSpec::Hhv => HeatRateBasis::Hhv,
+        },
+        exhaust_flow_kg_per_s: figures.exhaust_flow_kg_per_s,
+        exhaust_temperature_k: figures.exhaust_temperature_k,
+        pressure_ratio: figures.pressure_ratio,
+        firing_temperature_k: figures.firing_temperature_k,
+        regenerator: candidate.regenerator.as_ref().map(|r| Regenerator {
+            effectiveness: r.effectiveness,
+            air_side_pressure_loss: r.air_side_pressure_loss,
+            gas_side_pressure_loss: r.gas_side_pressure_loss,
+        }),
+        rating: rating_of(candidate),
+        fuel: fuel.clone(),
+    })
+}
+
+/// The component values a candidate states, on the polytropic basis, at its
+/// rating condition; its turbine cooling only when the file states it.
+pub fn stated_components(
+    loaded: &LoadedScenario,
+    candidate: &Candidate,
+    fuel: &Fuel,
+) -> Result<ComponentData, DatasheetError> {
+    let rating = rating_of(candidate);
+    let mut config = engine_config_of(candidate, &loaded.scenario.site);
+    config.ambient_temperature_k = rating.temperature_k;
+    config.ambient_pressure_kpa = rating.pressure_kpa;
+    let mut data = ComponentData::from_engine(
+        &config,
+        candidate.turbine_cooling,
+        rating.relative_humidity,
+        gas_model_of(&candidate.gas_model),
+        fuel,
+    )?;
+    // A cooling the file does not state (the default, none) is not the
+    // vendor's claim: it is left out of the comparison with the fit.
+    let cooling_key = format!("candidate[{}].turbine_cooling", candidate.id);
+    if loaded.applied_defaults.iter().any(|d| d.key == cooling_key) {
+        data.turbine_cooling = None;
+    }
+    Ok(data)
+}
+
+/// The calibration's assumptions for a candidate that also states its
+/// components: the fit shares what the scenario prices the candidate with
+/// where the datasheet cannot determine it — pressure losses, combustion
+/// efficiency, the split between compressor and turbine efficiency, and
+/// no cooling air for a candidate that states none — so that a datasheet
+/// worked from the candidate's own cycle is borne out by it. What the fit
+/// does determine (efficiency level, firing temperature or cooling, air
+/// flow) is still checked against the stated values.
+fn options_of(
+    candidate: &crate::scenario::Candidate,
+    stated: &ComponentData,
+) -> CalibrationOptions {
+    let defaults = CalibrationOptions::default();
+    let gap = match (
+        stated.compressor_polytropic_efficiency,
+        stated.turbine_polytropic_efficiency,
+    ) {
+        (Some(c), Some(t)) => c - t,
+        _ => defaults.efficiency_gap,
+    };
+    let uncooled = stated.turbine_cooling == Some(0.0) || candidate.turbine_cooling == 0.0;
+    CalibrationOptions {
+        inlet_pressure_loss: candidate.inlet_pressure_loss,
+        exhaust_pressure_loss: candidate.exhaust_pressure_loss,
+        combustor_pressure_loss: candidate.combustor_pressure_loss,
+        combustion_efficiency: candidate.combustion_efficiency,
+        efficiency_gap: gap,
+        cooling_per_kelvin: if uncooled {
+            0.0
+        } else {
+            defaults.cooling_per_kelvin
+        },
+        ..defaults
+    }
+}
+
+/// Assess every candidate that states a datasheet, in scenario order,
+/// under the candidate's own assumptions ([`options_of`]).
+///
+/// Errors: a datasheet the library cannot read (input error at the
+/// figure's key, exit 1), an intercooled or reheat machine with a
+/// datasheet (not modelled yet; input error at its `rating`), or a model
+/// failure (internal, exit 2).
+pub fn implied_bids(loaded: &LoadedScenario, fuel: &Fuel) -> crate::Result<Vec<ImpliedBid>> {
+    let mut bids = Vec::new();
+    for (index, candidate) in loaded.scenario.candidates.iter().enumerate() {
+        let Some(datasheet) = datasheet_of(candidate, fuel) else {
+            continue;
+        };
+        if candidate.intercooler.is_some() || candidate.reheat.is_some() {
+            return Err(loaded.error_at(
+                &format!("candidate[{}].rating", candidate.id),
+                "a datasheet of an intercooled or reheat machine cannot be assessed yet \
+                 (the calibration models single-shaft simple or regenerated machines); \
+                 expected no `heat_rate`, `exhaust_flow` and `exhaust_temperature` on this candidate",
+            ));
+        }
+        let located = |e: DatasheetError| datasheet_error(loaded, candidate, &e);
+        let components = stated_components(loaded, candidate, fuel).map_err(located)?;
+        let assessment = assess(&datasheet, &components, &options_of(candidate, &components))
+            .map_err(located)?;
+        bids.push(ImpliedBid {
+            candidate_id: candidate.id.clone(),
+            index,
+            datasheet,
+            assessment,
+        });
+    }
+    Ok(bids)
+}
+
+/// The warning for a bid whose datasheet is optimistic or impossible
+/// (`None` for a plausible one): its verdict and first reason, naming the
+/// candidate.
+pub fn verdict_warning(bid: &ImpliedBid) -> Option<String> {
+    let implied = &bid.assessment.implied;
+    let word = match implied.verdict {
+        Verdict::Plausible => return None,
+        Verdict::Optimistic => "optimistic",
+        Verdict::Impossible => "impossible",
+    };
+    let why = implied
+        .reasons
+        .first()
+        .map_or(String::new(), |r| format!(": {r}"));
+    Some(format!(
+        "candidate[{}]: the vendor's figures at the rating are {word}{why}",
+        bid.candidate_id
+    ))
+}
+
+/// A datasheet refusal as an error at the key it names.
+fn datasheet_error(loaded: &LoadedScenario, candidate: &Candidate, e: &DatasheetError) -> Error {
+    if !e.is_input_error() {
+        return Error::Internal(format!("candidate {}: {e}", candidate.id));
+    }
+    let key = match e.field() {
+        Some("fuel") => "fuel.composition".to_string(),
+        Some(field) => format!("candidate[{}].{field}", candidate.id),
+        None => format!("candidate[{}].rating", candidate.id),
+    };
+    loaded.error_at(
+        &key,
+        &format!(
+            "the datasheet of `{}` cannot be assessed: {e}",
+            candidate.id
+        ),
+    )
+}

@@ -15,7 +15,8 @@ pub fn run(args: &CheckArgs) -> Result<()> {
     // ledger can: an impossible cycle is an input error here too.
     let study = crate::analysis::compare::run_study(&loaded)?;
     let extra = crate::analysis::warnings::cycle_warnings(&loaded, &study);
-    let information = crate::analysis::machine::site_notes(&loaded.scenario, &study);
+    let mut information = crate::analysis::machine::site_notes(&loaded.scenario, &study);
+    information.extend(crate::analysis::implied::unassessed_notes(&loaded.scenario));
     let implied = crate::analysis::implied::implied_bids(&loaded, &study.fuel)?;
     let mut extra = extra;
     for bid in &implied {

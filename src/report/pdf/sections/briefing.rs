@@ -192,28 +192,7 @@ pub fn briefing(ctx: &Ctx, composer: &mut Composer) -> Result<()> {
     }
 
     composer.heading(&l.key_figures, 2, 30.0);
-    let names = figure_names(ctx);
-    for group in model.candidates.chunks(CANDIDATES_PER_TABLE) {
-        let mut columns = vec![Column::left(l.figure.clone())];
-        columns.extend(group.iter().map(|c| Column::right(c.label.clone())));
-        let figures: Vec<Vec<String>> = group.iter().map(|c| key_figures(c, model)).collect();
-        let rows: Vec<Vec<String>> = names
-            .iter()
-            .enumerate()
-            .map(|(i, name)| {
-                std::iter::once(name.clone())
-                    .chain(figures.iter().map(|f| f[i].clone()))
-                    .collect()
-            })
-            .collect();
-        let style = TableStyle {
-            size_pt: 8.0,
-            max_lines: 2,
-            bold_first_column: true,
-            header: true,
-        };
-        draw_table(composer, &columns, &rows, &style);
-    }
+    figures_by_candidate(ctx, composer, &figure_names(ctx), key_figures);
 
     composer.heading(&l.verdicts, 2, 12.0);
     // The baseline needs no verdict: the key figures name it and every
@@ -345,20 +324,32 @@ pub fn factor_names(ctx: &Ctx) -> Vec<String> {
 
 /// What one unit of each guaranteed figure is worth, per candidate.
 fn evaluation_factors(ctx: &Ctx, composer: &mut Composer) {
-    let model = ctx.model;
     let l = ctx.labels;
     composer.heading(&l.evaluation_factors, 2, 30.0);
-    let names = factor_names(ctx);
+    figures_by_candidate(ctx, composer, &factor_names(ctx), factor_figures);
+    composer.paragraph(&l.factors_note, 8.0, Face::Regular, 0.0);
+}
+
+/// A table of named figures (rows) by candidate (columns), in groups of
+/// [`CANDIDATES_PER_TABLE`] candidates; `figures` gives one candidate's
+/// column in the order of `names`.
+fn figures_by_candidate(
+    ctx: &Ctx,
+    composer: &mut Composer,
+    names: &[String],
+    figures: fn(&CandidateView, &Model) -> Vec<String>,
+) {
+    let model = ctx.model;
     for group in model.candidates.chunks(CANDIDATES_PER_TABLE) {
-        let mut columns = vec![Column::left(l.figure.clone())];
+        let mut columns = vec![Column::left(ctx.labels.figure.clone())];
         columns.extend(group.iter().map(|c| Column::right(c.label.clone())));
-        let figures: Vec<Vec<String>> = group.iter().map(|c| factor_figures(c, model)).collect();
+        let values: Vec<Vec<String>> = group.iter().map(|c| figures(c, model)).collect();
         let rows: Vec<Vec<String>> = names
             .iter()
             .enumerate()
             .map(|(i, name)| {
                 std::iter::once(name.clone())
-                    .chain(figures.iter().map(|f| f[i].clone()))
+                    .chain(values.iter().map(|f| f[i].clone()))
                     .collect()
             })
             .collect();
@@ -370,5 +361,4 @@ fn evaluation_factors(ctx: &Ctx, composer: &mut Composer) {
         };
         draw_table(composer, &columns, &rows, &style);
     }
-    composer.paragraph(&l.factors_note, 8.0, Face::Regular, 0.0);
 }

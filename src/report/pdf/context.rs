@@ -124,6 +124,13 @@ fn decision(model: &Model) -> Value {
         preferred_id => d.preferred_id.clone(),
         preferred_label => d.preferred_label.clone(),
         preferred_is_baseline => d.preferred_is_baseline,
+        preferred_datasheet_verdict => model
+            .candidates
+            .iter()
+            .find(|c| c.id == d.preferred_id)
+            .and_then(|c| c.performance.implied.as_ref())
+            .map(|i| i.verdict.clone())
+            .filter(|v| v != "plausible"),
         break_even_premium => money(d.break_even_premium, currency),
         premium_asked => money(d.premium_asked, currency),
         net_savings => money(d.net_savings, currency),

@@ -269,6 +269,12 @@ pub struct SweepArgs {
     /// Only this candidate (default: all).
     #[arg(long)]
     pub candidate: Option<String>,
+    /// Re-solve every machine in full wherever a point moves a bid's engine
+    /// (component efficiencies, regenerator) instead of scaling the site
+    /// figures solved once at the file's values by a re-solved rating
+    /// point: slower, for checking the default route.
+    #[arg(long)]
+    pub exact: bool,
     /// Output format.
     #[arg(long, value_enum, default_value = "table")]
     pub format: Format,
@@ -289,6 +295,12 @@ pub struct RiskArgs {
     /// Random seed; the same seed gives identical results on any thread count.
     #[arg(long, default_value_t = 1)]
     pub seed: u64,
+    /// Re-solve every machine in full wherever a draw moves a bid's engine
+    /// (component efficiencies, regenerator) instead of scaling the site
+    /// figures solved once at the file's values by a re-solved rating
+    /// point: slower, for checking the default route.
+    #[arg(long)]
+    pub exact: bool,
     /// Output format.
     #[arg(long, value_enum, default_value = "table")]
     pub format: Format,

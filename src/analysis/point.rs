@@ -16,13 +16,42 @@
 //! Likewise a candidate's ledger is summed again only when its ledger
 //! inputs differ from the last ones (a sweep of one bid's figure leaves the
 //! baseline's ledger as it was).
+//!
+//! # Routes for a sample that moves a candidate's engine
+//!
+//! A full re-solve ([`Route::Exact`]) calibrates the machine again at its
+//! rating and solves it at the site and at each dispatch load: tens of
+//! microseconds per candidate, and with an hourly year many off-design
+//! points. The default route ([`Route::Scaled`]) solves each candidate's
+//! site year once, at the file's values ([`PointModel::new`]); a point
+//! whose only physics change is the candidate's engine description
+//! (component efficiencies, losses, regenerator, pressure ratio, firing
+//! temperature, size) re-solves only the rating point (one design cycle
+//! solve) and scales the base site figures by the rating point's ratios:
+//!
+//! - site output = base site output × rated output / base rated output;
+//! - site heat rate = base site heat rate × rated heat rate / base rated
+//!   heat rate (so the year's energy scales with output and its fuel with
+//!   output × heat rate);
+//! - the rating-point heat rate (what a guarantee defaults to) is the new
+//!   rating solve's own, exact;
+//! - the dispatch blocks keep the base machine's part-load ratios.
+//!
+//! What it leaves out is how the lapse from rating to site, and the
+//! part-load shape, change with the engine's components: second order for
+//! the small moves of a risk run. Any other physics change (site ambient,
+//! humidity, fuel, rating, control, cooling, gas model, dispatch loads or
+//! the part-load table) is solved in full on either route. The error
+//! against `Route::Exact` is measured in `tests/risk_route.rs` and
+//! recorded in DEVELOPERS.md.
 
 mod restore;
 
 use super::acceptance::contract_inputs;
 use super::engine::{detail_of, engine_config_of, fuel_of, gas_model_of};
 use super::evaluate::{output_reference_of, year_of};
-use super::site::{fixed_machine_site, rated_site, SitePerformance};
+use super::machine::machine_of;
+use super::site::{fixed_machine_site, rated_site, Basis, SitePerformance};
 use crate::cycle::{self, EngineConfig, GasModel};
 use crate::finance::{compare_summaries, summarize_ledger, LedgerInputs, LedgerSummary};
 use crate::fuel::Fuel;
@@ -118,6 +147,41 @@ fn section_of(scenario: &Scenario, key: &str) -> Section {
     }
 }
 
+/// How a point that moves a candidate's engine description is solved.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
+pub enum Route {
+    /// The rating point alone is re-solved and the base site figures are
+    /// scaled by its ratios (see the module documentation).
+    #[default]
+    Scaled,
+    /// The machine is calibrated again and solved at the site and every
+    /// dispatch load, for every point.
+    Exact,
+}
+
+impl Route {
+    /// One line for a command's notes: how component changes were solved.
+    pub fn note(self) -> &'static str {
+        match self {
+            Route::Scaled => {
+                "Route: a draw that moves a bid's engine (efficiencies, regenerator) re-solves                  its rating point and scales the site output and heat rate solved once at the                  file's values by the rating ratios (measured within 0.02 % of --exact on both                  demos, 2 000 samples); --exact re-solves every machine in full"
+            }
+            Route::Exact => {
+                "Route: exact (every draw that moves a bid's engine re-calibrates its machine                  and solves it at the site and every dispatch load)"
+            }
+        }
+    }
+}
+
+/// A candidate's exact site performance at the file's values and the
+/// physics it was solved from: what [`Route::Scaled`] scales.
+#[derive(Debug, Clone)]
+struct BaseSite {
+    cached: CachedCycle,
+    rated_output_kw: f64,
+    rated_heat_rate_kj_per_kwh: f64,
+}
+
 /// The fixed part of a run of points: the base scenario, the keys that
 /// vary, which candidates are evaluated.
 #[derive(Debug, Clone)]
@@ -128,6 +192,8 @@ pub struct PointModel<'s> {
     keys: Vec<String>,
     sections: Vec<Section>,
     evaluated: Vec<bool>,
+    route: Route,
+    bases: Vec<Option<BaseSite>>,
 }
 
 /// A candidate's site performance and the physics inputs it was solved
@@ -159,6 +225,34 @@ impl CachedCycle {
         fuel_is_base
             && self.fuel_is_base
             && self.config == *config
+            && self.detail == *detail
+            && self.gas == *gas
+            && self.rating == candidate.rating
+            && self.control == candidate.control
+            && self.part_load == scenario.operation.part_load
+            && self.dispatch_loads.iter().copied().eq(scenario
+                .operation
+                .dispatch
+                .iter()
+                .map(|b| b.load_fraction))
+    }
+}
+
+impl CachedCycle {
+    /// Whether a point with these physics inputs differs from this base
+    /// solve in the engine description alone, at the same ambient (so the
+    /// scaled route applies).
+    fn same_but_engine(
+        &self,
+        scenario: &Scenario,
+        candidate: &Candidate,
+        (config, detail, gas): (&EngineConfig, &cycle::Detail, &GasModel),
+        fuel_is_base: bool,
+    ) -> bool {
+        fuel_is_base
+            && self.fuel_is_base
+            && self.config.ambient_temperature_k == config.ambient_temperature_k
+            && self.config.ambient_pressure_kpa == config.ambient_pressure_kpa
             && self.detail == *detail
             && self.gas == *gas
             && self.rating == candidate.rating
@@ -211,7 +305,33 @@ impl<'s> PointModel<'s> {
             keys,
             sections,
             evaluated,
+            route: Route::default(),
+            bases: Vec::new(),
         }
+        .with_route(Route::default())
+    }
+
+    /// The same model solving points by `route`. [`Route::Scaled`] solves
+    /// every candidate's site once here, at the file's values (a candidate
+    /// whose base solve fails, or that is kept at its rating, is then
+    /// solved in full at every point).
+    pub fn with_route(mut self, route: Route) -> PointModel<'s> {
+        self.route = route;
+        self.bases = match route {
+            Route::Exact => Vec::new(),
+            Route::Scaled => self
+                .base
+                .candidates
+                .iter()
+                .map(|candidate| base_site(self.base, candidate, &self.base_fuel))
+                .collect(),
+        };
+        self
+    }
+
+    /// How points that move a candidate's engine are solved.
+    pub fn route(&self) -> Route {
+        self.route
     }
 
     /// A fresh workspace for one worker.
@@ -286,38 +406,23 @@ impl<'s> PointModel<'s> {
             if hit {
                 continue;
             }
-            let cycle_error = |message: String| PointError::Cycle {
-                candidate: candidate.id.clone(),
-                message,
-            };
-            // The machine's calibration is its own design solve: the design
-            // cycle at the site is solved only for a candidate kept at its
-            // rating.
-            let site = match fixed_machine_site(scenario, candidate, fuel)
-                .map_err(|e| cycle_error(e.to_string()))?
-            {
-                Ok(site) => site,
-                Err(reason) => {
-                    let solved = cycle::solve_detailed(&config, &detail, &gas, fuel)
-                        .map_err(|e| cycle_error(e.to_string()))?;
-                    rated_site(scenario, candidate, solved.heat_rate_kj_per_kwh, reason)
+            let scaled = match (self.route, self.bases.get(i).and_then(Option::as_ref)) {
+                (Route::Scaled, Some(base))
+                    if base.cached.same_but_engine(
+                        scenario,
+                        candidate,
+                        (&config, &detail, &gas),
+                        fuel_is_base,
+                    ) =>
+                {
+                    Some(base)
                 }
+                _ => None,
             };
-            ws.cycles[i] = Some(CachedCycle {
-                config,
-                detail,
-                gas,
-                fuel_is_base,
-                rating: candidate.rating,
-                control: candidate.control,
-                dispatch_loads: scenario
-                    .operation
-                    .dispatch
-                    .iter()
-                    .map(|b| b.load_fraction)
-                    .collect(),
-                part_load: scenario.operation.part_load.clone(),
-                site,
+            ws.cycles[i] = Some(match scaled {
+                Some(base) if base.cached.config == config => base.cached.clone(),
+                Some(base) => scaled_cycle(base, candidate, scenario, fuel, config)?,
+                None => exact_cycle(scenario, candidate, fuel, (config, detail, gas), fuel_is_base)?,
             });
         }
         let reference = output_reference_of(
@@ -392,4 +497,112 @@ impl<'s> PointModel<'s> {
         }
         Ok(())
     }
+}
+
+fn cycle_error(candidate: &Candidate, message: String) -> PointError {
+    PointError::Cycle {
+        candidate: candidate.id.clone(),
+        message,
+    }
+}
+
+/// The full solve: the machine calibrated at its rating and solved at the
+/// site and every dispatch load (or, for a candidate the fixed-machine
+/// model refuses, its design solve at the site).
+fn exact_cycle(
+    scenario: &Scenario,
+    candidate: &Candidate,
+    fuel: &Fuel,
+    (config, detail, gas): (EngineConfig, cycle::Detail, GasModel),
+    fuel_is_base: bool,
+) -> Result<CachedCycle, PointError> {
+    // The machine's calibration is its own design solve: the design
+    // cycle at the site is solved only for a candidate kept at its
+    // rating.
+    let site = match fixed_machine_site(scenario, candidate, fuel)
+        .map_err(|e| cycle_error(candidate, e.to_string()))?
+    {
+        Ok(site) => site,
+        Err(reason) => {
+            let solved = cycle::solve_detailed(&config, &detail, &gas, fuel)
+                .map_err(|e| cycle_error(candidate, e.to_string()))?;
+            rated_site(scenario, candidate, solved.heat_rate_kj_per_kwh, reason)
+        }
+    };
+    Ok(CachedCycle {
+        config,
+        detail,
+        gas,
+        fuel_is_base,
+        rating: candidate.rating,
+        control: candidate.control,
+        dispatch_loads: scenario
+            .operation
+            .dispatch
+            .iter()
+            .map(|b| b.load_fraction)
+            .collect(),
+        part_load: scenario.operation.part_load.clone(),
+        site,
+    })
+}
+
+/// A candidate's exact site at the file's values and its rating point, for
+/// [`Route::Scaled`]; `None` when it cannot be solved or is not a fixed
+/// machine (those are solved in full at every point).
+fn base_site(scenario: &Scenario, candidate: &Candidate, fuel: &Fuel) -> Option<BaseSite> {
+    let physics = (
+        engine_config_of(candidate, &scenario.site),
+        detail_of(candidate, &scenario.site),
+        gas_model_of(&candidate.gas_model),
+    );
+    let cached = exact_cycle(scenario, candidate, fuel, physics, true).ok()?;
+    if !matches!(cached.site.basis, Basis::Machine(_)) {
+        return None;
+    }
+    let machine = machine_of(candidate, &scenario.site, fuel).ok()?;
+    let rating = machine.rating_point();
+    let rated_output_kw = rating.flows.map(|f| f.net_output_kw)?;
+    let usable = |v: f64| v.is_finite() && v > 0.0;
+    if !usable(rated_output_kw) || !usable(rating.heat_rate_kj_per_kwh) {
+        return None;
+    }
+    Some(BaseSite {
+        rated_output_kw,
+        rated_heat_rate_kj_per_kwh: rating.heat_rate_kj_per_kwh,
+        cached,
+    })
+}
+
+/// [`Route::Scaled`]: the candidate's machine with engine `config`
+/// calibrated at its rating (one design solve), its site figures the base
+/// site's scaled by the rating ratios.
+fn scaled_cycle(
+    base: &BaseSite,
+    candidate: &Candidate,
+    scenario: &Scenario,
+    fuel: &Fuel,
+    config: EngineConfig,
+) -> Result<CachedCycle, PointError> {
+    let machine = machine_of(candidate, &scenario.site, fuel)
+        .map_err(|e| cycle_error(candidate, e.to_string()))?;
+    let rating = machine.rating_point();
+    let rated_output_kw = rating
+        .flows
+        .map(|f| f.net_output_kw)
+        .ok_or_else(|| cycle_error(candidate, "the rating point was not sized".into()))?;
+    let base_site = &base.cached.site;
+    let site = SitePerformance {
+        net_output_kw: base_site.net_output_kw * rated_output_kw / base.rated_output_kw,
+        heat_rate_kj_per_kwh: base_site.heat_rate_kj_per_kwh * rating.heat_rate_kj_per_kwh
+            / base.rated_heat_rate_kj_per_kwh,
+        rated_heat_rate_kj_per_kwh: rating.heat_rate_kj_per_kwh,
+        block_ratios: base_site.block_ratios.clone(),
+        basis: base_site.basis.clone(),
+    };
+    Ok(CachedCycle {
+        config,
+        site,
+        ..base.cached.clone()
+    })
 }

@@ -26,7 +26,7 @@
 pub mod statistics;
 
 use super::compare::{run_study, study_fuel};
-use super::point::{Figures, PointModel};
+use super::point::{Figures, PointModel, Route};
 use super::sampling::iman_conover::iman_conover_order;
 use super::sampling::rank_correlation::CorrelationError;
 use super::sampling::{Sampler, Streams};
@@ -152,6 +152,8 @@ pub struct RiskRun {
     pub first_redraw_reason: Option<String>,
     /// One entry per non-baseline candidate, in scenario order.
     pub candidates: Vec<CandidateRisk>,
+    /// How draws that move a candidate's engine were solved.
+    pub route: Route,
 }
 
 /// What one sample's draws came to.
@@ -184,13 +186,25 @@ impl Tally {
     }
 }
 
-/// Run `samples` Monte Carlo samples of `loaded` with `seed`. `progress`
-/// is called from the calling thread with (samples done, samples asked)
-/// after each block of samples.
+/// Run `samples` Monte Carlo samples of `loaded` with `seed` by the
+/// default route ([`Route::Scaled`]). `progress` is called from the calling
+/// thread with (samples done, samples asked) after each block of samples.
 pub fn run_risk(
     loaded: &LoadedScenario,
     samples: usize,
     seed: u64,
+    progress: &mut dyn FnMut(usize, usize),
+) -> crate::Result<RiskRun> {
+    run_risk_by(loaded, samples, seed, Route::default(), progress)
+}
+
+/// [`run_risk`] with draws that move a candidate's engine solved by
+/// `route` (`risk --exact` is [`Route::Exact`]).
+pub fn run_risk_by(
+    loaded: &LoadedScenario,
+    samples: usize,
+    seed: u64,
+    route: Route,
     progress: &mut dyn FnMut(usize, usize),
 ) -> crate::Result<RiskRun> {
     if samples == 0 || samples > MAX_SAMPLES {
@@ -221,7 +235,8 @@ pub fn run_risk(
     }
     let correlated = correlated_draws(loaded, &draws, samples, seed)?;
     let n = scenario.candidates.len();
-    let model = PointModel::new(scenario, fuel, baseline, draws.keys.clone(), vec![true; n]);
+    let model = PointModel::new(scenario, fuel, baseline, draws.keys.clone(), vec![true; n])
+        .with_route(route);
     let streams = Streams::new(seed);
     // Per sample and other candidate: net savings, break-even premium,
     // damages settled, and 1 for a shortfall beyond the tolerance (else 0).
@@ -329,6 +344,7 @@ pub fn run_risk(
         redraws: tally.redraws,
         first_redraw_reason: tally.first_reason.map(|(_, reason)| reason),
         candidates,
+        route,
     })
 }
 

@@ -20,7 +20,7 @@
 //! does not grow with the number of points.
 
 use super::compare::study_fuel;
-use super::point::{Figures, PointError, PointModel};
+use super::point::{Figures, PointError, PointModel, Route};
 use crate::scenario::LoadedScenario;
 use crate::units::{self, split_quantity, Kind, Split};
 use crate::Error;
@@ -376,11 +376,23 @@ impl SweepBlock<'_> {
     }
 }
 
-/// Run the sweep, handing each finished block to `on_block` in point
-/// order. Returns the number of points that could not be evaluated.
+/// Run the sweep by the default route ([`Route::Scaled`]), handing each
+/// finished block to `on_block` in point order. Returns the number of
+/// points that could not be evaluated.
 pub fn run_sweep(
     loaded: &LoadedScenario,
     plan: &SweepPlan,
+    on_block: &mut dyn FnMut(&SweepBlock) -> crate::Result<()>,
+) -> crate::Result<usize> {
+    run_sweep_by(loaded, plan, Route::default(), on_block)
+}
+
+/// [`run_sweep`] with points that move a candidate's engine solved by
+/// `route` (`sweep --exact` is [`Route::Exact`]).
+pub fn run_sweep_by(
+    loaded: &LoadedScenario,
+    plan: &SweepPlan,
+    route: Route,
     on_block: &mut dyn FnMut(&SweepBlock) -> crate::Result<()>,
 ) -> crate::Result<usize> {
     let scenario = &loaded.scenario;
@@ -396,7 +408,8 @@ pub fn run_sweep(
         plan.baseline,
         keys,
         evaluated,
-    );
+    )
+    .with_route(route);
     let total = plan.points();
     let block_points = BLOCK.min(total);
     let mut figures = vec![Figures::default(); block_points * n];

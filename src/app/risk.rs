@@ -4,7 +4,8 @@
 
 use super::output::{print, text_format, units_of};
 use super::progress::Progress;
-use crate::analysis::risk::{run_risk, view_of};
+use crate::analysis::point::Route;
+use crate::analysis::risk::{run_risk_by, view_of};
 use crate::cli::RiskArgs;
 use crate::report::views::{render, risk::RiskOutput};
 use crate::scenario;
@@ -14,7 +15,12 @@ use crate::Result;
 pub fn run(args: &RiskArgs) -> Result<()> {
     let loaded = scenario::load(&args.scenario)?;
     let mut progress = Progress::new(args.samples, "samples");
-    let outcome = run_risk(&loaded, args.samples, args.seed, &mut |done, total| {
+    let route = if args.exact {
+        Route::Exact
+    } else {
+        Route::Scaled
+    };
+    let outcome = run_risk_by(&loaded, args.samples, args.seed, route, &mut |done, total| {
         progress.update(done, total)
     });
     progress.finish();

@@ -8,7 +8,8 @@
 
 use super::output::{text_format, units_of};
 use super::progress::Progress;
-use crate::analysis::sweep::{plan, run_sweep, SweepBlock};
+use crate::analysis::point::Route;
+use crate::analysis::sweep::{plan, run_sweep_by, SweepBlock};
 use crate::cli::SweepArgs;
 use crate::report::views::sweep::SweepView;
 use crate::{scenario, Error, Result};
@@ -37,7 +38,12 @@ pub fn run(args: &SweepArgs) -> Result<()> {
         progress.update(block.first_point + block.len(), total);
         Ok(())
     };
-    let outcome = run_sweep(&loaded, &plan, &mut write_block);
+    let route = if args.exact {
+        Route::Exact
+    } else {
+        Route::Scaled
+    };
+    let outcome = run_sweep_by(&loaded, &plan, route, &mut write_block);
     progress.finish();
     let unsolved = outcome?;
     out.write_all(view.tail().as_bytes()).map_err(io)?;

@@ -18,6 +18,7 @@
 //! the unit system it was asked for.
 
 use super::{json_text, View};
+use crate::analysis::point::Route;
 use crate::analysis::risk::RiskRun;
 use crate::report::format::{self, grouped, money};
 use crate::report::model::{RiskCandidate, RiskView, Units};
@@ -89,6 +90,8 @@ fn document(loaded: &LoadedScenario, run: &RiskRun, view: &RiskView) -> serde_js
         })).collect::<Vec<_>>(),
         "redraws": run.redraws,
         "first_redraw_reason": run.first_redraw_reason,
+        "exact": run.route == Route::Exact,
+        "route_note": run.route.note(),
         "candidates": view.candidates,
     })
 }
@@ -189,6 +192,8 @@ fn table(loaded: &LoadedScenario, run: &RiskRun, view: &RiskView, units: Units) 
         )),
         None => out.push_str("Redrawn: none (every draw was valid)\n"),
     }
+    out.push_str(run.route.note());
+    out.push('\n');
     let mut b = Builder::default();
     b.push_record([
         "candidate",

@@ -95,10 +95,10 @@ fn check(text: &str, name: &str) {
     assert_eq!(scaled.route, Route::Scaled);
     assert_eq!(exact.route, Route::Exact);
     let errors = errors(&scaled, &exact);
-    let worst = errors
-        .iter()
-        .cloned()
-        .fold((String::new(), 0.0f64), |w, e| if e.1 > w.1 { e } else { w });
+    let worst = errors.iter().cloned().fold(
+        (String::new(), 0.0f64),
+        |w, e| if e.1 > w.1 { e } else { w },
+    );
     eprintln!("{name}: worst error {:.6} % ({})", worst.1 * 100.0, worst.0);
     for (what, error) in &errors {
         eprintln!("{name}: {what}: {:.6} %", error * 100.0);

@@ -20,9 +20,13 @@ pub fn run(args: &RiskArgs) -> Result<()> {
     } else {
         Route::Scaled
     };
-    let outcome = run_risk_by(&loaded, args.samples, args.seed, route, &mut |done, total| {
-        progress.update(done, total)
-    });
+    let outcome = run_risk_by(
+        &loaded,
+        args.samples,
+        args.seed,
+        route,
+        &mut |done, total| progress.update(done, total),
+    );
     progress.finish();
     let run = outcome?;
     let view = view_of(&run);

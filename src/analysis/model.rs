@@ -663,6 +663,7 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
             Vec::new()
         },
         risk: None,
+        site_performance: super::site_curves::site_performance_view(scenario, &study),
         candidates,
     })
 }

@@ -50,6 +50,9 @@ pub struct Model {
     pub sensitivity: Vec<SensitivityBar>,
     /// Monte Carlo summary; `None` when not run.
     pub risk: Option<RiskView>,
+    /// Each candidate's machine over temperature and load, and its year
+    /// (the "Site performance" section).
+    pub site_performance: SitePerformanceView,
 }
 
 impl Model {
@@ -670,4 +673,63 @@ pub struct Histogram {
     pub bin_width: Decimal,
     /// Count per bin.
     pub counts: Vec<u64>,
+}
+
+/// The "Site performance" section: each candidate's fixed machine over
+/// ambient temperature and load at the site's pressure and humidity, and
+/// its year as priced.
+#[derive(Debug, Clone, Default, Serialize)]
+pub struct SitePerformanceView {
+    /// Compressor inlet temperatures of the curves, K, ascending.
+    pub temperatures_k: Vec<f64>,
+    /// The site's annual mean temperature, K (marked on the charts).
+    pub site_temperature_k: f64,
+    /// Loads of the part-load curves, fractions of the site base load,
+    /// descending.
+    pub loads: Vec<f64>,
+    /// Whether the money prices part load from the scenario's
+    /// `[operation] part_load` table rather than each machine's curve.
+    pub part_load_from_table: bool,
+    /// Every candidate, in scenario order.
+    pub candidates: Vec<SiteCandidateView>,
+}
+
+/// One candidate in the "Site performance" section.
+#[derive(Debug, Clone, Default, Serialize)]
+pub struct SiteCandidateView {
+    /// Candidate id.
+    pub candidate_id: String,
+    /// Candidate label.
+    pub label: String,
+    /// Whether it is priced as a fixed machine (else at its rating, and it
+    /// has no curves).
+    pub fixed_machine: bool,
+    /// Base-load net output at each of `temperatures_k`, kW; `None` where
+    /// the machine cannot run.
+    pub output_kw: Vec<Option<f64>>,
+    /// Base-load net heat rate (LHV) at each of `temperatures_k`, kJ/kWh.
+    pub heat_rate_kj_per_kwh: Vec<Option<f64>>,
+    /// Net heat rate (LHV) at the site at each of `loads`, kJ/kWh.
+    pub part_load_heat_rate_kj_per_kwh: Vec<Option<f64>>,
+    /// Net energy in a year as priced, MWh.
+    pub energy_mwh: f64,
+    /// Fuel energy in a year as priced, GJ (LHV).
+    pub fuel_gj_lhv: f64,
+    /// Run hours in a year, h.
+    pub run_hours: f64,
+    /// Starts per year; `None` while starts are not modelled.
+    pub starts_per_year: Option<f64>,
+    /// Run hours by ambient temperature bin.
+    pub hours_by_temperature: Vec<TemperatureBinView>,
+}
+
+/// Run hours in one ambient temperature bin.
+#[derive(Debug, Clone, Copy, PartialEq, Default, Serialize)]
+pub struct TemperatureBinView {
+    /// Lower edge, K.
+    pub low_k: f64,
+    /// Upper edge, K.
+    pub high_k: f64,
+    /// Run hours in the bin per year, h.
+    pub hours: f64,
 }

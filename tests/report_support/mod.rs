@@ -401,6 +401,7 @@ pub fn model(with_sensitivity: bool, with_risk: bool) -> Model {
         },
         sensitivity,
         risk,
+        site_performance: Default::default(),
     }
 }
 

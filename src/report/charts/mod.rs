@@ -11,6 +11,7 @@ pub mod geometry;
 pub mod histogram;
 pub mod savings;
 pub mod scale;
+pub mod site;
 pub mod style;
 pub mod tornado;
 pub mod ts;

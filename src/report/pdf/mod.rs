@@ -52,6 +52,7 @@ impl PdfRenderer {
         sections::closing::cautions(&ctx, &mut composer)?;
         // The appendix: performance, assumptions, ledgers, method.
         sections::performance::performance(&ctx, &mut composer);
+        sections::site::site_performance(&ctx, &mut composer);
         sections::assumptions::assumptions(&ctx, &mut composer);
         sections::appendix::ledger(&ctx, &mut composer);
         sections::closing::closing(&ctx, &mut composer)?;

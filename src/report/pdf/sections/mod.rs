@@ -8,6 +8,7 @@ pub mod charts;
 pub mod closing;
 pub mod performance;
 pub mod risk;
+pub mod site;
 
 use super::document::{Composer, BODY_PT};
 use super::fonts::Face;

@@ -1,0 +1,154 @@
+//! What the report's "Site performance" section shows: each candidate's
+//! fixed machine ([`super::machine::machine_of`]) at base load over a range
+//! of ambient temperatures and at part load at the site, and its year as
+//! the comparison priced it.
+//!
+//! Run hours by temperature bin and starts per year come from
+//! [`operating_profile`], the one place the site's weather and starts are
+//! to be read when they are modelled; today every run hour is at the
+//! site's annual mean temperature and starts are not modelled.
+
+use super::compare::Study;
+use super::machine::{machine_of, site_ambient};
+use super::operation::AnnualOperation;
+use super::site::Basis;
+use crate::offdesign::{Ambient, Load};
+use crate::report::model::{SiteCandidateView, SitePerformanceView, TemperatureBinView};
+use crate::scenario::{Candidate, Scenario};
+
+/// Lowest ambient temperature of the curves, K (−10 °C).
+const LOWEST_K: f64 = 263.15;
+/// Step between ambient temperatures, K.
+const STEP_K: f64 = 5.0;
+/// Number of ambient temperatures (−10 °C to 45 °C).
+const TEMPERATURES: usize = 12;
+/// Loads of the part-load curves, fractions of the site base load.
+const LOADS: [f64; 7] = [1.0, 0.9, 0.8, 0.7, 0.6, 0.5, 0.4];
+/// Width of the single bin today's annual-mean site falls in, K.
+const BIN_K: f64 = 5.0;
+
+/// One candidate's year as priced: what [`operating_profile`] reads.
+#[derive(Debug, Clone, Copy)]
+pub struct CandidateYear<'a> {
+    /// The candidate.
+    pub candidate: &'a Candidate,
+    /// Its year of operation as priced (new and clean).
+    pub year: &'a AnnualOperation,
+}
+
+/// Run hours by ambient temperature and starts of one candidate's year.
+#[derive(Debug, Clone, PartialEq, Default)]
+pub struct OperatingProfile {
+    /// Run hours by temperature bin, ascending, summing to the year's run
+    /// hours.
+    pub hours_by_temperature: Vec<TemperatureBinView>,
+    /// Starts per year; `None` while starts are not modelled.
+    pub starts_per_year: Option<f64>,
+}
+
+/// Run hours by ambient temperature bin and starts per year of one
+/// candidate's year.
+///
+/// Extension point for the site's weather and starts (issue 12): when the
+/// year comes from hourly weather or temperature bins, bin its run hours
+/// here (the hours each candidate runs in each bin) and return its starts.
+/// Today the scenario has one annual-mean temperature, so every run hour
+/// falls in the one bin around it, and starts are not modelled (`None`).
+pub fn operating_profile(scenario: &Scenario, year: &CandidateYear) -> OperatingProfile {
+    let mean = scenario.site.ambient_temperature_k;
+    OperatingProfile {
+        hours_by_temperature: vec![TemperatureBinView {
+            low_k: mean - BIN_K / 2.0,
+            high_k: mean + BIN_K / 2.0,
+            hours: year.year.operating_hours,
+        }],
+        starts_per_year: None,
+    }
+}
+
+/// The ambient temperatures of the curves, K.
+pub fn curve_temperatures_k() -> Vec<f64> {
+    (0..TEMPERATURES)
+        .map(|i| LOWEST_K + STEP_K * i as f64)
+        .collect()
+}
+
+/// The section's figures for every candidate of a solved study. A point the
+/// machine cannot run at is left out of its curve (`None`); a candidate the
+/// fixed-machine model does not cover has no curves.
+pub fn site_performance_view(scenario: &Scenario, study: &Study) -> SitePerformanceView {
+    let temperatures_k = curve_temperatures_k();
+    let candidates = scenario
+        .candidates
+        .iter()
+        .zip(&study.outcomes)
+        .map(|(candidate, outcome)| {
+            let solved = &outcome.solved;
+            let fixed = matches!(solved.site.basis, Basis::Machine(_));
+            let machine = if fixed {
+                machine_of(candidate, &scenario.site, &study.fuel).ok()
+            } else {
+                None
+            };
+            let site = site_ambient(candidate, &scenario.site);
+            let base: Vec<_> = temperatures_k
+                .iter()
+                .map(|&t| {
+                    machine.as_ref().and_then(|m| {
+                        m.solve(
+                            Ambient {
+                                temperature_k: t,
+                                ..site
+                            },
+                            Load::BASE,
+                        )
+                        .ok()
+                    })
+                })
+                .collect();
+            let part_load = LOADS
+                .iter()
+                .map(|&load| {
+                    machine.as_ref().and_then(|m| {
+                        m.solve(site, Load(load))
+                            .ok()
+                            .map(|p| p.heat_rate_kj_per_kwh)
+                    })
+                })
+                .collect();
+            let profile = operating_profile(
+                scenario,
+                &CandidateYear {
+                    candidate,
+                    year: &solved.year,
+                },
+            );
+            SiteCandidateView {
+                candidate_id: candidate.id.clone(),
+                label: candidate.label.clone(),
+                fixed_machine: fixed,
+                output_kw: base
+                    .iter()
+                    .map(|p| p.as_ref().map(|p| p.net_output_kw))
+                    .collect(),
+                heat_rate_kj_per_kwh: base
+                    .iter()
+                    .map(|p| p.as_ref().map(|p| p.heat_rate_kj_per_kwh))
+                    .collect(),
+                part_load_heat_rate_kj_per_kwh: part_load,
+                energy_mwh: solved.year.energy_mwh,
+                fuel_gj_lhv: solved.year.fuel_energy_gj_lhv,
+                run_hours: solved.year.operating_hours,
+                starts_per_year: profile.starts_per_year,
+                hours_by_temperature: profile.hours_by_temperature,
+            }
+        })
+        .collect();
+    SitePerformanceView {
+        temperatures_k,
+        site_temperature_k: scenario.site.ambient_temperature_k,
+        loads: LOADS.to_vec(),
+        part_load_from_table: !scenario.operation.part_load.is_empty(),
+        candidates,
+    }
+}

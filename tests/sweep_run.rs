@@ -1,10 +1,11 @@
 //! The sweep in the library: range arithmetic in exact decimals, the same
 //! figures on 1 and 2 threads across block edges, and each point equal to
-//! a separate evaluation of the scenario set to that value.
+//! a separate evaluation of the scenario set to that value (`--exact`;
+//! the default route is held to 0.1 % of it in `tests/risk_route.rs`).
 
 use brayfin::analysis::compare::run_study;
-use brayfin::analysis::point::Figures;
-use brayfin::analysis::sweep::{parse_axis, plan, run_sweep};
+use brayfin::analysis::point::{Figures, Route};
+use brayfin::analysis::sweep::{parse_axis, plan, run_sweep_by};
 use brayfin::scenario::{parse, LoadedScenario};
 use rust_decimal::prelude::ToPrimitive;
 
@@ -18,14 +19,18 @@ fn demo() -> LoadedScenario {
 }
 
 /// Every row of a sweep: (point, candidate, figures or error text).
-fn rows(loaded: &LoadedScenario, vary: &[&str]) -> Vec<(usize, usize, Result<Figures, String>)> {
+fn rows(
+    loaded: &LoadedScenario,
+    vary: &[&str],
+    route: Route,
+) -> Vec<(usize, usize, Result<Figures, String>)> {
     let vary: Vec<String> = vary.iter().map(|s| s.to_string()).collect();
     let plan = match plan(loaded, &vary, None) {
         Ok(p) => p,
         Err(e) => panic!("{vary:?} must be a valid sweep: {e}"),
     };
     let mut out = Vec::new();
-    let outcome = run_sweep(loaded, &plan, &mut |block| {
+    let outcome = run_sweep_by(loaded, &plan, route, &mut |block| {
         for j in 0..block.len() {
             for &i in &plan.reported {
                 let figures = block.point(j).map(|f| f[i]).map_err(|e| e.to_string());
@@ -77,7 +82,7 @@ fn one_and_two_threads_give_identical_sweeps() {
             Ok(p) => p,
             Err(e) => panic!("thread pool: {e}"),
         };
-        pool.install(|| rows(&loaded, &vary))
+        pool.install(|| rows(&loaded, &vary, Route::Scaled))
     };
     let one = on(1);
     let two = on(2);
@@ -89,10 +94,15 @@ fn one_and_two_threads_give_identical_sweeps() {
 fn each_point_equals_a_study_of_the_scenario_set_to_its_value() {
     // The library route of "a sweep point equals compare": the decimal
     // study of the scenario with the key set, against the sweep's f64
-    // figures at that point (heat rate equal, money within a cent).
+    // figures at that point (heat rate equal, money within a cent), on the
+    // exact route.
     let loaded = demo();
     let key = "candidate.compressor_efficiency";
-    let swept = rows(&loaded, &["candidate.compressor_efficiency=0.84:0.90:0.02"]);
+    let swept = rows(
+        &loaded,
+        &["candidate.compressor_efficiency=0.84:0.90:0.02"],
+        Route::Exact,
+    );
     for (point, value) in [0.84, 0.86, 0.88, 0.90].into_iter().enumerate() {
         let mut edited = loaded.clone();
         if let Err(e) = edited.scenario.set_numeric(key, value) {

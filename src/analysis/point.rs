@@ -11,8 +11,9 @@
 //! ambient, rating, control, dispatch loads, part-load table) differ from
 //! the last solve in this workspace: a sample that moves only economics
 //! reuses the site output and heat rates, which are the same numbers a new
-//! solve would give; a sample that moves a component efficiency, the
-//! cooling, the site's ambient or humidity re-solves the machine in full.
+//! solve would give; a sample that moves only a component efficiency is
+//! solved by the route below; one that moves the cooling, the site's
+//! ambient or humidity re-solves the machine in full.
 //! Likewise a candidate's ledger is summed again only when its ledger
 //! inputs differ from the last ones (a sweep of one bid's figure leaves the
 //! baseline's ledger as it was).

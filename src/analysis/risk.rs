@@ -1,7 +1,8 @@
 //! Monte Carlo over the scenario's `[[uncertainty]]` distributions: each
-//! sample draws every uncertain input, re-solves every candidate's cycle and
-//! `f64` ledger, and records each candidate's net savings and break-even
-//! premium against the baseline.
+//! sample draws every uncertain input, re-solves every candidate whose
+//! physics it moves (by [`Route::Scaled`] unless `--exact`, see
+//! [`super::point`]) and its `f64` ledger, and records each candidate's net
+//! savings and break-even premium against the baseline.
 //!
 //! - Draws: sample `i` takes its numbers from stream `i` of the seed (see
 //!   [`super::sampling`]), so results are bit-identical for a seed whatever

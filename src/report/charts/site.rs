@@ -23,6 +23,9 @@ pub enum SiteCurve {
     PartLoad,
 }
 
+/// A candidate's index (for its style), view and display points.
+type Series<'m> = (usize, &'m SiteCandidateView, Vec<(f64, f64)>);
+
 /// The points (display x, display y) of one candidate's `curve`; a point
 /// the machine cannot run at is left out.
 fn points(model: &Model, c: &SiteCandidateView, curve: SiteCurve) -> Vec<(f64, f64)> {
@@ -56,7 +59,7 @@ fn points(model: &Model, c: &SiteCandidateView, curve: SiteCurve) -> Vec<(f64, f
 /// point of it.
 pub fn site_chart(model: &Model, labels: &Labels, curve: SiteCurve, area: Rect) -> Option<Chart> {
     let units = model.meta.units;
-    let series: Vec<(usize, &SiteCandidateView, Vec<(f64, f64)>)> = model
+    let series: Vec<Series> = model
         .site_performance
         .candidates
         .iter()

@@ -1,5 +1,7 @@
-//! `brayfin sweep` end to end: a sweep point equals a `compare` run of the
-//! scenario file edited to that value; grids in long format, first key
+//! `brayfin sweep` end to end: a sweep point with `--exact` equals a
+//! `compare` run of the scenario file edited to that value, and by the
+//! default route (engine moves scaled from a re-solved rating point) is
+//! within 0.1 % of it; grids in long format, first key
 //! slowest; unsolvable points reported in their rows; bad ranges refused
 //! with exit code 1.
 
@@ -62,12 +64,14 @@ fn check_range_against_compare(key: &str, range: &str, from: &str, to: &str) {
     let path_text = path.to_string_lossy().to_string();
     let compared = json_of(&["compare", &path_text, "--format", "json"]);
     let vary = format!("{key}={range}");
-    let swept = json_of(&["sweep", DEMO, "--vary", &vary, "--format", "json"]);
-    let rows = swept["rows"].as_array().cloned().unwrap_or_default();
     let candidates = compared["candidates"]
         .as_array()
         .cloned()
         .unwrap_or_default();
+    let exact = json_of(&[
+        "sweep", DEMO, "--vary", &vary, "--format", "json", "--exact",
+    ]);
+    let rows = exact["rows"].as_array().cloned().unwrap_or_default();
     assert_eq!(rows.len(), candidates.len());
     for (row, c) in rows.iter().zip(&candidates) {
         assert_eq!(row["candidate_id"], c["id"]);
@@ -83,29 +87,7 @@ fn check_range_against_compare(key: &str, range: &str, from: &str, to: &str) {
         // rounded to the cent; the ledgers agree to about 1e-8 of a unit,
         // so the printed cents agree, or differ by one cent when a value
         // sits on a half-cent boundary.
-        let e = &c["economics"];
-        for (name, swept, compared) in [
-            (
-                "lifecycle cost",
-                &row["lifecycle_cost"],
-                &e["lifecycle_cost"],
-            ),
-            (
-                "net savings",
-                &row["net_savings"],
-                &e["net_savings_vs_baseline"],
-            ),
-            (
-                "break-even premium",
-                &row["break_even_premium"],
-                &e["break_even_premium"],
-            ),
-        ] {
-            if compared.is_null() {
-                assert!(swept.is_null(), "{key}: {name} of {}", c["id"]);
-                continue;
-            }
-            let (s, k) = (amount(swept), amount(compared));
+        for (name, s, k, _) in money(row, c) {
             assert!(
                 (s - k).abs() <= 0.010_000_1,
                 "{key}: {name} of {}: sweep {s}, compare {k}",
@@ -113,6 +95,57 @@ fn check_range_against_compare(key: &str, range: &str, from: &str, to: &str) {
             );
         }
     }
+    // The default route: within 0.1 % (issue 12) of the exact figures;
+    // money on the scale of the candidate's lifecycle cost, since net
+    // savings and the break-even premium can sit near zero.
+    let scaled = json_of(&["sweep", DEMO, "--vary", &vary, "--format", "json"]);
+    let rows = scaled["rows"].as_array().cloned().unwrap_or_default();
+    assert_eq!(rows.len(), candidates.len());
+    for (row, c) in rows.iter().zip(&candidates) {
+        assert_eq!(row["error"], Value::Null);
+        let (s, k) = (
+            row["heat_rate_kj_per_kwh"].as_f64().unwrap_or(f64::NAN),
+            c["performance"]["heat_rate_kj_per_kwh"]
+                .as_f64()
+                .unwrap_or(f64::NAN),
+        );
+        assert!(
+            (s / k - 1.0).abs() <= 1e-3,
+            "{key}: heat rate {s} against {k}"
+        );
+        for (name, s, k, scale) in money(row, c) {
+            assert!(
+                (s - k).abs() <= 1e-3 * scale,
+                "{key}: {name} of {}: sweep {s}, compare {k}",
+                c["id"]
+            );
+        }
+    }
+}
+
+/// (figure, swept, compared, the candidate's lifecycle cost) for each money
+/// figure `compare` gives the candidate.
+fn money(row: &Value, c: &Value) -> Vec<(&'static str, f64, f64, f64)> {
+    let e = &c["economics"];
+    let scale = amount(&e["lifecycle_cost"]).abs();
+    [
+        ("lifecycle cost", "lifecycle_cost", "lifecycle_cost"),
+        ("net savings", "net_savings", "net_savings_vs_baseline"),
+        (
+            "break-even premium",
+            "break_even_premium",
+            "break_even_premium",
+        ),
+    ]
+    .into_iter()
+    .filter_map(|(name, swept, compared)| {
+        if e[compared].is_null() {
+            assert!(row[swept].is_null(), "{name} of {}", c["id"]);
+            return None;
+        }
+        Some((name, amount(&row[swept]), amount(&e[compared]), scale))
+    })
+    .collect()
 }
 
 #[test]

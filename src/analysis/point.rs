@@ -168,7 +168,7 @@ impl Route {
                 "Route: a draw that moves a bid's engine (efficiencies, regenerator) re-solves \
                  its rating point and scales the site output and heat rate, solved once at the \
                  file's values, by the rating ratios (largest error measured against --exact on \
-                 the two demos: 0.053 %, 2 000 samples); --exact re-solves every machine in full"
+                 the two demos: 0.053\u{a0}%, 2\u{a0}000 samples); --exact re-solves every machine in full"
             }
             Route::Exact => {
                 "Route: exact (every draw that moves a bid's engine re-calibrates its machine \

@@ -532,6 +532,7 @@ pub fn view_of(run: &RiskRun) -> RiskView {
         seed: run.seed,
         redraws: run.redraws,
         first_redraw_reason: run.first_redraw_reason.clone(),
+        route_note: run.route.note().to_string(),
         candidates: run
             .candidates
             .iter()

@@ -616,6 +616,9 @@ pub struct RiskView {
     pub redraws: u64,
     /// Why the first redrawn draw was refused, when any was.
     pub first_redraw_reason: Option<String>,
+    /// How draws that move a bid's engine were solved, and the route's
+    /// measured error (one line).
+    pub route_note: String,
     /// One entry per non-baseline candidate.
     pub candidates: Vec<RiskCandidate>,
 }

@@ -266,6 +266,7 @@ pub fn model(with_sensitivity: bool, with_risk: bool) -> Model {
         seed: 1,
         redraws: 0,
         first_redraw_reason: None,
+        route_note: "Route: invented fixture text.".into(),
         candidates: ["hx", "regen"]
             .iter()
             .map(|id| RiskCandidate {

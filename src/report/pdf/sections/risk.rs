@@ -97,6 +97,7 @@ pub fn risk(ctx: &Ctx, composer: &mut Composer) {
             0.0,
         );
     }
+    composer.paragraph(&risk.route_note, 9.0, Face::Regular, 0.0);
     composer.paragraph(&l.risk_note, 9.0, Face::Regular, 0.0);
     let columns = vec![
         Column::left(l.candidate.clone()),

@@ -14,6 +14,8 @@ use crate::report::pdf::table::{draw_table, Column, TableStyle};
 
 /// Height of each chart, mm.
 const CHART_MM: f32 = 95.0;
+/// Smallest chart worth drawing, mm.
+const MIN_CHART_MM: f32 = 70.0;
 /// Gap after each chart, mm.
 const GAP_MM: f32 = 6.0;
 /// Size of the notes, pt.
@@ -39,10 +41,14 @@ pub fn site_performance(ctx: &Ctx, composer: &mut Composer) {
     }
     composer.gap(2.0);
     for curve in [SiteCurve::Output, SiteCurve::HeatRate, SiteCurve::PartLoad] {
-        if composer.remaining_mm() < CHART_MM + GAP_MM {
+        // A chart takes what is left of the page down to its smallest
+        // readable height, else starts the next page.
+        let mut height = CHART_MM.min(composer.remaining_mm() - GAP_MM - 0.5);
+        if height < MIN_CHART_MM {
             composer.new_page(Orientation::Portrait);
+            height = CHART_MM;
         }
-        let area = composer.reserve(CHART_MM);
+        let area = composer.reserve(height);
         if let Some(chart) = site_chart(model, l, curve, area) {
             for mark in chart.marks {
                 composer.push(mark);

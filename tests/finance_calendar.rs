@@ -119,6 +119,8 @@ fn degradation_and_overhauls_hand_computed() {
     };
     inputs.overhaul = Some(Overhaul {
         interval_hours: 16_000.0,
+        hours_per_start: 0.0,
+        interval_starts: None,
         cost: dec("500000.00"),
         escalation: 0.0,
     });

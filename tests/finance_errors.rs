@@ -77,6 +77,8 @@ fn overhaul_interval_must_be_positive() {
         let mut inputs = busy_inputs();
         inputs.overhaul = Some(Overhaul {
             interval_hours: interval,
+            hours_per_start: 0.0,
+            interval_starts: None,
             cost: dec("1.00"),
             escalation: 0.0,
         });

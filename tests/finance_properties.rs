@@ -15,7 +15,7 @@ use brayfin::finance::{
     build_ledger, compare_summaries, summarize_ledger, AcceptanceSettlement, Capital,
     CapitalPayment, Carbon, Degradation, EscalatingPrice, Fuel, FuelPrice, LedgerInputs, Money,
     Operation, Overhaul, PriceBasis, RateBasis, Rates, Replacement, Residual, ResidualValue,
-    Timing,
+    ServiceFees, Starts, Timing,
 };
 use chrono::{Days, Months};
 use finance_support::date;
@@ -82,6 +82,7 @@ prop_compose! {
                 energy_mwh,
                 fuel_energy_gj_lhv: energy_mwh * heat_rate_kj_per_kwh / 1000.0,
                 net_output_kw,
+                starts_per_year: 0.0,
             },
             fuel: Fuel {
                 price: FuelPrice::Escalating { price_per_gj: cents(fuel_price), escalation: escalations[0] },
@@ -91,8 +92,12 @@ prop_compose! {
             carbon: Carbon { co2_kg_per_gj_lhv: 56.1, price_per_tonne: cents(carbon_price), escalation: escalations[1] },
             fixed_om: EscalatingPrice { price: cents(om_prices.0), escalation: escalations[2] },
             variable_om: EscalatingPrice { price: cents(om_prices.1), escalation: escalations[3] },
+            starts: Starts::default(),
+            service: ServiceFees::default(),
             overhaul: overhaul_interval.map(|interval_hours| Overhaul {
                 interval_hours,
+                hours_per_start: 0.0,
+                interval_starts: None,
                 cost: cents(overhaul_cost),
                 escalation: escalations[4],
             }),

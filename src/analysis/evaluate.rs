@@ -9,7 +9,7 @@ use super::site::{site_performance, SiteError, SitePerformance};
 use crate::cycle::{self, CycleResult};
 use crate::finance::{
     self, Capital, CapitalPayment, Carbon, Degradation, EscalatingPrice, FuelPrice, LedgerInputs,
-    Overhaul, Rates, Replacement, Residual,
+    Overhaul, Rates, Replacement, Residual, ServiceFees, Starts,
 };
 use crate::fuel::Fuel;
 use crate::scenario::{
@@ -165,6 +165,15 @@ fn replacement(
     }
 }
 
+/// A price constant in the analysis basis's money (like the candidates' O&M
+/// prices).
+fn constant(price: Decimal) -> EscalatingPrice<Decimal> {
+    EscalatingPrice {
+        price,
+        escalation: 0.0,
+    }
+}
+
 /// The ledger inputs of a candidate whose year of operation is `year` and
 /// base-load output at the site `site_output_kw`, levelled on output to
 /// `reference` (an output replacement stream for its shortfall in energy
@@ -226,6 +235,7 @@ pub fn ledger_inputs(
             energy_mwh: year.energy_mwh,
             fuel_energy_gj_lhv: year.fuel_energy_gj_lhv,
             net_output_kw: candidate.net_output_kw,
+            starts_per_year: scenario.operation.starts_per_year,
         },
         fuel: finance::Fuel {
             price,
@@ -248,8 +258,18 @@ pub fn ledger_inputs(
             price: costs.variable_om_per_mwh,
             escalation: 0.0,
         },
+        starts: Starts {
+            fuel_gj_lhv_per_start: costs.start_fuel_gj,
+            cost_per_start: constant(costs.start_cost),
+        },
+        service: ServiceFees {
+            per_fired_hour: constant(costs.service_fee_per_fired_hour),
+            per_start: constant(costs.service_fee_per_start),
+        },
         overhaul: (costs.overhaul_interval_hours > 0.0).then_some(Overhaul {
             interval_hours: costs.overhaul_interval_hours,
+            hours_per_start: costs.hours_per_start,
+            interval_starts: (costs.overhaul_starts > 0.0).then_some(costs.overhaul_starts),
             cost: costs.overhaul_cost,
             escalation: 0.0,
         }),

@@ -103,6 +103,7 @@ pub(crate) fn single_date_row<M: Money>(kind: RowKind, date: NaiveDate, time: f6
         cash_time_years: time,
         operating_hours: 0.0,
         energy_mwh: 0.0,
+        starts: 0.0,
         fuel_energy_gj: 0.0,
         overhaul_count: 0,
         fuel_cost: M::ZERO,

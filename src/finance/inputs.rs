@@ -36,6 +36,12 @@ pub struct LedgerInputs<M: Money = Decimal> {
     pub fixed_om: EscalatingPrice<M>,
     /// Variable O&M: price per MWh generated, escalating.
     pub variable_om: EscalatingPrice<M>,
+    /// Starts: fuel and cost per start (the count is
+    /// [`Operation::starts_per_year`]). Zero, the default: nothing charged.
+    pub starts: Starts<M>,
+    /// Service-agreement fees per fired hour and per start (zero, the
+    /// default: none).
+    pub service: ServiceFees<M>,
     /// Major overhauls, if any are charged.
     pub overhaul: Option<Overhaul<M>>,
     /// Heat-rate degradation and its recovery at overhauls.
@@ -81,6 +87,54 @@ pub struct Operation {
     pub fuel_energy_gj_lhv: f64,
     /// Net electrical output, kW (the basis of fixed O&M).
     pub net_output_kw: f64,
+    /// Starts per full year, 0 or more (spread evenly over the year like the
+    /// operating hours).
+    pub starts_per_year: f64,
+}
+
+/// What each start costs besides the fired hours.
+///
+/// Start fuel is fuel: it is priced on the fuel's basis and price (path or
+/// escalation) and carries its carbon, and it is not degraded (it is a
+/// quantity per start, not per MWh). The start cost is an O&M charge,
+/// counted in the variable O&M column.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Starts<M: Money = Decimal> {
+    /// Fuel energy burned per start, GJ on the lower heating value basis
+    /// (≥ 0).
+    pub fuel_gj_lhv_per_start: f64,
+    /// Cost per start at the base date, and its escalation.
+    pub cost_per_start: EscalatingPrice<M>,
+}
+
+impl<M: Money> Default for Starts<M> {
+    /// No start fuel and no start cost.
+    fn default() -> Self {
+        Starts {
+            fuel_gj_lhv_per_start: 0.0,
+            cost_per_start: EscalatingPrice::ZERO,
+        }
+    }
+}
+
+/// Fees of a long-term service agreement, counted in the variable O&M
+/// column: a fee per fired (operating) hour and a fee per start.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct ServiceFees<M: Money = Decimal> {
+    /// Fee per fired hour at the base date, and its escalation.
+    pub per_fired_hour: EscalatingPrice<M>,
+    /// Fee per start at the base date, and its escalation.
+    pub per_start: EscalatingPrice<M>,
+}
+
+impl<M: Money> Default for ServiceFees<M> {
+    /// No fees.
+    fn default() -> Self {
+        ServiceFees {
+            per_fired_hour: EscalatingPrice::ZERO,
+            per_start: EscalatingPrice::ZERO,
+        }
+    }
 }
 
 /// Heating-value basis on which a fuel price is quoted.
@@ -142,6 +196,14 @@ pub struct EscalatingPrice<M: Money = Decimal> {
     pub escalation: f64,
 }
 
+impl<M: Money> EscalatingPrice<M> {
+    /// A zero price that does not escalate.
+    pub const ZERO: EscalatingPrice<M> = EscalatingPrice {
+        price: M::ZERO,
+        escalation: 0.0,
+    };
+}
+
 /// Output levelling ("replacement") stream: what a candidate that delivers
 /// less than the reference output pays to buy the shortfall elsewhere, so
 /// that candidates of different output are compared on equal deliveries
@@ -186,15 +248,32 @@ impl<M: Money> Default for Replacement<M> {
     }
 }
 
-/// Major overhauls, triggered by accumulated operating hours.
+/// Major overhauls, triggered by equivalent operating hours or by starts,
+/// whichever comes first.
 ///
-/// One is charged each time accumulated hours reach a whole multiple of the
-/// interval strictly before the end of the service life; an overhaul falling
-/// exactly at the end of life is not charged (the unit retires instead).
+/// Equivalent operating hours (EOH) = operating hours + starts ×
+/// `hours_per_start` (common practice in gas-turbine maintenance
+/// contracts). Hours and starts both accrue evenly over the year, so the
+/// two limits fall due at fixed intervals of operating time, and the
+/// earlier governs: an overhaul every
+/// `min(interval_hours / (H + S·hours_per_start), interval_starts / S)`
+/// years at `H` hours and `S` starts a year (see
+/// [`Overhaul::operating_hours_between`]); each overhaul resets both counts.
+/// With no starts this is the plain operating-hours interval.
+///
+/// One is charged each time accumulated operating hours reach a whole
+/// multiple of that interval strictly before the end of the service life; an
+/// overhaul falling exactly at the end of life is not charged (the unit
+/// retires instead).
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Overhaul<M: Money = Decimal> {
-    /// Operating hours between overhauls; must be positive.
+    /// Equivalent operating hours between overhauls; must be positive.
     pub interval_hours: f64,
+    /// Equivalent operating hours counted per start (0 or more; 0: starts
+    /// add nothing to the hours).
+    pub hours_per_start: f64,
+    /// Starts between overhauls, if starts limit them (positive).
+    pub interval_starts: Option<f64>,
     /// Cost of one overhaul at the base date.
     pub cost: M,
     /// Escalation per year on the analysis basis.
@@ -295,6 +374,32 @@ impl<M: Money> Capital<M> {
     }
 }
 
+impl<M: Money> Overhaul<M> {
+    /// Operating (fired) hours between overhauls for a year of `operation`:
+    /// the equivalent-hours interval over the equivalent hours per fired
+    /// hour, or the starts interval over the starts per fired hour, whichever
+    /// is shorter. `None` when the unit does not run (no hours, so nothing
+    /// wears).
+    ///
+    /// Example (hand-worked): 500 h and 150 starts a year at 20 h per start
+    /// is 3 500 EOH a year; a 24 000 EOH interval falls every 6.857 years,
+    /// i.e. every 3 428.6 fired hours. A 900-start limit falls every 6 years
+    /// (3 000 fired hours) and governs.
+    pub fn operating_hours_between(&self, operation: &Operation) -> Option<f64> {
+        let hours = operation.operating_hours;
+        if hours <= 0.0 {
+            return None;
+        }
+        let starts_per_hour = operation.starts_per_year / hours;
+        let by_hours = self.interval_hours / (1.0 + starts_per_hour * self.hours_per_start);
+        let by_starts = match self.interval_starts {
+            Some(starts) if starts_per_hour > 0.0 => starts / starts_per_hour,
+            _ => f64::INFINITY,
+        };
+        Some(by_hours.min(by_starts))
+    }
+}
+
 impl<M: Money> LedgerInputs<M> {
     /// The same inputs with every money value converted by `convert`, e.g.
     /// `Decimal` inputs to `f64` for sampling (see [`LedgerInputs::to_f64`]).
@@ -348,8 +453,18 @@ impl<M: Money> LedgerInputs<M> {
             },
             fixed_om: escalating(&self.fixed_om),
             variable_om: escalating(&self.variable_om),
+            starts: Starts {
+                fuel_gj_lhv_per_start: self.starts.fuel_gj_lhv_per_start,
+                cost_per_start: escalating(&self.starts.cost_per_start),
+            },
+            service: ServiceFees {
+                per_fired_hour: escalating(&self.service.per_fired_hour),
+                per_start: escalating(&self.service.per_start),
+            },
             overhaul: self.overhaul.map(|o| Overhaul {
                 interval_hours: o.interval_hours,
+                hours_per_start: o.hours_per_start,
+                interval_starts: o.interval_starts,
                 cost: convert(o.cost),
                 escalation: o.escalation,
             }),

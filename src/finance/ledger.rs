@@ -54,7 +54,10 @@ pub struct LedgerRow<M: Money = Decimal> {
     pub operating_hours: f64,
     /// Net energy generated in the period, MWh.
     pub energy_mwh: f64,
-    /// Fuel energy burned in the period including degradation, GJ (LHV).
+    /// Starts in the period.
+    pub starts: f64,
+    /// Fuel energy burned in the period including degradation and start
+    /// fuel, GJ (LHV).
     pub fuel_energy_gj: f64,
     /// Overhauls done in the period.
     pub overhaul_count: u32,

@@ -67,7 +67,7 @@ pub use guarantee::{
 };
 pub use inputs::{
     Capital, CapitalPayment, Carbon, Degradation, EscalatingPrice, Fuel, FuelPrice, LedgerInputs,
-    Operation, Overhaul, PriceBasis, Replacement, Residual, ResidualValue,
+    Operation, Overhaul, PriceBasis, Replacement, Residual, ResidualValue, ServiceFees, Starts,
 };
 pub use ledger::{Analysis, Ledger, LedgerRow, LedgerSummary, RowKind, StreamTotals};
 pub use money::{

@@ -16,6 +16,9 @@ const CARBON_COST: &str = "carbon cost";
 const FIXED_OM: &str = "fixed O&M";
 const VARIABLE_OM: &str = "variable O&M";
 const OVERHAUL_COST: &str = "overhaul cost";
+const START_COST: &str = "start cost";
+const SERVICE_PER_HOUR: &str = "service fee per fired hour";
+const SERVICE_PER_START: &str = "service fee per start";
 const REPLACEMENT_ENERGY: &str = "output replacement energy";
 const REPLACEMENT_CAPACITY: &str = "output replacement capacity";
 
@@ -176,6 +179,48 @@ impl<M: Money> OptionalStream<M> {
             None => Ok(M::ZERO),
         }
     }
+
+    /// `sum` plus [`Stream::cost`]; `sum` itself, untouched, when the stream
+    /// is off (so a ledger without the stream is exactly what it was).
+    fn add_cost(
+        &mut self,
+        sum: M,
+        quantity: f64,
+        step_years: f64,
+        discount: f64,
+        year: i32,
+    ) -> Result<M, FinanceError> {
+        match &mut self.0 {
+            Some(stream) => {
+                let cost = stream.cost(quantity, step_years, discount, year)?;
+                add(sum, cost, stream.name, year)
+            }
+            None => Ok(sum),
+        }
+    }
+
+    /// `sum` plus [`Stream::present_value`]; `sum` when the stream is off.
+    fn add_present_value(&self, sum: M, year: i32) -> Result<M, FinanceError> {
+        match &self.0 {
+            Some(stream) => add(sum, stream.present_value(year)?, stream.name, year),
+            None => Ok(sum),
+        }
+    }
+}
+
+/// A stream that is on when its price is not zero and its yearly quantity
+/// is positive.
+fn priced_stream<M: Money>(
+    name: &'static str,
+    price: &super::inputs::EscalatingPrice<M>,
+    quantity_per_year: f64,
+) -> OptionalStream<M> {
+    OptionalStream::new(
+        price.price != M::ZERO && quantity_per_year > 0.0,
+        name,
+        price.price,
+        price.escalation,
+    )
 }
 
 /// Positive quantities below this always convert to money (finite, and
@@ -231,7 +276,20 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
         operation.operating_hours,
         inputs.degradation.heat_rate_fraction_per_year,
         inputs.degradation.recoverable_fraction,
-        overhaul.map(|o| o.interval_hours),
+        overhaul.and_then(|o| o.operating_hours_between(operation)),
+    );
+    let starts_per_year = operation.starts_per_year;
+    let start_fuel_per_year = starts_per_year * inputs.starts.fuel_gj_lhv_per_start;
+    let mut start_cost = priced_stream(START_COST, &inputs.starts.cost_per_start, starts_per_year);
+    let mut service_per_hour = priced_stream(
+        SERVICE_PER_HOUR,
+        &inputs.service.per_fired_hour,
+        operation.operating_hours,
+    );
+    let mut service_per_start = priced_stream(
+        SERVICE_PER_START,
+        &inputs.service.per_start,
+        starts_per_year,
     );
     let (first_year, last_year) = calendar.operating_years();
     let mut fuel = match &inputs.fuel.price {
@@ -287,7 +345,13 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
         let operating_hours = operation.operating_hours * fraction;
         let energy_mwh = operation.energy_mwh * fraction;
         let wear = wear.row(from_hours, to_hours, index == last_index);
-        let fuel_energy_gj = operation.fuel_energy_gj_lhv * fraction * wear.heat_rate_multiplier;
+        let mut fuel_energy_gj =
+            operation.fuel_energy_gj_lhv * fraction * wear.heat_rate_multiplier;
+        if start_fuel_per_year > 0.0 {
+            // Start fuel: burned per start, not degraded.
+            fuel_energy_gj += start_fuel_per_year * fraction;
+        }
+        let starts = starts_per_year * fraction;
         let overhaul_count = wear.overhaul_count;
 
         // Quantities meet prices.
@@ -308,6 +372,12 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
             year,
         )?;
         let variable_om = variable_om.cost(energy_mwh, step, discount_value, year)?;
+        // Starts and service-agreement fees are variable O&M.
+        let variable_om = start_cost.add_cost(variable_om, starts, step, discount_value, year)?;
+        let variable_om =
+            service_per_hour.add_cost(variable_om, operating_hours, step, discount_value, year)?;
+        let variable_om =
+            service_per_start.add_cost(variable_om, starts, step, discount_value, year)?;
         let overhaul = overhauls.cost(f64::from(overhaul_count), step, discount_value, year)?;
         // Output replacement: energy pro rata like energy, capacity like
         // fixed O&M.
@@ -358,6 +428,7 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
             cash_time_years,
             operating_hours,
             energy_mwh,
+            starts,
             fuel_energy_gj,
             overhaul_count,
             fuel_cost,
@@ -378,7 +449,11 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
         fuel_cost: fuel.present_value(last_year)?,
         carbon_cost: carbon_cost.present_value(last_year)?,
         fixed_om: fixed_om.present_value(last_year)?,
-        variable_om: variable_om.present_value(last_year)?,
+        variable_om: [&start_cost, &service_per_hour, &service_per_start]
+            .into_iter()
+            .try_fold(variable_om.present_value(last_year)?, |sum, stream| {
+                stream.add_present_value(sum, last_year)
+            })?,
         overhaul: overhauls.present_value(last_year)?,
         replacement: add(
             replacement_energy.present_value(last_year)?,

@@ -104,6 +104,35 @@ impl<M: Money> LedgerInputs<M> {
         )?;
         check_money("carbon.price_per_tonne", self.carbon.price_per_tonne)?;
         check_rate("carbon.escalation", self.carbon.escalation)?;
+        check_range(
+            "operation.starts_per_year",
+            op.starts_per_year,
+            0.0,
+            f64::MAX,
+            NON_NEGATIVE,
+        )?;
+        check_range(
+            "starts.fuel_gj_lhv_per_start",
+            self.starts.fuel_gj_lhv_per_start,
+            0.0,
+            f64::MAX,
+            NON_NEGATIVE,
+        )?;
+        check_money("starts.cost_per_start", self.starts.cost_per_start.price)?;
+        check_rate(
+            "starts.cost_per_start.escalation",
+            self.starts.cost_per_start.escalation,
+        )?;
+        check_money("service.per_fired_hour", self.service.per_fired_hour.price)?;
+        check_rate(
+            "service.per_fired_hour.escalation",
+            self.service.per_fired_hour.escalation,
+        )?;
+        check_money("service.per_start", self.service.per_start.price)?;
+        check_rate(
+            "service.per_start.escalation",
+            self.service.per_start.escalation,
+        )?;
         check_money("fixed_om.price", self.fixed_om.price)?;
         check_rate("fixed_om.escalation", self.fixed_om.escalation)?;
         check_money("variable_om.price", self.variable_om.price)?;
@@ -115,6 +144,22 @@ impl<M: Money> LedgerInputs<M> {
                     value: overhaul.interval_hours,
                     valid: "a finite number of operating hours greater than 0",
                 });
+            }
+            check_range(
+                "overhaul.hours_per_start",
+                overhaul.hours_per_start,
+                0.0,
+                f64::MAX,
+                NON_NEGATIVE,
+            )?;
+            if let Some(starts) = overhaul.interval_starts {
+                if !(starts.is_finite() && starts > 0.0) {
+                    return Err(FinanceError::OutOfRange {
+                        field: "overhaul.interval_starts",
+                        value: starts,
+                        valid: "a finite number of starts greater than 0",
+                    });
+                }
             }
             check_money("overhaul.cost", overhaul.cost)?;
             check_rate("overhaul.escalation", overhaul.escalation)?;

@@ -238,6 +238,8 @@ pub struct Operation {
     /// Operating hours per year, in (0, 8784]. With a dispatch profile it
     /// equals the sum of the profile's hours.
     pub hours_per_year: f64,
+    /// Starts per year, 0 or more.
+    pub starts_per_year: f64,
     /// Dispatch profile; empty means every hour at full load.
     pub dispatch: Vec<DispatchBlock>,
     /// Part-load curve sorted by ascending load, ending at (1.0, 1.0); empty

@@ -7,7 +7,11 @@
 //!   × (1 + escalation)^cash time, or the year's price from the path;
 //! - carbon = fuel energy × kg CO2/GJ ÷ 1000 × carbon price escalated;
 //! - fixed O&M = rated kW × share of the year × price per kW-yr;
-//! - variable O&M = MWh × price per MWh; overhauls = count × cost;
+//! - fuel energy = year's fuel × share of the year × degradation multiplier
+//!   + starts per year × share of the year × start fuel;
+//! - variable O&M = MWh × price per MWh + fired hours × service fee per hour
+//!   + starts × (start cost + service fee per start); overhauls = count ×
+//!   cost (the counts, due on equivalent hours or starts, are constants);
 //! - output replacement = shortfall × share of the year × value;
 //! - discount factor = (1 + rate)^−cash time; present value = total × factor.
 //!
@@ -313,19 +317,23 @@ impl LedgerSheet<'_> {
             &s.number.formula,
         )?;
         let new_and_clean = inputs.operation.fuel_energy_gj_lhv * fraction;
+        let start_fuel =
+            inputs.operation.starts_per_year * inputs.starts.fuel_gj_lhv_per_start * fraction;
         let multiplier = if new_and_clean > 0.0 {
-            row.fuel_energy_gj / new_and_clean
+            (row.fuel_energy_gj - start_fuel) / new_and_clean
         } else {
             1.0
         };
+        let starts = format!("{}*{frac}", n.name("StartsPerYear"));
         cells.number(r, col::MULTIPLIER, multiplier, &s.factor.computed)?;
         cells.formula(
             r,
             col::FUEL_GJ,
             &format!(
-                "={}*{frac}*{}",
+                "={}*{frac}*{}+{starts}*{}",
                 n.name("AnnualFuelGj"),
-                at(r, col::MULTIPLIER)
+                at(r, col::MULTIPLIER),
+                n.name("StartFuelGj")
             ),
             row.fuel_energy_gj,
             &s.number.formula,
@@ -365,7 +373,15 @@ impl LedgerSheet<'_> {
         cells.formula(
             r,
             col::FUEL + 3,
-            &format!("={}*{}", at(r, col::ENERGY), n.name("VariableOm")),
+            &format!(
+                "={}*{}+{}*{}+{starts}*({}+{})",
+                at(r, col::ENERGY),
+                n.name("VariableOm"),
+                at(r, col::HOURS),
+                n.name("ServicePerHour"),
+                n.name("StartCost"),
+                n.name("ServicePerStart")
+            ),
             f(row.variable_om),
             m,
         )?;

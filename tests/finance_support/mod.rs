@@ -5,7 +5,7 @@
 use brayfin::finance::{
     AcceptanceSettlement, Capital, Carbon, Degradation, EscalatingPrice, Fuel, FuelPrice,
     LedgerInputs, Operation, PriceBasis, RateBasis, Rates, Replacement, Residual, ResidualValue,
-    Timing,
+    ServiceFees, Starts, Timing,
 };
 use chrono::NaiveDate;
 use rust_decimal::Decimal;
@@ -39,6 +39,7 @@ pub fn empty_inputs(service_life_years: u32, discount_rate: f64) -> LedgerInputs
             energy_mwh: 0.0,
             fuel_energy_gj_lhv: 0.0,
             net_output_kw: 0.0,
+            starts_per_year: 0.0,
         },
         fuel: Fuel {
             price: FuelPrice::Escalating {
@@ -61,6 +62,8 @@ pub fn empty_inputs(service_life_years: u32, discount_rate: f64) -> LedgerInputs
             price: Decimal::ZERO,
             escalation: 0.0,
         },
+        starts: Starts::default(),
+        service: ServiceFees::default(),
         overhaul: None,
         degradation: Degradation::default(),
         residual: Residual {
@@ -106,6 +109,7 @@ pub fn busy_inputs() -> LedgerInputs {
             energy_mwh: 300_000.0,
             fuel_energy_gj_lhv: 2_850_000.0,
             net_output_kw: 50_000.0,
+            starts_per_year: 0.0,
         },
         fuel: Fuel {
             price: FuelPrice::Escalating {
@@ -128,8 +132,12 @@ pub fn busy_inputs() -> LedgerInputs {
             price: dec("3.20"),
             escalation: 0.004,
         },
+        starts: Starts::default(),
+        service: ServiceFees::default(),
         overhaul: Some(Overhaul {
             interval_hours: 24_000.0,
+            hours_per_start: 0.0,
+            interval_starts: None,
             cost: dec("2400000.00"),
             escalation: 0.01,
         }),
@@ -166,6 +174,8 @@ pub fn busy_baseline() -> LedgerInputs {
     inputs.operation.fuel_energy_gj_lhv = 3_120_000.0;
     inputs.overhaul = Some(Overhaul {
         interval_hours: 20_000.0,
+        hours_per_start: 0.0,
+        interval_starts: None,
         cost: dec("2100000.00"),
         escalation: 0.01,
     });

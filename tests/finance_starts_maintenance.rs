@@ -1,0 +1,272 @@
+//! Starts, start fuel, service-agreement fees and overhauls due on
+//! equivalent operating hours or starts, checked against hand-worked
+//! examples and identities.
+//!
+//! Equivalent operating hours (EOH) = fired hours + starts × hours per start,
+//! an overhaul falling due at the EOH interval or the starts interval,
+//! whichever comes first, is common practice in gas-turbine maintenance
+//! contracts (the counting rule; the figures below are invented and worked
+//! by hand in each test).
+
+mod finance_support;
+
+use brayfin::finance::{
+    build_ledger, summarize_ledger, Degradation, EscalatingPrice, FuelPrice, LedgerInputs,
+    Overhaul, PriceBasis, RowKind,
+};
+use finance_support::{busy_inputs, dec, empty_inputs};
+use rust_decimal::Decimal;
+
+/// A peaker: 500 fired hours and 150 starts a year, calendar-year rows
+/// (commercial operation on 1 January), 20 years, an overhaul interval of
+/// 24 000 EOH at 20 EOH per start.
+fn peaker(overhaul_starts: Option<f64>) -> LedgerInputs {
+    let mut inputs = empty_inputs(20, 0.07);
+    inputs.operation.operating_hours = 500.0;
+    inputs.operation.starts_per_year = 150.0;
+    inputs.operation.energy_mwh = 500.0 * 40.0;
+    inputs.operation.fuel_energy_gj_lhv = 500.0 * 40.0 * 10.0;
+    inputs.operation.net_output_kw = 40_000.0;
+    inputs.overhaul = Some(Overhaul {
+        interval_hours: 24_000.0,
+        hours_per_start: 20.0,
+        interval_starts: overhaul_starts,
+        cost: dec("1000000.00"),
+        escalation: 0.0,
+    });
+    inputs
+}
+
+/// Overhauls per operating row, in row order.
+fn overhauls(inputs: &LedgerInputs) -> Vec<u32> {
+    build_ledger(inputs)
+        .expect("ledger")
+        .rows
+        .iter()
+        .filter(|r| r.kind == RowKind::Operation)
+        .map(|r| r.overhaul_count)
+        .collect()
+}
+
+/// Years (1-based) in which an overhaul is done.
+fn overhaul_years(inputs: &LedgerInputs) -> Vec<usize> {
+    overhauls(inputs)
+        .iter()
+        .enumerate()
+        .flat_map(|(i, n)| std::iter::repeat_n(i + 1, *n as usize))
+        .collect()
+}
+
+/// Hand-worked: 500 h + 150 starts × 20 h = 3 500 EOH a year. 24 000 EOH are
+/// reached after 24 000 / 3 500 = 6.86 years (in year 7), then at 13.71
+/// (year 14) and 20.57 years (beyond the 20-year life). Without the starts
+/// the 500 fired hours a year would need 48 years.
+#[test]
+fn equivalent_hours_bring_the_overhaul_forward_to_year_seven() {
+    assert_eq!(overhaul_years(&peaker(None)), vec![7, 14]);
+    let mut no_starts = peaker(None);
+    no_starts.operation.starts_per_year = 0.0;
+    assert_eq!(overhaul_years(&no_starts), Vec::<usize>::new());
+}
+
+/// Hand-worked: a limit of 900 starts at 150 starts a year falls due after 6
+/// years, before the 6.86 years of the EOH limit, so it governs: years 6, 12
+/// and 18. A limit of 1 200 starts (8 years) leaves the EOH limit first.
+#[test]
+fn the_starts_limit_governs_when_it_comes_first() {
+    assert_eq!(overhaul_years(&peaker(Some(900.0))), vec![6, 12, 18]);
+    assert_eq!(overhaul_years(&peaker(Some(1200.0))), vec![7, 14]);
+}
+
+/// The fired-hours interval the two limits imply, worked by hand:
+/// 24 000 EOH / (1 + 150/500 × 20) = 3 428.571 h; 900 starts / (150/500) =
+/// 3 000 h.
+#[test]
+fn the_limits_become_an_interval_of_fired_hours() {
+    let inputs = peaker(None);
+    let overhaul = inputs.overhaul.expect("overhaul");
+    let between = overhaul
+        .operating_hours_between(&inputs.operation)
+        .expect("the unit runs");
+    assert!((between - 24_000.0 / 7.0).abs() < 1e-9, "{between}");
+    let starts = peaker(Some(900.0));
+    let between = starts
+        .overhaul
+        .expect("overhaul")
+        .operating_hours_between(&starts.operation)
+        .expect("the unit runs");
+    assert!((between - 3_000.0).abs() < 1e-9, "{between}");
+    let mut idle = peaker(None);
+    idle.operation.operating_hours = 0.0;
+    assert_eq!(overhaul.operating_hours_between(&idle.operation), None);
+}
+
+/// Identity: heat-rate degradation, fully recoverable, is restored at each
+/// overhaul the starts bring forward, exactly as if the same fired-hours
+/// interval had been stated with no starts.
+#[test]
+fn degradation_recovers_at_the_overhauls_starts_bring_forward() {
+    let mut with_starts = peaker(None);
+    with_starts.degradation = Degradation {
+        heat_rate_fraction_per_year: 0.01,
+        recoverable_fraction: 1.0,
+    };
+    let mut plain = with_starts.clone();
+    plain.operation.starts_per_year = 0.0;
+    plain.overhaul = Some(Overhaul {
+        interval_hours: 24_000.0 / 7.0,
+        hours_per_start: 0.0,
+        interval_starts: None,
+        cost: dec("1000000.00"),
+        escalation: 0.0,
+    });
+    let a = build_ledger(&with_starts).expect("ledger");
+    let b = build_ledger(&plain).expect("ledger");
+    for (x, y) in a.rows.iter().zip(&b.rows) {
+        assert_eq!(x.overhaul_count, y.overhaul_count, "year {}", x.year);
+        assert_eq!(x.fuel_energy_gj, y.fuel_energy_gj, "year {}", x.year);
+        assert_eq!(x.fuel_cost, y.fuel_cost, "year {}", x.year);
+    }
+    // With 100 % recoverable the year after an overhaul starts clean again:
+    // year 8's mean multiplier is below year 7's.
+    let fuel: Vec<f64> = a
+        .rows
+        .iter()
+        .filter(|r| r.kind == RowKind::Operation)
+        .map(|r| r.fuel_energy_gj)
+        .collect();
+    assert!(fuel[7] < fuel[6], "{fuel:?}");
+}
+
+/// Start fuel is priced like fuel: 120 starts × 60 GJ = 7 200 GJ (LHV) a
+/// year gives exactly the ledger of a machine burning 7 200 GJ more a year
+/// without degradation: the same HHV basis factor, price path and carbon.
+#[test]
+fn start_fuel_is_priced_like_fuel() {
+    for path in [false, true] {
+        let mut inputs = busy_inputs();
+        inputs.degradation = Degradation::default();
+        inputs.fuel.basis = PriceBasis::Hhv;
+        if path {
+            inputs.fuel.price = FuelPrice::Path(
+                (2020..2060)
+                    .map(|y| (y, dec("4.00") + Decimal::from(y - 2020) / dec("10")))
+                    .collect(),
+            );
+        }
+        let mut reference = inputs.clone();
+        inputs.operation.starts_per_year = 120.0;
+        inputs.starts.fuel_gj_lhv_per_start = 60.0;
+        reference.operation.fuel_energy_gj_lhv += 7_200.0;
+        let with_starts = build_ledger(&inputs).expect("ledger");
+        let expected = build_ledger(&reference).expect("ledger");
+        for (x, y) in with_starts.rows.iter().zip(&expected.rows) {
+            assert!(
+                (x.fuel_energy_gj - y.fuel_energy_gj).abs() <= 1e-9 * y.fuel_energy_gj.max(1.0),
+                "{} vs {}",
+                x.fuel_energy_gj,
+                y.fuel_energy_gj
+            );
+            assert_eq!(x.fuel_cost, y.fuel_cost, "year {} (path {path})", x.year);
+            assert_eq!(x.carbon_cost, y.carbon_cost, "year {}", x.year);
+        }
+        assert_eq!(
+            with_starts.summary.lifecycle_cost,
+            expected.summary.lifecycle_cost
+        );
+    }
+}
+
+/// Start cost and service fees are variable O&M, by hand for a full year:
+/// 40 000 MWh × 3.00 + 200 starts × (1 500.00 + 2 500.00) + 2 000 h ×
+/// 120.00 = 120 000 + 800 000 + 240 000 = 1 160 000.00.
+#[test]
+fn start_cost_and_service_fees_are_variable_om() {
+    let mut inputs = empty_inputs(3, 0.07);
+    inputs.operation.operating_hours = 2_000.0;
+    inputs.operation.energy_mwh = 40_000.0;
+    inputs.operation.starts_per_year = 200.0;
+    inputs.variable_om = EscalatingPrice {
+        price: dec("3.00"),
+        escalation: 0.0,
+    };
+    inputs.starts.cost_per_start = EscalatingPrice {
+        price: dec("1500.00"),
+        escalation: 0.0,
+    };
+    inputs.service.per_start = EscalatingPrice {
+        price: dec("2500.00"),
+        escalation: 0.0,
+    };
+    inputs.service.per_fired_hour = EscalatingPrice {
+        price: dec("120.00"),
+        escalation: 0.0,
+    };
+    let ledger = build_ledger(&inputs).expect("ledger");
+    let rows: Vec<_> = ledger
+        .rows
+        .iter()
+        .filter(|r| r.kind == RowKind::Operation)
+        .collect();
+    assert_eq!(rows.len(), 3);
+    for row in &rows {
+        assert_eq!(row.variable_om, dec("1160000"), "year {}", row.year);
+        assert_eq!(row.starts, 200.0);
+    }
+    // The stream's present value is the sum of the rows': 1 160 000 ×
+    // (1.07^-1 + 1.07^-2 + 1.07^-3) = 1 160 000 × 2.624316 = 3 044 206.5.
+    let pv = ledger.summary.present_value.variable_om;
+    let by_hand = 1_160_000.0 * (1.07f64.powi(-1) + 1.07f64.powi(-2) + 1.07f64.powi(-3));
+    let pv: f64 = pv.to_string().parse().expect("decimal");
+    assert!((pv - by_hand).abs() < 0.01, "{pv} vs {by_hand}");
+}
+
+/// The sampled (`f64`) ledger runs the same code: its totals equal the
+/// decimal ledger's within 1e-9 relative, and the summary alone equals the
+/// full ledger's, with starts, fees and the starts limit all on.
+#[test]
+fn f64_and_summary_agree_with_starts_on() {
+    let mut inputs = busy_inputs();
+    inputs.operation.starts_per_year = 180.0;
+    inputs.starts.fuel_gj_lhv_per_start = 45.0;
+    inputs.starts.cost_per_start.price = dec("900.00");
+    inputs.service.per_fired_hour.price = dec("85.00");
+    inputs.service.per_start.price = dec("3100.00");
+    if let Some(overhaul) = inputs.overhaul.as_mut() {
+        overhaul.hours_per_start = 10.0;
+        overhaul.interval_starts = Some(1_200.0);
+    }
+    let decimal = build_ledger(&inputs).expect("ledger");
+    assert_eq!(summarize_ledger(&inputs).expect("summary"), decimal.summary);
+    let sampled = summarize_ledger(&inputs.to_f64()).expect("summary");
+    let exact: f64 = decimal
+        .summary
+        .lifecycle_cost
+        .to_string()
+        .parse()
+        .expect("decimal");
+    assert!(
+        (sampled.lifecycle_cost - exact).abs() <= 1e-9 * exact.abs(),
+        "{} vs {exact}",
+        sampled.lifecycle_cost
+    );
+}
+
+/// Nothing about starts set: the ledger is exactly the one without the new
+/// inputs (starts alone, with no prices, change nothing either).
+#[test]
+fn zero_starts_leave_the_ledger_unchanged() {
+    let inputs = busy_inputs();
+    let mut with_starts = inputs.clone();
+    with_starts.operation.starts_per_year = 250.0;
+    assert_eq!(
+        build_ledger(&inputs)
+            .expect("ledger")
+            .summary
+            .lifecycle_cost,
+        build_ledger(&with_starts)
+            .expect("ledger")
+            .summary
+            .lifecycle_cost
+    );
+}

@@ -174,7 +174,7 @@ fn ledger_identities_hold_exactly() {
             + row.fixed_om
             + row.variable_om
             + row.overhaul
-            + row.replacement
+            + row.bought_in
             + row.capital
             + row.residual;
         assert_eq!(row.total, columns, "{} {:?}", row.year, row.kind);

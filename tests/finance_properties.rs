@@ -12,10 +12,10 @@
 mod finance_support;
 
 use brayfin::finance::{
-    build_ledger, compare_summaries, summarize_ledger, AcceptanceSettlement, Capital,
+    build_ledger, compare_summaries, summarize_ledger, AcceptanceSettlement, BoughtIn, Capital,
     CapitalPayment, Carbon, Degradation, EscalatingPrice, Fuel, FuelPrice, LedgerInputs, Money,
-    Operation, Overhaul, PriceBasis, RateBasis, Rates, Replacement, Residual, ResidualValue,
-    ServiceFees, Starts, Timing,
+    Operation, Overhaul, PriceBasis, RateBasis, Rates, Residual, ResidualValue, ServiceFees,
+    Starts, Timing,
 };
 use chrono::{Days, Months};
 use finance_support::date;
@@ -59,7 +59,7 @@ prop_compose! {
         residual_fraction in 0.0f64..0.3,
         hhv_priced in any::<bool>(),
         shortfall in (0.0f64..100_000.0, 0i64..20_000, 0.0f64..50_000.0, 0i64..15_000),
-        replacement_escalations in prop::array::uniform2(-0.03f64..0.06),
+        bought_in_escalations in prop::array::uniform2(-0.03f64..0.06),
     ) -> LedgerInputs {
         let energy_mwh = net_output_kw * operating_hours / 1000.0;
         let payments = (0..=construction_years)
@@ -103,11 +103,11 @@ prop_compose! {
             }),
             degradation: Degradation { heat_rate_fraction_per_year: degradation.0, recoverable_fraction: degradation.1 },
             residual: Residual { value: ResidualValue::FractionOfCapital(residual_fraction), escalation: 0.0 },
-            replacement: Replacement {
+            bought_in: BoughtIn {
                 energy_mwh_per_year: shortfall.0,
-                energy_price: EscalatingPrice { price: cents(shortfall.1), escalation: replacement_escalations[0] },
+                energy_price: EscalatingPrice { price: cents(shortfall.1), escalation: bought_in_escalations[0] },
                 capacity_kw: shortfall.2,
-                capacity_price: EscalatingPrice { price: cents(shortfall.3), escalation: replacement_escalations[1] },
+                capacity_price: EscalatingPrice { price: cents(shortfall.3), escalation: bought_in_escalations[1] },
             },
             acceptance_settlement: AcceptanceSettlement::default(),
         }
@@ -199,8 +199,8 @@ proptest! {
             overhaul.escalation = nominal_rate(overhaul.escalation);
         }
         nominal.residual.escalation = nominal_rate(real.residual.escalation);
-        nominal.replacement.energy_price.escalation = nominal_rate(real.replacement.energy_price.escalation);
-        nominal.replacement.capacity_price.escalation = nominal_rate(real.replacement.capacity_price.escalation);
+        nominal.bought_in.energy_price.escalation = nominal_rate(real.bought_in.energy_price.escalation);
+        nominal.bought_in.capacity_price.escalation = nominal_rate(real.bought_in.capacity_price.escalation);
         let real_lcc = summarize_ledger(&real).unwrap().lifecycle_cost.to_f64();
         let nominal_lcc = summarize_ledger(&nominal).unwrap().lifecycle_cost.to_f64();
         prop_assert!(relative_difference(real_lcc, nominal_lcc) < 1e-9, "real {} nominal {}", real_lcc, nominal_lcc);

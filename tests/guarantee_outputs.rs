@@ -145,7 +145,7 @@ fn csv_streams_add_up_to_each_total_and_carry_the_settlement() {
         "fixed_om",
         "variable_om",
         "overhaul",
-        "replacement",
+        "bought_in",
         "capital",
         "residual",
         "guarantee_settlement",
@@ -200,7 +200,7 @@ fn csv_streams_add_up_to_each_total_and_carry_the_settlement() {
             "operation_and_maintenance",
             "overhauls",
             "carbon",
-            "replacement",
+            "bought_in",
             "residual",
             "guarantee_settlement",
         ]

@@ -8,8 +8,8 @@ use super::operation::{annual_operation, annual_operation_with_ratios, AnnualOpe
 use super::site::{site_performance, SiteError, SitePerformance};
 use crate::cycle::{self, CycleResult};
 use crate::finance::{
-    self, Capital, CapitalPayment, Carbon, Degradation, EscalatingPrice, FuelPrice, LedgerInputs,
-    Overhaul, Rates, Replacement, Residual, ServiceFees, Starts,
+    self, BoughtIn, Capital, CapitalPayment, Carbon, Degradation, EscalatingPrice, FuelPrice,
+    LedgerInputs, Overhaul, Rates, Residual, ServiceFees, Starts,
 };
 use crate::fuel::Fuel;
 use crate::scenario::{
@@ -144,14 +144,14 @@ pub fn output_reference(scenario: &Scenario, fuel: &Fuel) -> Result<OutputRefere
 /// `energy_value` and `capacity_value` (constant in the analysis basis's
 /// money, like the candidates' O&M prices). A candidate above the reference
 /// (one set apart from the scenario's list) has no shortfall.
-fn replacement(
+fn bought_in(
     scenario: &Scenario,
     site_output_kw: f64,
     year: &AnnualOperation,
     reference: &OutputReference,
-) -> Replacement<Decimal> {
+) -> BoughtIn<Decimal> {
     let e = &scenario.economics;
-    Replacement {
+    BoughtIn {
         energy_mwh_per_year: (reference.energy_mwh - year.energy_mwh).max(0.0),
         energy_price: EscalatingPrice {
             price: e.energy_value_per_mwh,
@@ -176,7 +176,7 @@ fn constant(price: Decimal) -> EscalatingPrice<Decimal> {
 
 /// The ledger inputs of a candidate whose year of operation is `year` and
 /// base-load output at the site `site_output_kw`, levelled on output to
-/// `reference` (an output replacement stream for its shortfall in energy
+/// `reference` (an energy and capacity bought in stream for its shortfall in energy
 /// and capacity). Fixed O&M stays on the rated net output: it is quoted per
 /// kW of rating (common practice) and does not fall on a hot day.
 pub fn ledger_inputs(
@@ -284,7 +284,7 @@ pub fn ledger_inputs(
             },
             escalation: 0.0,
         },
-        replacement: replacement(scenario, site_output_kw, year, reference),
+        bought_in: bought_in(scenario, site_output_kw, year, reference),
         acceptance_settlement: finance::AcceptanceSettlement::default(),
     })
 }

@@ -60,7 +60,7 @@ fn ledger_rows(outcome: &CandidateOutcome) -> Vec<LedgerRowView> {
             fixed_om: money(r.fixed_om),
             variable_om: money(r.variable_om),
             overhaul: money(r.overhaul),
-            replacement: money(r.replacement),
+            bought_in: money(r.bought_in),
             capital: money(r.capital),
             residual: money(r.residual),
             guarantee_settlement: money(r.guarantee_settlement),
@@ -384,7 +384,7 @@ fn candidate_view(
             operation_and_maintenance: money(pv.fixed_om + pv.variable_om),
             overhauls: money(pv.overhaul),
             carbon: money(pv.carbon_cost),
-            replacement: money(pv.replacement),
+            bought_in: money(pv.bought_in),
             residual: money(pv.residual),
             guarantee_settlement: money(pv.guarantee_settlement),
         },
@@ -398,7 +398,7 @@ fn candidate_view(
                 ),
                 overhauls: money(pv.overhaul - b.overhaul),
                 carbon: money(pv.carbon_cost - b.carbon_cost),
-                replacement: money(pv.replacement - b.replacement),
+                bought_in: money(pv.bought_in - b.bought_in),
                 residual: money(pv.residual - b.residual),
                 guarantee_settlement: money(pv.guarantee_settlement - b.guarantee_settlement),
             }
@@ -651,7 +651,7 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
             levelled: study
                 .outcomes
                 .iter()
-                .any(|o| !o.ledger.summary.present_value.replacement.is_zero()),
+                .any(|o| !o.ledger.summary.present_value.bought_in.is_zero()),
             energy_value_per_mwh: money(e.energy_value_per_mwh),
             capacity_value_per_kw_year: money(e.capacity_value_per_kw_year),
             present_value_date: e.commercial_operation.to_string(),

@@ -111,7 +111,7 @@ pub(crate) fn single_date_row<M: Money>(kind: RowKind, date: NaiveDate, time: f6
         fixed_om: M::ZERO,
         variable_om: M::ZERO,
         overhaul: M::ZERO,
-        replacement: M::ZERO,
+        bought_in: M::ZERO,
         capital: M::ZERO,
         guarantee_settlement: M::ZERO,
         residual: M::ZERO,

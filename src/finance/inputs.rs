@@ -50,7 +50,7 @@ pub struct LedgerInputs<M: Money = Decimal> {
     pub residual: Residual<M>,
     /// Output levelling: the energy and capacity this candidate falls short
     /// of the reference output and must buy elsewhere (zero: no stream).
-    pub replacement: Replacement<M>,
+    pub bought_in: BoughtIn<M>,
     /// Damages and bonus settled at the acceptance test, paid once on the
     /// commercial-operation date (zero, the default: no row).
     pub acceptance_settlement: AcceptanceSettlement<M>,
@@ -204,7 +204,7 @@ impl<M: Money> EscalatingPrice<M> {
     };
 }
 
-/// Output levelling ("replacement") stream: what a candidate that delivers
+/// Output levelling ("bought in") stream: what a candidate that delivers
 /// less than the reference output pays to buy the shortfall elsewhere, so
 /// that candidates of different output are compared on equal deliveries
 /// (common practice in bid evaluation).
@@ -220,7 +220,7 @@ impl<M: Money> EscalatingPrice<M> {
 ///
 /// [`LedgerSummary::levelized_cost_per_mwh`]: super::LedgerSummary::levelized_cost_per_mwh
 #[derive(Debug, Clone, Copy, PartialEq)]
-pub struct Replacement<M: Money = Decimal> {
+pub struct BoughtIn<M: Money = Decimal> {
     /// Energy to be bought per full year of operation, MWh (≥ 0).
     pub energy_mwh_per_year: f64,
     /// Price of that energy per MWh at the base date, and its escalation.
@@ -232,14 +232,14 @@ pub struct Replacement<M: Money = Decimal> {
     pub capacity_price: EscalatingPrice<M>,
 }
 
-impl<M: Money> Default for Replacement<M> {
+impl<M: Money> Default for BoughtIn<M> {
     /// No shortfall: zero quantities at zero prices.
     fn default() -> Self {
         let zero = EscalatingPrice {
             price: M::ZERO,
             escalation: 0.0,
         };
-        Replacement {
+        BoughtIn {
             energy_mwh_per_year: 0.0,
             energy_price: zero,
             capacity_kw: 0.0,
@@ -476,11 +476,11 @@ impl<M: Money> LedgerInputs<M> {
                 },
                 escalation: self.residual.escalation,
             },
-            replacement: Replacement {
-                energy_mwh_per_year: self.replacement.energy_mwh_per_year,
-                energy_price: escalating(&self.replacement.energy_price),
-                capacity_kw: self.replacement.capacity_kw,
-                capacity_price: escalating(&self.replacement.capacity_price),
+            bought_in: BoughtIn {
+                energy_mwh_per_year: self.bought_in.energy_mwh_per_year,
+                energy_price: escalating(&self.bought_in.energy_price),
+                capacity_kw: self.bought_in.capacity_kw,
+                capacity_price: escalating(&self.bought_in.capacity_price),
             },
             acceptance_settlement: AcceptanceSettlement {
                 damages: convert(self.acceptance_settlement.damages),

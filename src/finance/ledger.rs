@@ -71,9 +71,9 @@ pub struct LedgerRow<M: Money = Decimal> {
     pub variable_om: M,
     /// Overhaul cost.
     pub overhaul: M,
-    /// Output replacement: the energy and capacity shortfall bought
-    /// elsewhere (see [`Replacement`](super::Replacement)).
-    pub replacement: M,
+    /// Energy and capacity bought in: the energy and capacity shortfall bought
+    /// elsewhere (see [`BoughtIn`](super::BoughtIn)).
+    pub bought_in: M,
     /// Capital paid.
     pub capital: M,
     /// Guarantee settlement at the acceptance test: bonus paid less damages
@@ -102,8 +102,8 @@ pub struct StreamTotals<M: Money = Decimal> {
     pub variable_om: M,
     /// Present value of overhauls.
     pub overhaul: M,
-    /// Present value of output replacement (energy and capacity shortfall).
-    pub replacement: M,
+    /// Present value of energy and capacity bought in (energy and capacity shortfall).
+    pub bought_in: M,
     /// Present value of capital.
     pub capital: M,
     /// Present value of the guarantee settlement (bonus less damages).
@@ -120,14 +120,14 @@ impl<M: Money> StreamTotals<M> {
         fixed_om: M::ZERO,
         variable_om: M::ZERO,
         overhaul: M::ZERO,
-        replacement: M::ZERO,
+        bought_in: M::ZERO,
         capital: M::ZERO,
         guarantee_settlement: M::ZERO,
         residual: M::ZERO,
     };
 
     /// Operating, maintenance and repair costs: fuel, carbon, fixed and
-    /// variable O&M, overhauls and output replacement (everything but
+    /// variable O&M, overhauls and energy and capacity bought in (everything but
     /// capital and residual).
     pub fn operating(&self) -> Option<M> {
         self.fuel_cost
@@ -135,7 +135,7 @@ impl<M: Money> StreamTotals<M> {
             .add_checked(self.fixed_om)?
             .add_checked(self.variable_om)?
             .add_checked(self.overhaul)?
-            .add_checked(self.replacement)
+            .add_checked(self.bought_in)
     }
 
     /// Investment net of residual value: capital plus the guarantee
@@ -209,14 +209,14 @@ pub struct LedgerSummary<M: Money = Decimal> {
 impl<M: Money> LedgerSummary<M> {
     /// Levelized cost of electricity per MWh: the candidate's own lifecycle
     /// cost over the present value of the energy it generates. Output
-    /// replacement is left out: it buys energy and capacity the candidate
+    /// bought_in is left out: it buys energy and capacity the candidate
     /// does not generate, so it is not a cost of the candidate's MWh (and
     /// levelized costs of candidates of different output stay comparable).
     /// `None` when no energy is generated.
     pub fn levelized_cost_per_mwh(&self) -> Option<M> {
         let energy = M::from_physics(self.pv_energy_mwh)?;
         self.lifecycle_cost
-            .sub_checked(self.present_value.replacement)?
+            .sub_checked(self.present_value.bought_in)?
             .div_checked(energy)
     }
 }

@@ -19,8 +19,8 @@ const OVERHAUL_COST: &str = "overhaul cost";
 const START_COST: &str = "start cost";
 const SERVICE_PER_HOUR: &str = "service fee per fired hour";
 const SERVICE_PER_START: &str = "service fee per start";
-const REPLACEMENT_ENERGY: &str = "output replacement energy";
-const REPLACEMENT_CAPACITY: &str = "output replacement capacity";
+const BOUGHT_IN_ENERGY: &str = "energy bought in";
+const BOUGHT_IN_CAPACITY: &str = "capacity bought in";
 
 /// Present values accumulated over the operating rows.
 pub(crate) struct OperatingPart<M: Money> {
@@ -314,16 +314,16 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
     let mut variable_om = Stream::new(VARIABLE_OM, variable.price, variable.escalation);
     let mut overhauls =
         OptionalStream(overhaul.map(|o| Stream::new(OVERHAUL_COST, o.cost, o.escalation)));
-    let shortfall = &inputs.replacement;
-    let mut replacement_energy = OptionalStream::new(
+    let shortfall = &inputs.bought_in;
+    let mut bought_in_energy = OptionalStream::new(
         shortfall.energy_mwh_per_year > 0.0,
-        REPLACEMENT_ENERGY,
+        BOUGHT_IN_ENERGY,
         shortfall.energy_price.price,
         shortfall.energy_price.escalation,
     );
-    let mut replacement_capacity = OptionalStream::new(
+    let mut bought_in_capacity = OptionalStream::new(
         shortfall.capacity_kw > 0.0,
-        REPLACEMENT_CAPACITY,
+        BOUGHT_IN_CAPACITY,
         shortfall.capacity_price.price,
         shortfall.capacity_price.escalation,
     );
@@ -379,27 +379,27 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
         let variable_om =
             service_per_start.add_cost(variable_om, starts, step, discount_value, year)?;
         let overhaul = overhauls.cost(f64::from(overhaul_count), step, discount_value, year)?;
-        // Output replacement: energy pro rata like energy, capacity like
+        // Energy and capacity bought in: energy pro rata like energy, capacity like
         // fixed O&M.
-        let replacement_energy = replacement_energy.cost(
+        let bought_in_energy = bought_in_energy.cost(
             shortfall.energy_mwh_per_year * fraction,
             step,
             discount_value,
             year,
         )?;
-        let replacement_capacity = replacement_capacity.cost(
+        let bought_in_capacity = bought_in_capacity.cost(
             shortfall.capacity_kw * fraction,
             step,
             discount_value,
             year,
         )?;
-        let replacement = add(
-            replacement_energy,
-            replacement_capacity,
-            "output replacement",
+        let bought_in = add(
+            bought_in_energy,
+            bought_in_capacity,
+            "energy and capacity bought in",
             year,
         )?;
-        let total = [carbon_cost, fixed_om, variable_om, overhaul, replacement]
+        let total = [carbon_cost, fixed_om, variable_om, overhaul, bought_in]
             .into_iter()
             .try_fold(fuel_cost, |sum, x| add(sum, x, "row total", year))?;
         let present_value = mul(total, discount_factor, "present value", year)?;
@@ -436,7 +436,7 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
             fixed_om,
             variable_om,
             overhaul,
-            replacement,
+            bought_in,
             capital: M::ZERO,
             guarantee_settlement: M::ZERO,
             residual: M::ZERO,
@@ -455,10 +455,10 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
                 stream.add_present_value(sum, last_year)
             })?,
         overhaul: overhauls.present_value(last_year)?,
-        replacement: add(
-            replacement_energy.present_value(last_year)?,
-            replacement_capacity.present_value(last_year)?,
-            "output replacement",
+        bought_in: add(
+            bought_in_energy.present_value(last_year)?,
+            bought_in_capacity.present_value(last_year)?,
+            "energy and capacity bought in",
             last_year,
         )?,
         ..StreamTotals::ZERO

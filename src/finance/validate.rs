@@ -186,7 +186,7 @@ impl<M: Money> LedgerInputs<M> {
             ResidualValue::Amount(amount) => check_money("residual.amount", amount)?,
         }
         check_rate("residual.escalation", self.residual.escalation)?;
-        self.validate_replacement()?;
+        self.validate_bought_in()?;
         check_money(
             "acceptance_settlement.damages",
             self.acceptance_settlement.damages,
@@ -198,37 +198,34 @@ impl<M: Money> LedgerInputs<M> {
         self.validate_capital()
     }
 
-    fn validate_replacement(&self) -> Result<(), FinanceError> {
-        let replacement = &self.replacement;
+    fn validate_bought_in(&self) -> Result<(), FinanceError> {
+        let bought_in = &self.bought_in;
         check_range(
-            "replacement.energy_mwh_per_year",
-            replacement.energy_mwh_per_year,
+            "bought_in.energy_mwh_per_year",
+            bought_in.energy_mwh_per_year,
+            0.0,
+            f64::MAX,
+            NON_NEGATIVE,
+        )?;
+        check_money("bought_in.energy_price.price", bought_in.energy_price.price)?;
+        check_rate(
+            "bought_in.energy_price.escalation",
+            bought_in.energy_price.escalation,
+        )?;
+        check_range(
+            "bought_in.capacity_kw",
+            bought_in.capacity_kw,
             0.0,
             f64::MAX,
             NON_NEGATIVE,
         )?;
         check_money(
-            "replacement.energy_price.price",
-            replacement.energy_price.price,
+            "bought_in.capacity_price.price",
+            bought_in.capacity_price.price,
         )?;
         check_rate(
-            "replacement.energy_price.escalation",
-            replacement.energy_price.escalation,
-        )?;
-        check_range(
-            "replacement.capacity_kw",
-            replacement.capacity_kw,
-            0.0,
-            f64::MAX,
-            NON_NEGATIVE,
-        )?;
-        check_money(
-            "replacement.capacity_price.price",
-            replacement.capacity_price.price,
-        )?;
-        check_rate(
-            "replacement.capacity_price.escalation",
-            replacement.capacity_price.escalation,
+            "bought_in.capacity_price.escalation",
+            bought_in.capacity_price.escalation,
         )
     }
 

@@ -56,7 +56,7 @@ impl Model {
     /// Whether some candidate settles a guarantee at the acceptance test
     /// (a non-zero `guarantee_settlement` stream): renderers show the
     /// settlement column, category or bar only then, as they do output
-    /// replacement only when it is charged.
+    /// bought_in only when it is charged.
     pub fn settled(&self) -> bool {
         self.candidates.iter().any(|c| {
             !c.cost_breakdown.guarantee_settlement.is_zero()
@@ -364,10 +364,10 @@ pub struct CostBreakdown {
     pub overhauls: Decimal,
     /// Carbon.
     pub carbon: Decimal,
-    /// Output replacement: the candidate's shortfall in energy and capacity
+    /// Energy and capacity bought in: the candidate's shortfall in energy and capacity
     /// against the largest candidate, bought elsewhere (zero for the
     /// largest, or when the scenario values neither).
-    pub replacement: Decimal,
+    pub bought_in: Decimal,
     /// Residual value (a credit, negative).
     pub residual: Decimal,
     /// Guarantee settlement at the acceptance test: bonus paid less damages
@@ -419,8 +419,8 @@ pub struct LedgerRowView {
     pub variable_om: Decimal,
     /// Overhaul.
     pub overhaul: Decimal,
-    /// Output replacement (energy and capacity shortfall bought elsewhere).
-    pub replacement: Decimal,
+    /// Energy and capacity bought in (energy and capacity shortfall bought elsewhere).
+    pub bought_in: Decimal,
     /// Capital.
     pub capital: Decimal,
     /// Residual value (a credit, negative).

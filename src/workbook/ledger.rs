@@ -12,7 +12,7 @@
 //! - variable O&M = MWh × price per MWh + fired hours × service fee per hour
 //!   + starts × (start cost + service fee per start); overhauls = count ×
 //!   cost (the counts, due on equivalent hours or starts, are constants);
-//! - output replacement = shortfall × share of the year × value;
+//! - energy and capacity bought in = shortfall × share of the year × value;
 //! - discount factor = (1 + rate)^−cash time; present value = total × factor.
 //!
 //! The ledger never rounds money; its one rounding is where a quantity
@@ -91,7 +91,7 @@ const HEADERS: [&str; 27] = [
     "Fixed O&M",
     "Variable O&M",
     "Overhauls",
-    "Output replacement",
+    "Energy and capacity bought in",
     "Capital",
     "Residual value",
     "Total",
@@ -392,12 +392,12 @@ impl LedgerSheet<'_> {
             f(row.overhaul),
             m,
         )?;
-        let replacement = format!(
+        let bought_in = format!(
             "={}*{frac}*EnergyValue+{}*{frac}*CapacityValue",
             n.name("EnergyShortfall"),
             n.name("CapacityShortfall")
         );
-        cells.formula(r, col::FUEL + 5, &replacement, f(row.replacement), m)?;
+        cells.formula(r, col::FUEL + 5, &bought_in, f(row.bought_in), m)?;
         cells.number(r, col::CAPITAL, 0.0, m)?;
         cells.number(r, col::RESIDUAL, 0.0, m)
     }

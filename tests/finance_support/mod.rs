@@ -3,9 +3,9 @@
 #![allow(dead_code)]
 
 use brayfin::finance::{
-    AcceptanceSettlement, Capital, Carbon, Degradation, EscalatingPrice, Fuel, FuelPrice,
-    LedgerInputs, Operation, PriceBasis, RateBasis, Rates, Replacement, Residual, ResidualValue,
-    ServiceFees, Starts, Timing,
+    AcceptanceSettlement, BoughtIn, Capital, Carbon, Degradation, EscalatingPrice, Fuel, FuelPrice,
+    LedgerInputs, Operation, PriceBasis, RateBasis, Rates, Residual, ResidualValue, ServiceFees,
+    Starts, Timing,
 };
 use chrono::NaiveDate;
 use rust_decimal::Decimal;
@@ -22,7 +22,7 @@ pub fn dec(text: &str) -> Decimal {
 
 /// A ledger with every stream zero: 1 January start, real 3 %, end-of-year,
 /// no capital, no fuel, no carbon, no O&M, no overhauls, no residual, no
-/// output replacement. Tests switch on only what they check.
+/// energy and capacity bought in. Tests switch on only what they check.
 pub fn empty_inputs(service_life_years: u32, discount_rate: f64) -> LedgerInputs {
     LedgerInputs {
         commercial_operation: date(2026, 1, 1),
@@ -70,7 +70,7 @@ pub fn empty_inputs(service_life_years: u32, discount_rate: f64) -> LedgerInputs
             value: ResidualValue::Amount(Decimal::ZERO),
             escalation: 0.0,
         },
-        replacement: Replacement::default(),
+        bought_in: BoughtIn::default(),
         acceptance_settlement: AcceptanceSettlement::default(),
     }
 }
@@ -149,7 +149,7 @@ pub fn busy_inputs() -> LedgerInputs {
             value: ResidualValue::FractionOfCapital(0.1),
             escalation: 0.0,
         },
-        replacement: Replacement {
+        bought_in: BoughtIn {
             energy_mwh_per_year: 24_000.0,
             energy_price: EscalatingPrice {
                 price: dec("92.00"),

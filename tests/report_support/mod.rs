@@ -72,7 +72,7 @@ fn ledger(life: u32, capital: i64, fuel: i64) -> Vec<LedgerRowView> {
                 fixed_om: dec(om / 2),
                 variable_om: dec(om / 2),
                 overhaul: dec(overhaul),
-                replacement: dec(0),
+                bought_in: dec(0),
                 capital: dec(cap),
                 residual: dec(residual),
                 guarantee_settlement: dec(0),
@@ -187,7 +187,7 @@ fn candidate(
             operation_and_maintenance: dec(11_000_000),
             overhauls: dec(6_000_000),
             carbon: dec(4_500_000),
-            replacement: dec(0),
+            bought_in: dec(0),
             residual: dec(-1_500_000),
             guarantee_settlement: dec(0),
         },
@@ -197,7 +197,7 @@ fn candidate(
             operation_and_maintenance: dec(0),
             overhauls: dec(250_000),
             carbon: dec(-300_000),
-            replacement: dec(0),
+            bought_in: dec(0),
             residual: dec(-100_000),
             guarantee_settlement: dec(0),
         }),
@@ -212,7 +212,7 @@ fn candidate(
 
 /// The fixture: a baseline and two bids (the last with a long label), with
 /// or without the sensitivity and risk parts. All three have the same net
-/// output, so nothing is charged for output replacement (see [`levelled`]).
+/// output, so nothing is charged for energy and capacity bought in (see [`levelled`]).
 pub fn model(with_sensitivity: bool, with_risk: bool) -> Model {
     let candidates = vec![
         candidate("base", "Base bid: simple cycle", true, 30_000_000, 10_300.0, 0, 0, false),
@@ -294,7 +294,7 @@ pub fn model(with_sensitivity: bool, with_risk: bool) -> Model {
     });
     Model {
         meta: Meta {
-            title: "Northmere Energy Park: replacement gas turbine".into(),
+            title: "Northmere Energy Park: bought_in gas turbine".into(),
             prepared_for: "Northmere Municipal Power Cooperative".into(),
             prepared_by: "Plant engineering office".into(),
             date: "2026-11-30".into(),
@@ -413,10 +413,10 @@ pub fn levelled(with_sensitivity: bool, with_risk: bool) -> Model {
     model.method.energy_value_per_mwh = Decimal::new(9500, 2);
     model.method.capacity_value_per_kw_year = Decimal::new(4000, 2);
     let base = &mut model.candidates[0];
-    base.cost_breakdown.replacement = dec(9_000_000);
+    base.cost_breakdown.bought_in = dec(9_000_000);
     base.cost_breakdown.fuel -= dec(9_000_000);
     for row in base.ledger.iter_mut().filter(|r| r.operating_hours > 0.0) {
-        row.replacement = dec(900_000);
+        row.bought_in = dec(900_000);
         row.fuel_cost -= dec(900_000);
     }
     model

@@ -287,7 +287,7 @@ pub(super) fn write(
         "Energy shortfall bought elsewhere",
         &n.name("EnergyShortfall"),
         &format!("=MAX(0,MAX({energies})-{})", n.name("AnnualEnergy")),
-        inputs.replacement.energy_mwh_per_year,
+        inputs.bought_in.energy_mwh_per_year,
         "MWh per full year",
         "levelling: the most any candidate delivers, less this candidate's",
     )?;
@@ -295,7 +295,7 @@ pub(super) fn write(
         "Capacity shortfall bought elsewhere",
         &n.name("CapacityShortfall"),
         &format!("=MAX(0,MAX({outputs})-{})", n.name("SiteOutputKw")),
-        inputs.replacement.capacity_kw,
+        inputs.bought_in.capacity_kw,
         "kW",
         "levelling: the largest base-load output at the site, less this candidate's",
     )?;

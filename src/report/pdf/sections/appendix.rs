@@ -8,7 +8,7 @@ use crate::report::pdf::document::{Composer, Orientation};
 use crate::report::pdf::fonts::Face;
 use crate::report::pdf::table::{draw_table_continued, Column, TableStyle};
 
-/// A row's cells; the replacement column only when `levelled`, the
+/// A row's cells; the bought_in column only when `levelled`, the
 /// guarantee-settlement column only when `settled`.
 fn row(r: &LedgerRowView, levelled: bool, settled: bool) -> Vec<String> {
     let m = |v| format::grouped(v, 0);
@@ -22,7 +22,7 @@ fn row(r: &LedgerRowView, levelled: bool, settled: bool) -> Vec<String> {
         m(r.fixed_om),
         m(r.variable_om),
         m(r.overhaul),
-        m(r.replacement),
+        m(r.bought_in),
         m(r.capital),
         m(r.residual),
         m(r.guarantee_settlement),
@@ -41,13 +41,13 @@ fn drop_hidden<T>(cells: &mut Vec<T>, levelled: bool, settled: bool) {
         cells.remove(SETTLEMENT_COLUMN);
     }
     if !levelled {
-        cells.remove(REPLACEMENT_COLUMN);
+        cells.remove(BOUGHT_IN_COLUMN);
     }
 }
 
-/// Position of the replacement column, shown only when some candidate is
+/// Position of the bought_in column, shown only when some candidate is
 /// charged for an output shortfall.
-const REPLACEMENT_COLUMN: usize = 9;
+const BOUGHT_IN_COLUMN: usize = 9;
 
 /// Position of the guarantee-settlement column (after the residual, before
 /// the total), shown only when some candidate settles a guarantee.
@@ -68,7 +68,7 @@ pub fn ledger(ctx: &Ctx, composer: &mut Composer) {
         Column::right(l.ledger_fixed_om.clone()),
         Column::right(l.ledger_variable_om.clone()),
         Column::right(l.ledger_overhaul.clone()),
-        Column::right(l.ledger_replacement.clone()),
+        Column::right(l.ledger_bought_in.clone()),
         Column::right(l.ledger_capital.clone()),
         Column::right(l.ledger_residual.clone()),
         Column::right(l.ledger_settlement.clone()),

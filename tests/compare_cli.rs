@@ -236,7 +236,8 @@ fn table_has_a_verdict_per_candidate() {
     assert!(text.contains("Screening-level estimate"));
 }
 
-/// CSV: one header and one row per candidate-year, same count as the JSON.
+/// CSV: one header, one row per ledger row (same count as the JSON) and a
+/// totals row per candidate.
 #[test]
 fn csv_has_one_row_per_candidate_year() {
     let output = Command::cargo_bin("brayfin")
@@ -252,8 +253,9 @@ fn csv_has_one_row_per_candidate_year() {
         .iter()
         .map(|c| c["ledger"].as_array().unwrap().len())
         .sum();
+    let candidates = doc["candidates"].as_array().unwrap().len();
     let mut reader = csv::Reader::from_reader(output.stdout.as_slice());
-    assert_eq!(reader.records().count(), rows);
+    assert_eq!(reader.records().count(), rows + candidates);
 }
 
 /// Every broken scenario: exit code 1, `file:line:column:` in the message,

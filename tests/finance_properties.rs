@@ -76,6 +76,7 @@ prop_compose! {
             service_life_years,
             rates,
             timing,
+            present_value_date: None,
             capital: Capital::Schedule(payments),
             operation: Operation {
                 operating_hours,

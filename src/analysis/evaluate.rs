@@ -13,7 +13,8 @@ use crate::finance::{
 };
 use crate::fuel::Fuel;
 use crate::scenario::{
-    Candidate, LoadedScenario, PriceBasis, RateBasis, ResidualValue, Scenario, Timing,
+    Candidate, LoadedScenario, PresentValueDate, PriceBasis, RateBasis, ResidualValue, Scenario,
+    Timing,
 };
 use rust_decimal::Decimal;
 
@@ -228,6 +229,10 @@ pub fn ledger_inputs(
         timing: match e.timing {
             Timing::EndOfYear => finance::Timing::EndOfYear,
             Timing::MidYear => finance::Timing::MidYear,
+        },
+        present_value_date: match e.present_value_date {
+            PresentValueDate::CommercialOperation => None,
+            PresentValueDate::Study => Some(scenario.meta.date),
         },
         capital,
         operation: finance::Operation {

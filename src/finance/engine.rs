@@ -213,11 +213,15 @@ fn run<M: Money>(
 ) -> Result<LedgerSummary<M>, FinanceError> {
     inputs.validate()?;
     let calendar = Calendar::new(inputs.commercial_operation, inputs.service_life_years)?;
-    let discount = FactorChain::discount(inputs.rates.discount_rate);
+    let present_value_date = inputs
+        .present_value_date
+        .unwrap_or(inputs.commercial_operation);
+    let base_years = calendar.time_of(present_value_date);
+    let discount = FactorChain::discount_to(inputs.rates.discount_rate, base_years);
 
     let capital = capital_rows(inputs, &calendar, &discount, sink)?;
     let settlement = settlement_row(inputs, &calendar, &discount, sink)?;
-    let operating = operating_rows(inputs, &calendar, sink)?;
+    let operating = operating_rows(inputs, &calendar, base_years, sink)?;
 
     // Residual value, credited at the end of life.
     let end_time = calendar.end_of_life_years();
@@ -278,6 +282,7 @@ fn run<M: Money>(
             calendar,
             rates: inputs.rates,
             timing: inputs.timing,
+            present_value_date,
         },
         present_value,
         lifecycle_cost,

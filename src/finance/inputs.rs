@@ -24,6 +24,13 @@ pub struct LedgerInputs<M: Money = Decimal> {
     pub rates: Rates,
     /// When within a year cash flows are counted.
     pub timing: Timing,
+    /// The date present values are stated at; `None`: commercial operation.
+    /// Every discount factor is to this date (a cash flow before it is
+    /// compounded to it). Prices stay stated at commercial operation and
+    /// escalate from there; only the discounting base moves, so every
+    /// present value is the commercial-operation one times
+    /// `(1 + d)^-(years from this date to commercial operation)`.
+    pub present_value_date: Option<NaiveDate>,
     /// Capital cost and when it is paid.
     pub capital: Capital<M>,
     /// A full year of new-and-clean operation, from the physics layer.
@@ -439,6 +446,7 @@ impl<M: Money> LedgerInputs<M> {
             service_life_years: self.service_life_years,
             rates: self.rates,
             timing: self.timing,
+            present_value_date: self.present_value_date,
             capital,
             operation: self.operation,
             fuel: Fuel {

@@ -83,7 +83,7 @@ pub struct LedgerRow<M: Money = Decimal> {
     pub residual: M,
     /// Sum of the row's money columns.
     pub total: M,
-    /// Discount factor to the base date at `cash_time_years`.
+    /// Discount factor to the present-value date at `cash_time_years`.
     pub discount_factor: M,
     /// `total` × `discount_factor`.
     pub present_value: M,
@@ -161,6 +161,9 @@ pub struct Analysis {
     pub rates: Rates,
     /// Cash timing convention.
     pub timing: Timing,
+    /// The date every present value is stated at (discounted or, for
+    /// construction payments before it, compounded to).
+    pub present_value_date: NaiveDate,
 }
 
 impl Analysis {
@@ -180,6 +183,9 @@ impl Analysis {
         }
         if self.timing != other.timing {
             return differs("cash timing");
+        }
+        if self.present_value_date != other.present_value_date {
+            return differs("present-value date");
         }
         Ok(())
     }

@@ -268,6 +268,7 @@ fn cash_time(timing: Timing, period: &Span, previous_fraction: Option<f64>) -> (
 pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
     inputs: &LedgerInputs<M>,
     calendar: &Calendar,
+    base_years: f64,
     sink: &mut S,
 ) -> Result<OperatingPart<M>, FinanceError> {
     let operation = &inputs.operation;
@@ -327,7 +328,7 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
         shortfall.capacity_price.price,
         shortfall.capacity_price.escalation,
     );
-    let mut discount = FactorChain::discount(inputs.rates.discount_rate);
+    let mut discount = FactorChain::discount_to(inputs.rates.discount_rate, base_years);
 
     let mut rows_present_value = M::ZERO;
     let mut pv_energy_mwh = 0.0;

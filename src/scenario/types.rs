@@ -182,6 +182,16 @@ pub enum Timing {
     MidYear,
 }
 
+/// The date present values are stated at (`economics.present_value_date`).
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
+pub enum PresentValueDate {
+    /// The commercial-operation date (the default).
+    #[default]
+    CommercialOperation,
+    /// The scenario's study date (`scenario.date`).
+    Study,
+}
+
 /// The `[economics]` section.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Economics {
@@ -198,6 +208,8 @@ pub struct Economics {
     pub inflation: f64,
     /// Discounting convention.
     pub timing: Timing,
+    /// The date present values are stated at.
+    pub present_value_date: PresentValueDate,
     /// Carbon price in the first year of operation, currency per tonne CO2.
     pub carbon_price_per_tonne: Decimal,
     /// Yearly carbon price escalation (fraction, > −1).

@@ -7,11 +7,12 @@
 //!   × (1 + escalation)^cash time, or the year's price from the path;
 //! - carbon = fuel energy × kg CO2/GJ ÷ 1000 × carbon price escalated;
 //! - fixed O&M = rated kW × share of the year × price per kW-yr;
-//! - fuel energy = year's fuel × share of the year × degradation multiplier
-//!   + starts per year × share of the year × start fuel;
-//! - variable O&M = MWh × price per MWh + fired hours × service fee per hour
-//!   + starts × (start cost + service fee per start); overhauls = count ×
-//!   cost (the counts, due on equivalent hours or starts, are constants);
+//! - fuel energy = year's fuel × share of the year × degradation multiplier,
+//!   plus starts per year × share of the year × start fuel;
+//! - variable O&M = MWh × price per MWh, plus fired hours × service fee per
+//!   hour, plus starts × (start cost + service fee per start);
+//! - overhauls = count × cost (the counts, due on equivalent hours or
+//!   starts, are constants);
 //! - energy and capacity bought in = shortfall × share of the year × value;
 //! - discount factor = (1 + rate)^−cash time; present value = total × factor.
 //!

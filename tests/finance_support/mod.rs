@@ -33,6 +33,7 @@ pub fn empty_inputs(service_life_years: u32, discount_rate: f64) -> LedgerInputs
             inflation: 0.02,
         },
         timing: Timing::EndOfYear,
+        present_value_date: None,
         capital: Capital::AtCommercialOperation(Decimal::ZERO),
         operation: Operation {
             operating_hours: 0.0,
@@ -90,6 +91,7 @@ pub fn busy_inputs() -> LedgerInputs {
             inflation: 0.025,
         },
         timing: Timing::EndOfYear,
+        present_value_date: None,
         capital: Capital::Schedule(vec![
             CapitalPayment {
                 date: date(2025, 7, 1),

@@ -61,10 +61,16 @@ fn ledger(life: u32, capital: i64, fuel: i64) -> Vec<LedgerRowView> {
             let overhaul = if i > 0 && i % 8 == 0 { 2_500_000 } else { 0 };
             let total = cap + fuel_cost + om + residual + overhaul + 150_000;
             LedgerRowView {
+                label: if i == 0 {
+                    "capital at commercial operation".into()
+                } else {
+                    format!("{} operation", 2027 + i)
+                },
                 year: 2027 + i as i32,
                 period_start: format!("{}-01-01", 2027 + i),
                 period_end: format!("{}-12-31", 2027 + i),
                 operating_hours: if i == 0 { 0.0 } else { 6500.0 },
+                starts: 0.0,
                 energy_mwh: if i == 0 { 0.0 } else { 273_000.0 },
                 fuel_energy_gj: if i == 0 { 0.0 } else { 2_700_000.0 },
                 fuel_cost: dec(fuel_cost),
@@ -206,7 +212,39 @@ fn candidate(
         } else {
             linear_savings(life, premium, per_year)
         },
+        ledger_total: total_of(&ledger(life, capital, 11_000_000 - per_year)),
         ledger: ledger(life, capital, 11_000_000 - per_year),
+    }
+}
+
+/// The totals row of a fixture ledger: each column summed.
+fn total_of(rows: &[LedgerRowView]) -> LedgerTotalView {
+    let sum = |pick: fn(&LedgerRowView) -> Decimal| rows.iter().map(pick).sum::<Decimal>();
+    LedgerTotalView {
+        label: "total".into(),
+        period_start: rows
+            .first()
+            .map(|r| r.period_start.clone())
+            .unwrap_or_default(),
+        period_end: rows
+            .last()
+            .map(|r| r.period_end.clone())
+            .unwrap_or_default(),
+        operating_hours: rows.iter().map(|r| r.operating_hours).sum(),
+        starts: 0.0,
+        energy_mwh: rows.iter().map(|r| r.energy_mwh).sum(),
+        fuel_energy_gj: rows.iter().map(|r| r.fuel_energy_gj).sum(),
+        fuel_cost: sum(|r| r.fuel_cost),
+        carbon_cost: sum(|r| r.carbon_cost),
+        fixed_om: sum(|r| r.fixed_om),
+        variable_om: sum(|r| r.variable_om),
+        overhaul: sum(|r| r.overhaul),
+        bought_in: sum(|r| r.bought_in),
+        capital: sum(|r| r.capital),
+        residual: sum(|r| r.residual),
+        guarantee_settlement: sum(|r| r.guarantee_settlement),
+        total: sum(|r| r.total),
+        present_value: sum(|r| r.present_value),
     }
 }
 
@@ -385,6 +423,8 @@ pub fn model(with_sensitivity: bool, with_risk: bool) -> Model {
             energy_value_per_mwh: dec(0),
             capacity_value_per_kw_year: dec(0),
             present_value_date: "2027-01-01".into(),
+            present_value_base: "commercial-operation".into(),
+            present_value_note: "Present values are stated at 2027-01-01, the commercial operation date: construction payments made before it are compounded to it and later cash is discounted to it; all amounts are in real money (constant money of 2025-03-14, general inflation taken out).".into(),
         },
         fuel_price_curves: FuelPriceCurves {
             scenario_price_per_gj: Decimal::new(520, 2),

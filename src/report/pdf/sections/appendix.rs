@@ -3,7 +3,7 @@
 
 use super::Ctx;
 use crate::report::format;
-use crate::report::model::LedgerRowView;
+use crate::report::model::{LedgerRowView, LedgerTotalView};
 use crate::report::pdf::document::{Composer, Orientation};
 use crate::report::pdf::fonts::Face;
 use crate::report::pdf::table::{draw_table_continued, Column, TableStyle};
@@ -13,7 +13,7 @@ use crate::report::pdf::table::{draw_table_continued, Column, TableStyle};
 fn row(r: &LedgerRowView, levelled: bool, settled: bool) -> Vec<String> {
     let m = |v| format::grouped(v, 0);
     let mut cells = vec![
-        r.year.to_string(),
+        r.label.clone(),
         format::number(r.operating_hours, 0),
         format::number(r.energy_mwh, 0),
         format::number(r.fuel_energy_gj, 0),
@@ -29,6 +29,32 @@ fn row(r: &LedgerRowView, levelled: bool, settled: bool) -> Vec<String> {
         m(r.total),
         format!("{:.4}", r.discount_factor),
         m(r.present_value),
+    ];
+    drop_hidden(&mut cells, levelled, settled);
+    cells
+}
+
+/// The totals row's cells (no discount factor: its present value is the
+/// sum of the rows', the lifecycle cost).
+fn total_row(t: &LedgerTotalView, label: &str, levelled: bool, settled: bool) -> Vec<String> {
+    let m = |v| format::grouped(v, 0);
+    let mut cells = vec![
+        label.to_string(),
+        format::number(t.operating_hours, 0),
+        format::number(t.energy_mwh, 0),
+        format::number(t.fuel_energy_gj, 0),
+        m(t.fuel_cost),
+        m(t.carbon_cost),
+        m(t.fixed_om),
+        m(t.variable_om),
+        m(t.overhaul),
+        m(t.bought_in),
+        m(t.capital),
+        m(t.residual),
+        m(t.guarantee_settlement),
+        m(t.total),
+        String::new(),
+        m(t.present_value),
     ];
     drop_hidden(&mut cells, levelled, settled);
     cells
@@ -93,7 +119,14 @@ pub fn ledger(ctx: &Ctx, composer: &mut Composer) {
             }
         }
         composer.heading(&c.label, 2, 30.0);
-        let rows: Vec<Vec<String>> = c.ledger.iter().map(|r| row(r, levelled, settled)).collect();
+        let mut rows: Vec<Vec<String>> =
+            c.ledger.iter().map(|r| row(r, levelled, settled)).collect();
+        rows.push(total_row(
+            &c.ledger_total,
+            &l.ledger_total,
+            levelled,
+            settled,
+        ));
         let caption = format!("{} ({})", c.label, l.continued);
         draw_table_continued(composer, &columns, &rows, &style, Some(&caption));
     }

@@ -14,7 +14,8 @@
 //! - overhauls = count × cost (the counts, due on equivalent hours or
 //!   starts, are constants);
 //! - energy and capacity bought in = shortfall × share of the year × value;
-//! - discount factor = (1 + rate)^−cash time; present value = total × factor.
+//! - discount factor = (1 + rate)^−(cash time − present-value date's time);
+//!   present value = total × factor.
 //!
 //! The ledger never rounds money; its one rounding is where a quantity
 //! (already times its escalation factor) becomes `Decimal`, at 15
@@ -407,7 +408,10 @@ impl LedgerSheet<'_> {
         let s = self.styles;
         let total = format!("=SUM({}:{})", at(r, col::FUEL), at(r, col::RESIDUAL));
         cells.formula(r, col::TOTAL, &total, f(row.total), &s.money.formula)?;
-        let factor = format!("=(1+DiscountRate)^(-{})", at(r, col::CASH_TIME));
+        let factor = format!(
+            "=(1+DiscountRate)^(-({}-PresentValueYears))",
+            at(r, col::CASH_TIME)
+        );
         cells.formula(
             r,
             col::FACTOR,

@@ -298,3 +298,20 @@ pub fn nominal_variant(dir: &Path) -> std::path::PathBuf {
     std::fs::write(&path, text).expect("variant written");
     path
 }
+
+/// The second demo with every present value stated at the study date
+/// (`economics.present_value_date = "study"`), written into `dir`. It
+/// exercises the discount factor's shift to the present-value date.
+pub fn study_date_variant(dir: &Path) -> std::path::PathBuf {
+    let text = std::fs::read_to_string(DEMOS[1]).expect("demo");
+    let from = "rate_basis = \"real\"";
+    assert!(text.contains(from), "the demo has {from}");
+    let text = text.replacen(
+        from,
+        "rate_basis = \"real\"\npresent_value_date = \"study\"",
+        1,
+    );
+    let path = dir.join("kestrel-study-date.toml");
+    std::fs::write(&path, text).expect("variant written");
+    path
+}

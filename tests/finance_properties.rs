@@ -99,10 +99,12 @@ prop_compose! {
                 interval_hours,
                 hours_per_start: 0.0,
                 interval_starts: None,
+                outage_days: 0.0,
+                outage_capacity_kw: 0.0,
                 cost: cents(overhaul_cost),
                 escalation: escalations[4],
             }),
-            degradation: Degradation { heat_rate_fraction_per_year: degradation.0, recoverable_fraction: degradation.1 },
+            degradation: Degradation { heat_rate_fraction_per_year: degradation.0, output_fraction_per_year: 0.0, recoverable_fraction: degradation.1 },
             residual: Residual { value: ResidualValue::FractionOfCapital(residual_fraction), escalation: 0.0 },
             bought_in: BoughtIn {
                 energy_mwh_per_year: shortfall.0,

@@ -31,6 +31,8 @@ fn peaker(overhaul_starts: Option<f64>) -> LedgerInputs {
         interval_hours: 24_000.0,
         hours_per_start: 20.0,
         interval_starts: overhaul_starts,
+        outage_days: 0.0,
+        outage_capacity_kw: 0.0,
         cost: dec("1000000.00"),
         escalation: 0.0,
     });
@@ -109,6 +111,7 @@ fn degradation_recovers_at_the_overhauls_starts_bring_forward() {
     let mut with_starts = peaker(None);
     with_starts.degradation = Degradation {
         heat_rate_fraction_per_year: 0.01,
+        output_fraction_per_year: 0.0,
         recoverable_fraction: 1.0,
     };
     let mut plain = with_starts.clone();
@@ -117,6 +120,8 @@ fn degradation_recovers_at_the_overhauls_starts_bring_forward() {
         interval_hours: 24_000.0 / 7.0,
         hours_per_start: 0.0,
         interval_starts: None,
+        outage_days: 0.0,
+        outage_capacity_kw: 0.0,
         cost: dec("1000000.00"),
         escalation: 0.0,
     });
@@ -269,4 +274,108 @@ fn zero_starts_leave_the_ledger_unchanged() {
             .summary
             .lifecycle_cost
     );
+}
+
+/// The peaker with an energy value of 80.00 per MWh and a capacity value of
+/// 90.00 per kW-year to buy in what it loses (invented figures).
+fn peaker_buying_losses() -> LedgerInputs {
+    let mut inputs = peaker(None);
+    inputs.bought_in.energy_price = EscalatingPrice {
+        price: dec("80.00"),
+        escalation: 0.0,
+    };
+    inputs.bought_in.capacity_price = EscalatingPrice {
+        price: dec("90.00"),
+        escalation: 0.0,
+    };
+    inputs
+}
+
+fn operating_rows(inputs: &LedgerInputs) -> Vec<brayfin::finance::LedgerRow> {
+    build_ledger(inputs)
+        .expect("ledger")
+        .rows
+        .into_iter()
+        .filter(|r| r.kind == RowKind::Operation)
+        .collect()
+}
+
+/// Hand-worked outage: 36.5 days per overhaul is 10 % of a 365-day year.
+/// In the overhaul years (7 and 14) the peaker runs 450 of its 500 hours,
+/// 135 of its 150 starts, and delivers 18 000 of its 20 000 MWh on 90 % of
+/// its fuel; it buys the 2 000 MWh lost at 80.00 (160 000.00) and 10 % of a
+/// year of its 40 000 kW at 90.00 per kW-year (360 000.00): 520 000.00.
+/// Other years are untouched.
+#[test]
+fn an_outage_buys_the_energy_and_capacity_lost() {
+    let mut inputs = peaker_buying_losses();
+    if let Some(overhaul) = inputs.overhaul.as_mut() {
+        overhaul.outage_days = 36.5;
+        overhaul.outage_capacity_kw = 40_000.0;
+    }
+    let plain = operating_rows(&peaker_buying_losses());
+    let rows = operating_rows(&inputs);
+    for (i, (row, base)) in rows.iter().zip(&plain).enumerate() {
+        if i == 6 || i == 13 {
+            assert_eq!(row.overhaul_count, 1);
+            assert!((row.operating_hours - 450.0).abs() < 1e-9);
+            assert!((row.starts - 135.0).abs() < 1e-9);
+            assert!((row.energy_mwh - 18_000.0).abs() < 1e-9);
+            assert!((row.fuel_energy_gj - 0.9 * base.fuel_energy_gj).abs() < 1e-6);
+            assert_eq!(row.bought_in, dec("520000"), "year {}", i + 1);
+            assert!((row.in_service - 0.9).abs() < 1e-12);
+        } else {
+            assert_eq!(row.energy_mwh, base.energy_mwh);
+            assert_eq!(row.fuel_energy_gj, base.fuel_energy_gj);
+            assert_eq!(row.bought_in, base.bought_in, "year {}", i + 1);
+        }
+    }
+    // No outage days: the ledger is the one without outages.
+    let mut none = peaker_buying_losses();
+    if let Some(overhaul) = none.overhaul.as_mut() {
+        overhaul.outage_capacity_kw = 40_000.0;
+    }
+    assert_eq!(
+        build_ledger(&none).expect("ledger"),
+        build_ledger(&peaker_buying_losses()).expect("ledger")
+    );
+}
+
+/// Hand-worked output degradation of 1 % a year, all of it recoverable, at
+/// the peaker's overhauls (at 48/7 = 6.857 and 13.714 years):
+/// - year 7 (6 to 7 years): worn time runs 6 → 6.857 and, after the
+///   overhaul, 0 → 0.143 years; mean (6.857² − 6² + 0.143²) / 2 = 5.5204
+///   years, so 5.5204 % is lost;
+/// - year 8 (7 to 8): 0.143 → 1.143 years since the overhaul, mean 0.6429:
+///   0.6429 % lost, where 7.5 % would be lost without the recovery.
+///
+/// The energy lost is bought at 80.00 per MWh, delivered plus lost is the
+/// new-and-clean 20 000 MWh in every year, and the fuel per MWh delivered
+/// stays the new-and-clean 10 GJ/MWh (no heat-rate degradation).
+#[test]
+fn output_degradation_is_restored_at_overhaul_and_bought_in() {
+    let t: f64 = 48.0 / 7.0;
+    let year7 = (t * t - 36.0 + (7.0 - t) * (7.0 - t)) / 2.0 * 0.01;
+    let year8 = ((7.0 - t) + (8.0 - t)) / 2.0 * 0.01;
+    assert!((year7 - 0.055_204).abs() < 1e-6, "{year7}");
+    assert!((year8 - 0.006_429).abs() < 1e-6, "{year8}");
+    let mut inputs = peaker_buying_losses();
+    inputs.degradation = Degradation {
+        heat_rate_fraction_per_year: 0.0,
+        output_fraction_per_year: 0.01,
+        recoverable_fraction: 1.0,
+    };
+    let rows = operating_rows(&inputs);
+    assert!((rows[6].energy_mwh - 20_000.0 * (1.0 - year7)).abs() < 1e-6);
+    assert!((rows[7].energy_mwh - 20_000.0 * (1.0 - year8)).abs() < 1e-6);
+    for row in &rows {
+        let lost = 20_000.0 - row.energy_mwh;
+        let bought: f64 = row.bought_in.to_string().parse().expect("decimal");
+        assert!((bought - lost * 80.0).abs() < 0.005, "year {}", row.year);
+        assert!((row.fuel_energy_gj / row.energy_mwh - 10.0).abs() < 1e-9);
+    }
+    // Nothing recoverable: year 8 loses the 7.5 % accrued since new.
+    inputs.degradation.recoverable_fraction = 0.0;
+    let rows = operating_rows(&inputs);
+    assert!((rows[7].energy_mwh - 20_000.0 * (1.0 - 0.075)).abs() < 1e-6);
 }

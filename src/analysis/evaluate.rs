@@ -275,11 +275,14 @@ pub fn ledger_inputs(
             interval_hours: costs.overhaul_interval_hours,
             hours_per_start: costs.hours_per_start,
             interval_starts: (costs.overhaul_starts > 0.0).then_some(costs.overhaul_starts),
+            outage_days: costs.overhaul_outage_days,
+            outage_capacity_kw: site_output_kw,
             cost: costs.overhaul_cost,
             escalation: 0.0,
         }),
         degradation: Degradation {
             heat_rate_fraction_per_year: costs.degradation_per_year,
+            output_fraction_per_year: costs.output_degradation_per_year,
             recoverable_fraction: costs.recoverable_fraction,
         },
         residual: Residual {

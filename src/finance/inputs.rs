@@ -281,27 +281,41 @@ pub struct Overhaul<M: Money = Decimal> {
     pub hours_per_start: f64,
     /// Starts between overhauls, if starts limit them (positive).
     pub interval_starts: Option<f64>,
+    /// Days out of service per overhaul (0 or more). The row's operation
+    /// (fired hours, starts, energy and fuel) falls by the outage's share of
+    /// the year, and the energy and capacity lost are bought in at the
+    /// [`BoughtIn`] prices.
+    pub outage_days: f64,
+    /// Capacity lost while out of service, kW (the base-load output at the
+    /// site; 0 or more).
+    pub outage_capacity_kw: f64,
     /// Cost of one overhaul at the base date.
     pub cost: M,
     /// Escalation per year on the analysis basis.
     pub escalation: f64,
 }
 
-/// Heat-rate degradation.
+/// Heat-rate and output degradation.
 ///
 /// Model: degradation accrues in proportion to operating hours (`g` per year
 /// of operation at the stated annual hours); each overhaul recovers the
 /// recoverable share of what accrued since the previous overhaul, the rest
 /// accumulates for the life. A row's fuel energy is the new-and-clean fuel
-/// energy times the mean of `1 + degradation` over the row's hours. Output
-/// is held; degradation raises fuel burn only.
+/// energy times the mean of `1 + degradation` over the row's hours, times
+/// `1 − output loss`. Output degradation lowers the energy delivered (the
+/// heat rate of what is delivered is set by heat-rate degradation alone);
+/// the energy lost is bought in at the [`BoughtIn`] energy price.
 #[derive(Debug, Clone, Copy, PartialEq, Default)]
 pub struct Degradation {
     /// Heat-rate increase per year of operation at the stated annual hours,
     /// as a fraction of the new-and-clean heat rate (0.005 = 0.5 % per year),
     /// 0 to below 1.
     pub heat_rate_fraction_per_year: f64,
-    /// Share of the degradation that each overhaul recovers, 0 to 1.
+    /// Output loss per year of operation at the stated annual hours, as a
+    /// fraction of the new-and-clean output, 0 to below 1.
+    pub output_fraction_per_year: f64,
+    /// Share of the degradation that each overhaul recovers, 0 to 1 (heat
+    /// rate and output alike).
     pub recoverable_fraction: f64,
 }
 
@@ -473,6 +487,8 @@ impl<M: Money> LedgerInputs<M> {
                 interval_hours: o.interval_hours,
                 hours_per_start: o.hours_per_start,
                 interval_starts: o.interval_starts,
+                outage_days: o.outage_days,
+                outage_capacity_kw: o.outage_capacity_kw,
                 cost: convert(o.cost),
                 escalation: o.escalation,
             }),

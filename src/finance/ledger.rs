@@ -59,6 +59,15 @@ pub struct LedgerRow<M: Money = Decimal> {
     /// Fuel energy burned in the period including degradation and start
     /// fuel, GJ (LHV).
     pub fuel_energy_gj: f64,
+    /// Mean heat-rate multiplier of the period, `1 + degradation` (1 for a
+    /// single-date row).
+    pub heat_rate_multiplier: f64,
+    /// Mean output lost to degradation in the period, a fraction of the
+    /// new-and-clean output.
+    pub output_loss: f64,
+    /// Share of the period's operation in service (1 less the overhaul
+    /// outages' share).
+    pub in_service: f64,
     /// Overhauls done in the period.
     pub overhaul_count: u32,
     /// Fuel cost.

@@ -17,6 +17,12 @@ const FIXED_OM: &str = "fixed O&M";
 const VARIABLE_OM: &str = "variable O&M";
 const OVERHAUL_COST: &str = "overhaul cost";
 const START_COST: &str = "start cost";
+const LOST_ENERGY: &str = "energy lost to outages and output degradation";
+const LOST_CAPACITY: &str = "capacity lost to outages";
+
+/// Days in the year an outage's share is counted against (365: the share of
+/// a common year; common practice for availability figures).
+const DAYS_PER_YEAR: f64 = 365.0;
 const SERVICE_PER_HOUR: &str = "service fee per fired hour";
 const SERVICE_PER_START: &str = "service fee per start";
 const BOUGHT_IN_ENERGY: &str = "energy bought in";
@@ -275,10 +281,18 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
     let overhaul = inputs.overhaul;
     let mut wear = WearModel::new(
         operation.operating_hours,
-        inputs.degradation.heat_rate_fraction_per_year,
+        (
+            inputs.degradation.heat_rate_fraction_per_year,
+            inputs.degradation.output_fraction_per_year,
+        ),
         inputs.degradation.recoverable_fraction,
         overhaul.and_then(|o| o.operating_hours_between(operation)),
     );
+    // Outages: the share of a year each overhaul takes out of service (a
+    // year of 365 days), and the capacity lost meanwhile.
+    let (outage_year_share, outage_capacity_kw) = overhaul.map_or((0.0, 0.0), |o| {
+        (o.outage_days / DAYS_PER_YEAR, o.outage_capacity_kw)
+    });
     let starts_per_year = operation.starts_per_year;
     let start_fuel_per_year = starts_per_year * inputs.starts.fuel_gj_lhv_per_start;
     let mut start_cost = priced_stream(START_COST, &inputs.starts.cost_per_start, starts_per_year);
@@ -328,6 +342,22 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
         shortfall.capacity_price.price,
         shortfall.capacity_price.escalation,
     );
+    let loses_energy = inputs.degradation.output_fraction_per_year > 0.0
+        || (outage_year_share > 0.0 && operation.energy_mwh > 0.0);
+    let mut lost_energy = OptionalStream::new(
+        loses_energy && shortfall.energy_price.price != M::ZERO,
+        LOST_ENERGY,
+        shortfall.energy_price.price,
+        shortfall.energy_price.escalation,
+    );
+    let mut lost_capacity = OptionalStream::new(
+        outage_year_share > 0.0
+            && outage_capacity_kw > 0.0
+            && shortfall.capacity_price.price != M::ZERO,
+        LOST_CAPACITY,
+        shortfall.capacity_price.price,
+        shortfall.capacity_price.escalation,
+    );
     let mut discount = FactorChain::discount_to(inputs.rates.discount_rate, base_years);
 
     let mut rows_present_value = M::ZERO;
@@ -343,17 +373,36 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
         let fraction = period.fraction_of_year;
         let from_hours = operation.operating_hours * period.time_start_years;
         let to_hours = operation.operating_hours * period.time_end_years;
-        let operating_hours = operation.operating_hours * fraction;
-        let energy_mwh = operation.energy_mwh * fraction;
+        let mut operating_hours = operation.operating_hours * fraction;
+        let new_and_clean_mwh = operation.energy_mwh * fraction;
+        let mut energy_mwh = new_and_clean_mwh;
         let wear = wear.row(from_hours, to_hours, index == last_index);
         let mut fuel_energy_gj =
             operation.fuel_energy_gj_lhv * fraction * wear.heat_rate_multiplier;
+        if wear.output_loss > 0.0 {
+            // Output degradation: less delivered, at the degraded heat rate.
+            energy_mwh *= 1.0 - wear.output_loss;
+            fuel_energy_gj *= 1.0 - wear.output_loss;
+        }
         if start_fuel_per_year > 0.0 {
             // Start fuel: burned per start, not degraded.
             fuel_energy_gj += start_fuel_per_year * fraction;
         }
-        let starts = starts_per_year * fraction;
+        let mut starts = starts_per_year * fraction;
         let overhaul_count = wear.overhaul_count;
+        // Outage: the row's operation falls by the share out of service.
+        let outage_share = if outage_year_share > 0.0 && overhaul_count > 0 && fraction > 0.0 {
+            (f64::from(overhaul_count) * outage_year_share / fraction).min(1.0)
+        } else {
+            0.0
+        };
+        let in_service = 1.0 - outage_share;
+        if outage_share > 0.0 {
+            operating_hours *= in_service;
+            energy_mwh *= in_service;
+            fuel_energy_gj *= in_service;
+            starts *= in_service;
+        }
 
         // Quantities meet prices.
         let discount_value = discount.advance(step);
@@ -400,6 +449,22 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
             "energy and capacity bought in",
             year,
         )?;
+        // Energy lost to outages and output degradation, and capacity lost
+        // to outages, bought in at the same prices.
+        let bought_in = lost_energy.add_cost(
+            bought_in,
+            new_and_clean_mwh - energy_mwh,
+            step,
+            discount_value,
+            year,
+        )?;
+        let bought_in = lost_capacity.add_cost(
+            bought_in,
+            outage_capacity_kw * outage_share * fraction,
+            step,
+            discount_value,
+            year,
+        )?;
         let total = [carbon_cost, fixed_om, variable_om, overhaul, bought_in]
             .into_iter()
             .try_fold(fuel_cost, |sum, x| add(sum, x, "row total", year))?;
@@ -431,6 +496,9 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
             energy_mwh,
             starts,
             fuel_energy_gj,
+            heat_rate_multiplier: wear.heat_rate_multiplier,
+            output_loss: wear.output_loss,
+            in_service,
             overhaul_count,
             fuel_cost,
             carbon_cost,
@@ -456,11 +524,14 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
                 stream.add_present_value(sum, last_year)
             })?,
         overhaul: overhauls.present_value(last_year)?,
-        bought_in: add(
-            bought_in_energy.present_value(last_year)?,
-            bought_in_capacity.present_value(last_year)?,
-            "energy and capacity bought in",
-            last_year,
+        bought_in: [&lost_energy, &lost_capacity].into_iter().try_fold(
+            add(
+                bought_in_energy.present_value(last_year)?,
+                bought_in_capacity.present_value(last_year)?,
+                "energy and capacity bought in",
+                last_year,
+            )?,
+            |sum, stream| stream.add_present_value(sum, last_year),
         )?,
         ..StreamTotals::ZERO
     };

@@ -152,6 +152,20 @@ impl<M: Money> LedgerInputs<M> {
                 f64::MAX,
                 NON_NEGATIVE,
             )?;
+            check_range(
+                "overhaul.outage_days",
+                overhaul.outage_days,
+                0.0,
+                365.0,
+                "0 to 365 days per overhaul",
+            )?;
+            check_range(
+                "overhaul.outage_capacity_kw",
+                overhaul.outage_capacity_kw,
+                0.0,
+                f64::MAX,
+                NON_NEGATIVE,
+            )?;
             if let Some(starts) = overhaul.interval_starts {
                 if !(starts.is_finite() && starts > 0.0) {
                     return Err(FinanceError::OutOfRange {
@@ -168,6 +182,13 @@ impl<M: Money> LedgerInputs<M> {
         check_range(
             "degradation.heat_rate_fraction_per_year",
             degradation.heat_rate_fraction_per_year,
+            0.0,
+            0.999_999,
+            "0 to below 1 per year",
+        )?;
+        check_range(
+            "degradation.output_fraction_per_year",
+            degradation.output_fraction_per_year,
             0.0,
             0.999_999,
             "0 to below 1 per year",

@@ -173,6 +173,10 @@ pub struct CandidateCosts {
     pub hours_per_start: f64,
     /// Starts between major overhauls; 0 means starts do not limit them.
     pub overhaul_starts: f64,
+    /// Days out of service per major overhaul.
+    pub overhaul_outage_days: f64,
+    /// Output loss per year of operation (fraction per year).
+    pub output_degradation_per_year: f64,
     /// Fuel burned per start, GJ (LHV).
     pub start_fuel_gj: f64,
     /// Cost per start (O&M), currency.

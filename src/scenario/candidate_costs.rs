@@ -100,6 +100,32 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
     )
     .within(0.0, 1e6, "", "hundreds to a few thousand starts in practice (common practice); a million would never fall due"),
     K::number(
+        "costs.overhaul_outage_days",
+        Kind::Number,
+        Range::NonNegative,
+        Presence::Default { text: "0", value: 0.0 },
+        "days out of service per major overhaul; the energy and capacity lost meanwhile are bought in at `economics.energy_value` and `capacity_value`",
+        |c| Some(c.costs.overhaul_outage_days),
+        |c, v| {
+            c.costs.overhaul_outage_days = v;
+            Ok(())
+        },
+    )
+    .within(0.0, 365.0, "", "a major overhaul takes days to a few weeks (common practice); a year is the most a yearly ledger row can lose"),
+    K::number(
+        "costs.output_degradation_per_year",
+        Kind::Fraction,
+        Range::Loss,
+        Presence::Default { text: "0 %", value: 0.0 },
+        "net output lost per year of operation; `recoverable_fraction` of it is restored at each overhaul; the energy lost is bought in at `economics.energy_value`",
+        |c| Some(c.costs.output_degradation_per_year),
+        |c, v| {
+            c.costs.output_degradation_per_year = v;
+            Ok(())
+        },
+    )
+    .within(0.0, 0.2, "", "a fraction of a per cent to a few per cent a year in practice (common practice)"),
+    K::number(
         "costs.start_fuel",
         Kind::FuelEnergy,
         Range::NonNegative,
@@ -216,6 +242,17 @@ pub(crate) fn read_costs(
             "expected an overhaul_interval above 0 h (in equivalent hours), e.g. \"24000 h\"",
         ));
     }
+    let overhaul_outage_days = t.declared_at(ctx, KEYS, "costs.overhaul_outage_days")?;
+    if overhaul_outage_days > 0.0 && overhaul_interval_hours <= 0.0 {
+        return Err(t.error(
+            ctx,
+            "overhaul_outage_days",
+            "is given but overhaul_interval is 0 h",
+            "expected an overhaul_interval above 0 h, e.g. \"24000 h\"",
+        ));
+    }
+    let output_degradation_per_year =
+        t.declared_at(ctx, KEYS, "costs.output_degradation_per_year")?;
     let start_fuel_gj = t.declared_at(ctx, KEYS, "costs.start_fuel")?;
     let start_cost = money_or_zero(ctx, &t, "start_cost", units::money, "")?;
     let service_fee_per_fired_hour =
@@ -232,6 +269,8 @@ pub(crate) fn read_costs(
         overhaul_cost,
         hours_per_start,
         overhaul_starts,
+        overhaul_outage_days,
+        output_degradation_per_year,
         start_fuel_gj,
         start_cost,
         service_fee_per_fired_hour,

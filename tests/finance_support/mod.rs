@@ -140,11 +140,14 @@ pub fn busy_inputs() -> LedgerInputs {
             interval_hours: 24_000.0,
             hours_per_start: 0.0,
             interval_starts: None,
+            outage_days: 0.0,
+            outage_capacity_kw: 0.0,
             cost: dec("2400000.00"),
             escalation: 0.01,
         }),
         degradation: Degradation {
             heat_rate_fraction_per_year: 0.004,
+            output_fraction_per_year: 0.0,
             recoverable_fraction: 0.7,
         },
         residual: Residual {
@@ -178,6 +181,8 @@ pub fn busy_baseline() -> LedgerInputs {
         interval_hours: 20_000.0,
         hours_per_start: 0.0,
         interval_starts: None,
+        outage_days: 0.0,
+        outage_capacity_kw: 0.0,
         cost: dec("2100000.00"),
         escalation: 0.01,
     });

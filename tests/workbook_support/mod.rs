@@ -287,7 +287,7 @@ pub fn nominal_variant(dir: &Path) -> std::path::PathBuf {
         ("rate_basis = \"real\"", "rate_basis = \"nominal\""),
         ("discount_rate = \"8 %\"", "discount_rate = \"10.16 %\""),
         (
-            "overhaul_interval = \"32000 h\"\noverhaul_cost = \"2600000 EUR\"\n",
+            "overhaul_interval = \"32000 h\"\noverhaul_cost = \"2600000 EUR\"\noverhaul_outage_days = 21\n",
             "",
         ),
     ] {

@@ -66,6 +66,8 @@ fn costs(dst: &mut CandidateCosts, src: &CandidateCosts) {
         overhaul_cost,
         hours_per_start,
         overhaul_starts,
+        overhaul_outage_days,
+        output_degradation_per_year,
         start_fuel_gj,
         start_cost,
         service_fee_per_fired_hour,
@@ -81,6 +83,8 @@ fn costs(dst: &mut CandidateCosts, src: &CandidateCosts) {
     dst.overhaul_cost = *overhaul_cost;
     dst.hours_per_start = *hours_per_start;
     dst.overhaul_starts = *overhaul_starts;
+    dst.overhaul_outage_days = *overhaul_outage_days;
+    dst.output_degradation_per_year = *output_degradation_per_year;
     dst.start_fuel_gj = *start_fuel_gj;
     dst.start_cost = *start_cost;
     dst.service_fee_per_fired_hour = *service_fee_per_fired_hour;

@@ -195,6 +195,28 @@ pub(super) fn write(
         Origin::Input,
     )?;
     w.named(
+        "Output degradation",
+        &n.name("OutputDegradation"),
+        Shown::Percent(inputs.degradation.output_fraction_per_year),
+        "per year of operation",
+        &format!(
+            "{}; enters the ledger through the output-lost column (computed constants); the energy lost is bought in at EnergyValue",
+            source_of(loaded, &key("costs.output_degradation_per_year"))
+        ),
+        Origin::Input,
+    )?;
+    w.named(
+        "Outage per overhaul",
+        &n.name("OutageDays"),
+        Shown::Number(inputs.overhaul.map_or(0.0, |o| o.outage_days)),
+        "days",
+        &format!(
+            "{}; enters the ledger through the share-in-service column (computed constants: 1 − overhauls × days ÷ 365 ÷ share of the year); the energy and capacity lost are bought in",
+            source_of(loaded, &key("costs.overhaul_outage_days"))
+        ),
+        Origin::Input,
+    )?;
+    w.named(
         "Degradation recovered at overhaul",
         &n.name("Recoverable"),
         Shown::Percent(inputs.degradation.recoverable_fraction),

@@ -379,3 +379,30 @@ fn output_degradation_is_restored_at_overhaul_and_bought_in() {
     let rows = operating_rows(&inputs);
     assert!((rows[7].energy_mwh - 20_000.0 * (1.0 - 0.075)).abs() < 1e-6);
 }
+
+/// The scenario keys reach the ledger inputs: starts from `[operation]`,
+/// start fuel converted from MMBtu (1 MMBtu = 1.055056 GJ, NIST SP 811
+/// B.8 as the trade rounds it), the starts limit, outage days and output
+/// degradation from `[candidate.costs]`.
+#[test]
+fn scenario_keys_reach_the_ledger_inputs() {
+    let text = std::fs::read_to_string("scenarios/corvel-bay-peaker.toml").expect("demo");
+    let text = text
+        .replacen("start_fuel = \"110 GJ\"", "start_fuel = \"100 MMBtu\"\noverhaul_outage_days = 12\noutput_degradation_per_year = \"0.4 %\"", 1);
+    let loaded = brayfin::scenario::parse(&text, "corvel.toml").expect("scenario");
+    let study = brayfin::analysis::compare::run_study(&loaded).expect("study");
+    let standard = &study.outcomes[0].inputs;
+    assert_eq!(standard.operation.starts_per_year, 120.0);
+    assert!((standard.starts.fuel_gj_lhv_per_start - 105.5056).abs() < 1e-9);
+    assert_eq!(standard.starts.cost_per_start.price, dec("900"));
+    assert!((standard.degradation.output_fraction_per_year - 0.004).abs() < 1e-15);
+    let overhaul = standard.overhaul.expect("overhauls");
+    assert_eq!(overhaul.hours_per_start, 10.0);
+    assert_eq!(overhaul.interval_starts, None);
+    assert_eq!(overhaul.outage_days, 12.0);
+    let site_kw = study.outcomes[0].solved.site.net_output_kw;
+    assert_eq!(overhaul.outage_capacity_kw, site_kw);
+    let premium = study.outcomes[1].inputs.overhaul.expect("overhauls");
+    assert_eq!(premium.interval_starts, Some(1_000.0));
+    assert_eq!(study.outcomes[1].inputs.service.per_start.price, dec("400"));
+}

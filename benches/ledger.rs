@@ -2,7 +2,10 @@
 //! its totals alone (`summary_30y`, what sampling and sweeps run), the full
 //! ledger, and the ledger with all metrics against a baseline, in `Decimal`
 //! (the printed ledger) and `f64` (sampling and sweeps). Target: ledger plus
-//! all metrics against a baseline ≤ 25 µs median in `Decimal`.
+//! all metrics against a baseline ≤ 25 µs median in `Decimal`. The
+//! `*_maintenance` groups add starts (start fuel, start cost, service fees),
+//! an equivalent-hours and starts overhaul limit, outages and output
+//! degradation to both ledgers.
 
 use brayfin::finance::{
     build_ledger, compare_ledgers, compare_summaries, summarize_ledger, LedgerInputs, Money,
@@ -58,6 +61,36 @@ fn ledger_benches(c: &mut Criterion) {
     let baseline = finance_support::busy_baseline();
     bench_number_type(c, "decimal", &candidate, &baseline);
     bench_number_type(c, "f64", &candidate.to_f64(), &baseline.to_f64());
+    let (candidate, baseline) = (with_maintenance(candidate), with_maintenance(baseline));
+    bench_number_type(c, "decimal_maintenance", &candidate, &baseline);
+    bench_number_type(
+        c,
+        "f64_maintenance",
+        &candidate.to_f64(),
+        &baseline.to_f64(),
+    );
+}
+
+/// The busy inputs with every starts and maintenance stream on (invented
+/// figures).
+fn with_maintenance(mut inputs: LedgerInputs) -> LedgerInputs {
+    let price = |text: &str| brayfin::finance::EscalatingPrice {
+        price: finance_support::dec(text),
+        escalation: 0.0,
+    };
+    inputs.operation.starts_per_year = 150.0;
+    inputs.starts.fuel_gj_lhv_per_start = 110.0;
+    inputs.starts.cost_per_start = price("900.00");
+    inputs.service.per_fired_hour = price("40.00");
+    inputs.service.per_start = price("400.00");
+    inputs.degradation.output_fraction_per_year = 0.002;
+    if let Some(overhaul) = inputs.overhaul.as_mut() {
+        overhaul.hours_per_start = 10.0;
+        overhaul.interval_starts = Some(1_200.0);
+        overhaul.outage_days = 21.0;
+        overhaul.outage_capacity_kw = 48_000.0;
+    }
+    inputs
 }
 
 criterion_group!(benches, ledger_benches);

@@ -76,6 +76,8 @@ pub enum Kind {
     EmissionFactor,
     /// Mass flow, e.g. a turbine's exhaust flow (internal unit kg/s).
     MassFlow,
+    /// Fuel energy, e.g. the fuel burned per start (internal unit GJ).
+    FuelEnergy,
 }
 
 impl Kind {
@@ -98,6 +100,7 @@ impl Kind {
             Kind::Duration => "a duration",
             Kind::EmissionFactor => "an emission factor",
             Kind::MassFlow => "a mass flow",
+            Kind::FuelEnergy => "an amount of fuel energy",
         }
     }
 
@@ -120,6 +123,7 @@ impl Kind {
             Kind::Duration => "h; bare number = h",
             Kind::EmissionFactor => "kg/GJ, kg/TJ, kg/MMBtu, lb/MMBtu; bare number = kg/GJ",
             Kind::MassFlow => "kg/s, t/h, lb/s; bare number = kg/s",
+            Kind::FuelEnergy => "GJ, MJ, MMBtu, therm, MWh; bare number = GJ",
         }
     }
 }
@@ -253,6 +257,14 @@ const UNITS: &[Unit] = &[
     // 1 t/h = 1000 kg / 3600 s (SI definitions).
     unit("t/h", Kind::MassFlow, 1000.0 / 3600.0, 0.0),
     unit("lb/s", Kind::MassFlow, KG_PER_LB, 0.0),
+    unit("GJ", Kind::FuelEnergy, 1.0, 0.0),
+    unit("MJ", Kind::FuelEnergy, 1.0e-3, 0.0),
+    // 1 MMBtu = 10^6 Btu_IT = 1.055056 GJ (KJ_PER_BTU).
+    unit("MMBtu", Kind::FuelEnergy, KJ_PER_BTU, 0.0),
+    // 1 therm = 10^5 Btu_IT (NIST SP 811, Appendix B.8).
+    unit("therm", Kind::FuelEnergy, 0.1 * KJ_PER_BTU, 0.0),
+    // 1 MWh = 3600 MJ (SI definitions).
+    unit("MWh", Kind::FuelEnergy, 3.6, 0.0),
 ];
 
 /// The kind of quantity `text` states by its unit, or `None` when it has no
@@ -387,6 +399,20 @@ pub fn emission_factor_kg_per_gj(text: &str) -> Result<f64, UnitError> {
 /// turbine's exhaust flow.
 pub fn mass_flow_kg_per_s(text: &str) -> Result<f64, UnitError> {
     convert(text, Kind::MassFlow)
+}
+
+/// Fuel energy in GJ from GJ, MJ, MMBtu, therm or MWh (bare number: GJ),
+/// e.g. the fuel a start burns. A negative amount is an error.
+pub fn fuel_energy_gj(text: &str) -> Result<f64, UnitError> {
+    let energy = convert(text, Kind::FuelEnergy)?;
+    if energy < 0.0 {
+        return Err(UnitError::new(
+            Kind::FuelEnergy,
+            text,
+            Problem::OutOfRange("is negative; an amount of fuel energy is at least 0".into()),
+        ));
+    }
+    Ok(energy)
 }
 
 /// Length in m from m or ft (bare number: m), e.g. a site elevation.

@@ -126,11 +126,11 @@ fn the_smaller_bid_buys_its_shortfall_every_year() {
         .iter()
         .filter(|r| r.kind == RowKind::Operation);
     for row in operating {
-        let got = row.replacement.to_f64();
+        let got = row.bought_in.to_f64();
         assert!(near(got, 1_680_000.0), "{}: {got}", row.year);
     }
-    assert!(large.ledger.rows.iter().all(|r| r.replacement.is_zero()));
-    let pv = small.ledger.summary.present_value.replacement.to_f64();
+    assert!(large.ledger.rows.iter().all(|r| r.bought_in.is_zero()));
+    let pv = small.ledger.summary.present_value.bought_in.to_f64();
     let expected = 1_680_000.0 * uniform_present_value(0.07, 20);
     assert!(near(pv, expected), "{pv} vs {expected}");
 }
@@ -153,12 +153,12 @@ fn the_energy_shortfall_follows_the_dispatch_profile() {
         .iter()
         .find(|r| r.kind == RowKind::Operation)
         .expect("an operating year");
-    let got = row.replacement.to_f64();
+    let got = row.bought_in.to_f64();
     assert!(near(got, 1_528_000.0), "{got}");
 }
 
 /// Valuing the shortfall moves the larger bid's net savings against the
-/// smaller by exactly the present value of the smaller's replacement, and
+/// smaller by exactly the present value of the smaller's bought_in, and
 /// leaves both levelized costs as they were (they are each candidate's own
 /// cost per MWh).
 #[test]
@@ -172,7 +172,7 @@ fn levelling_moves_net_savings_but_not_levelized_cost() {
             .savings
             .net_savings
     };
-    let stream = valued.outcomes[0].ledger.summary.present_value.replacement;
+    let stream = valued.outcomes[0].ledger.summary.present_value.bought_in;
     assert!(stream > Decimal::ZERO);
     // The stream's total is priced once over its discounted quantities, the
     // lifecycle cost sums the rows: equal within about 1e-14 relative (see
@@ -234,7 +234,7 @@ fn points_level_like_the_study() {
         let charged: Vec<bool> = expected
             .outcomes
             .iter()
-            .map(|o| !o.ledger.summary.present_value.replacement.is_zero())
+            .map(|o| !o.ledger.summary.present_value.bought_in.is_zero())
             .collect();
         let small_is_largest = values[0] > 44_000.0;
         assert_eq!(charged, vec![!small_is_largest, small_is_largest]);

@@ -115,10 +115,15 @@ fn degradation_and_overhauls_hand_computed() {
     inputs.operation.fuel_energy_gj_lhv = 1_000_000.0;
     inputs.degradation = Degradation {
         heat_rate_fraction_per_year: 0.01,
+        output_fraction_per_year: 0.0,
         recoverable_fraction: 0.5,
     };
     inputs.overhaul = Some(Overhaul {
         interval_hours: 16_000.0,
+        hours_per_start: 0.0,
+        interval_starts: None,
+        outage_days: 0.0,
+        outage_capacity_kw: 0.0,
         cost: dec("500000.00"),
         escalation: 0.0,
     });
@@ -172,7 +177,7 @@ fn ledger_identities_hold_exactly() {
             + row.fixed_om
             + row.variable_om
             + row.overhaul
-            + row.replacement
+            + row.bought_in
             + row.capital
             + row.residual;
         assert_eq!(row.total, columns, "{} {:?}", row.year, row.kind);

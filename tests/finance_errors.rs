@@ -77,6 +77,10 @@ fn overhaul_interval_must_be_positive() {
         let mut inputs = busy_inputs();
         inputs.overhaul = Some(Overhaul {
             interval_hours: interval,
+            hours_per_start: 0.0,
+            interval_starts: None,
+            outage_days: 0.0,
+            outage_capacity_kw: 0.0,
             cost: dec("1.00"),
             escalation: 0.0,
         });

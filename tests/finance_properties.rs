@@ -12,10 +12,10 @@
 mod finance_support;
 
 use brayfin::finance::{
-    build_ledger, compare_summaries, summarize_ledger, AcceptanceSettlement, Capital,
+    build_ledger, compare_summaries, summarize_ledger, AcceptanceSettlement, BoughtIn, Capital,
     CapitalPayment, Carbon, Degradation, EscalatingPrice, Fuel, FuelPrice, LedgerInputs, Money,
-    Operation, Overhaul, PriceBasis, RateBasis, Rates, Replacement, Residual, ResidualValue,
-    Timing,
+    Operation, Overhaul, PriceBasis, RateBasis, Rates, Residual, ResidualValue, ServiceFees,
+    Starts, Timing,
 };
 use chrono::{Days, Months};
 use finance_support::date;
@@ -59,7 +59,7 @@ prop_compose! {
         residual_fraction in 0.0f64..0.3,
         hhv_priced in any::<bool>(),
         shortfall in (0.0f64..100_000.0, 0i64..20_000, 0.0f64..50_000.0, 0i64..15_000),
-        replacement_escalations in prop::array::uniform2(-0.03f64..0.06),
+        bought_in_escalations in prop::array::uniform2(-0.03f64..0.06),
     ) -> LedgerInputs {
         let energy_mwh = net_output_kw * operating_hours / 1000.0;
         let payments = (0..=construction_years)
@@ -76,12 +76,14 @@ prop_compose! {
             service_life_years,
             rates,
             timing,
+            present_value_date: None,
             capital: Capital::Schedule(payments),
             operation: Operation {
                 operating_hours,
                 energy_mwh,
                 fuel_energy_gj_lhv: energy_mwh * heat_rate_kj_per_kwh / 1000.0,
                 net_output_kw,
+                starts_per_year: 0.0,
             },
             fuel: Fuel {
                 price: FuelPrice::Escalating { price_per_gj: cents(fuel_price), escalation: escalations[0] },
@@ -91,18 +93,24 @@ prop_compose! {
             carbon: Carbon { co2_kg_per_gj_lhv: 56.1, price_per_tonne: cents(carbon_price), escalation: escalations[1] },
             fixed_om: EscalatingPrice { price: cents(om_prices.0), escalation: escalations[2] },
             variable_om: EscalatingPrice { price: cents(om_prices.1), escalation: escalations[3] },
+            starts: Starts::default(),
+            service: ServiceFees::default(),
             overhaul: overhaul_interval.map(|interval_hours| Overhaul {
                 interval_hours,
+                hours_per_start: 0.0,
+                interval_starts: None,
+                outage_days: 0.0,
+                outage_capacity_kw: 0.0,
                 cost: cents(overhaul_cost),
                 escalation: escalations[4],
             }),
-            degradation: Degradation { heat_rate_fraction_per_year: degradation.0, recoverable_fraction: degradation.1 },
+            degradation: Degradation { heat_rate_fraction_per_year: degradation.0, output_fraction_per_year: 0.0, recoverable_fraction: degradation.1 },
             residual: Residual { value: ResidualValue::FractionOfCapital(residual_fraction), escalation: 0.0 },
-            replacement: Replacement {
+            bought_in: BoughtIn {
                 energy_mwh_per_year: shortfall.0,
-                energy_price: EscalatingPrice { price: cents(shortfall.1), escalation: replacement_escalations[0] },
+                energy_price: EscalatingPrice { price: cents(shortfall.1), escalation: bought_in_escalations[0] },
                 capacity_kw: shortfall.2,
-                capacity_price: EscalatingPrice { price: cents(shortfall.3), escalation: replacement_escalations[1] },
+                capacity_price: EscalatingPrice { price: cents(shortfall.3), escalation: bought_in_escalations[1] },
             },
             acceptance_settlement: AcceptanceSettlement::default(),
         }
@@ -194,8 +202,8 @@ proptest! {
             overhaul.escalation = nominal_rate(overhaul.escalation);
         }
         nominal.residual.escalation = nominal_rate(real.residual.escalation);
-        nominal.replacement.energy_price.escalation = nominal_rate(real.replacement.energy_price.escalation);
-        nominal.replacement.capacity_price.escalation = nominal_rate(real.replacement.capacity_price.escalation);
+        nominal.bought_in.energy_price.escalation = nominal_rate(real.bought_in.energy_price.escalation);
+        nominal.bought_in.capacity_price.escalation = nominal_rate(real.bought_in.capacity_price.escalation);
         let real_lcc = summarize_ledger(&real).unwrap().lifecycle_cost.to_f64();
         let nominal_lcc = summarize_ledger(&nominal).unwrap().lifecycle_cost.to_f64();
         prop_assert!(relative_difference(real_lcc, nominal_lcc) < 1e-9, "real {} nominal {}", real_lcc, nominal_lcc);

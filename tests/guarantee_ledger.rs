@@ -102,7 +102,7 @@ fn damages_are_one_row_of_negative_capital_at_commercial_operation() {
             + row.fixed_om
             + row.variable_om
             + row.overhaul
-            + row.replacement
+            + row.bought_in
             + row.capital
             + row.guarantee_settlement
             + row.residual;

@@ -145,7 +145,7 @@ fn csv_streams_add_up_to_each_total_and_carry_the_settlement() {
         "fixed_om",
         "variable_om",
         "overhaul",
-        "replacement",
+        "bought_in",
         "capital",
         "residual",
         "guarantee_settlement",
@@ -157,6 +157,7 @@ fn csv_streams_add_up_to_each_total_and_carry_the_settlement() {
         column("candidate_id"),
     );
     let settlement = column("guarantee_settlement");
+    let label = column("row");
     // Each figure is rounded to the cent on its own: half a cent per
     // column, and half a cent for the total.
     let half_cent = Decimal::new(5, 3);
@@ -165,6 +166,10 @@ fn csv_streams_add_up_to_each_total_and_carry_the_settlement() {
     let mut pv_sum = std::collections::BTreeMap::<String, (Decimal, i64)>::new();
     for line in lines {
         let cells: Vec<&str> = line.split(',').collect();
+        if cells[label] == "total" {
+            // The totals row (checked in tests/ledger_labels_totals_pv_date.rs).
+            continue;
+        }
         let sum: Decimal = streams.iter().map(|&i| dec(cells[i])).sum();
         assert!(
             (sum - dec(cells[total])).abs() <= slack,
@@ -200,7 +205,7 @@ fn csv_streams_add_up_to_each_total_and_carry_the_settlement() {
             "operation_and_maintenance",
             "overhauls",
             "carbon",
-            "replacement",
+            "bought_in",
             "residual",
             "guarantee_settlement",
         ]

@@ -304,16 +304,16 @@ fn label_texts(marks: &[Mark]) -> Vec<String> {
 }
 
 #[test]
-fn output_replacement_is_a_category_only_when_charged() {
+fn output_bought_in_is_a_category_only_when_charged() {
     let plain = report_support::model(false, false);
     let names = labels(&plain);
     let chart = breakdown_chart(&plain, &names, area()).expect("a chart");
     assert!(chart.segments.iter().all(|s| s.stream != 6));
-    assert!(!label_texts(&chart.chart.marks).contains(&names.replacement));
+    assert!(!label_texts(&chart.chart.marks).contains(&names.bought_in));
 
     let model = report_support::levelled(false, false);
     let chart = breakdown_chart(&model, &labels(&model), area()).expect("a chart");
-    assert!(label_texts(&chart.chart.marks).contains(&names.replacement));
+    assert!(label_texts(&chart.chart.marks).contains(&names.bought_in));
     let y = chart.chart.frame.y;
     let base = &model.candidates[0];
     let b = &base.cost_breakdown;
@@ -331,11 +331,11 @@ fn output_replacement_is_a_category_only_when_charged() {
         .segments
         .iter()
         .find(|s| s.candidate_id == base.id && s.stream == 6)
-        .expect("the baseline's replacement is drawn");
-    // Stacked on top of the candidate's own costs, up to own + replacement.
+        .expect("the baseline's bought_in is drawn");
+    // Stacked on top of the candidate's own costs, up to own + bought_in.
     assert!((segment.rect.y_mm - y.map(own)).abs() < 1e-2);
-    assert!((segment.rect.top_mm() - y.map(own + money_f64(b.replacement))).abs() < 1e-2);
-    // The others are charged nothing and draw no replacement segment.
+    assert!((segment.rect.top_mm() - y.map(own + money_f64(b.bought_in))).abs() < 1e-2);
+    // The others are charged nothing and draw no bought_in segment.
     assert_eq!(chart.segments.iter().filter(|s| s.stream == 6).count(), 1);
 }
 

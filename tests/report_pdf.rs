@@ -372,14 +372,14 @@ fn many_candidates_and_very_long_texts_stay_on_the_page() {
     }
 }
 
-/// The ledger's replacement column and the method's levelling paragraph
+/// The ledger's bought-in column and the method's levelling paragraph
 /// appear only when some candidate is charged for an output shortfall, and
 /// the landscape ledger with the extra column stays inside the page.
 #[test]
-fn output_replacement_shows_only_when_charged() {
+fn output_bought_in_shows_only_when_charged() {
     let (_, plain) = render(&report_support::model(false, false), Paper::A4);
     let text = all_text(&plain);
-    assert!(!text.contains("Replacement"), "no replacement column");
+    assert!(!text.contains("Bought in"), "no bought-in column");
     assert!(!text.contains("levelled on output"));
 
     let model = report_support::levelled(false, false);
@@ -388,9 +388,9 @@ fn output_replacement_shows_only_when_charged() {
         std::fs::write(path, &bytes).expect("levelled fixture written");
     }
     let text = all_text(&doc);
-    assert!(text.contains("Replacement"), "replacement column header");
+    assert!(text.contains("Bought in"), "bought-in column header");
     assert!(text.contains("levelled on output"), "method paragraph");
     assert!(text.contains("95.00 per MWh"), "energy value as printed");
-    // The replacement figure as printed in the baseline's ledger.
+    // The bought-in figure as printed in the baseline's ledger.
     assert!(text.contains("900,000"));
 }

@@ -139,7 +139,7 @@ fn stream_differences_add_up_to_the_net_savings() {
             + d.operation_and_maintenance
             + d.overhauls
             + d.carbon
-            + d.replacement
+            + d.bought_in
             + d.residual;
         let net = c.economics.net_savings_vs_baseline.expect("net savings");
         assert!(

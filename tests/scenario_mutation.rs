@@ -47,7 +47,7 @@ const MAX_ANALYSED: usize = 24;
 /// Fixed seed: the same cases every run.
 const SEED: u64 = 0x0b7a_2f1e_5ced_0009;
 
-/// Bare replacement values.
+/// Bare bought_in values.
 const EXTREMES: &[&str] = &[
     "0",
     "-1",

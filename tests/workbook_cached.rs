@@ -8,7 +8,7 @@ mod workbook_support;
 use std::path::Path;
 use workbook_support::{
     check_ledgers, check_summary, compare_json, nominal_variant, price_path_variant,
-    write_workbook, DEMOS,
+    study_date_variant, write_workbook, DEMOS,
 };
 
 #[test]
@@ -32,6 +32,10 @@ fn cached_values_equal_compare_on_the_variants() {
     for (scenario, label) in [
         (price_path_variant(dir.path()), "price path"),
         (nominal_variant(dir.path()), "nominal"),
+        (
+            study_date_variant(dir.path()),
+            "present values at the study date",
+        ),
     ] {
         let out = dir.path().join("book.xlsx");
         write_workbook(&scenario, &out);

@@ -18,7 +18,7 @@ use std::process::Command;
 use std::sync::Mutex;
 use workbook_support::{
     assert_no_error_cells, check_ledgers, check_summary, compare_json, json_money, nominal_variant,
-    price_path_variant, write_workbook, DEMOS,
+    price_path_variant, study_date_variant, write_workbook, DEMOS,
 };
 
 /// One LibreOffice process at a time.
@@ -111,6 +111,10 @@ fn libreoffice_recalculates_the_variants_to_the_cent() {
     for (scenario, label) in [
         (price_path_variant(dir.path()), "price path"),
         (nominal_variant(dir.path()), "nominal"),
+        (
+            study_date_variant(dir.path()),
+            "present values at the study date",
+        ),
     ] {
         let book = dir.path().join("book.xlsx");
         write_workbook(&scenario, &book);

@@ -8,12 +8,13 @@ use super::operation::{annual_operation, annual_operation_with_ratios, AnnualOpe
 use super::site::{site_performance, SiteError, SitePerformance};
 use crate::cycle::{self, CycleResult};
 use crate::finance::{
-    self, Capital, CapitalPayment, Carbon, Degradation, EscalatingPrice, FuelPrice, LedgerInputs,
-    Overhaul, Rates, Replacement, Residual,
+    self, BoughtIn, Capital, CapitalPayment, Carbon, Degradation, EscalatingPrice, FuelPrice,
+    LedgerInputs, Overhaul, Rates, Residual, ServiceFees, Starts,
 };
 use crate::fuel::Fuel;
 use crate::scenario::{
-    Candidate, LoadedScenario, PriceBasis, RateBasis, ResidualValue, Scenario, Timing,
+    Candidate, LoadedScenario, PresentValueDate, PriceBasis, RateBasis, ResidualValue, Scenario,
+    Timing,
 };
 use rust_decimal::Decimal;
 
@@ -144,14 +145,14 @@ pub fn output_reference(scenario: &Scenario, fuel: &Fuel) -> Result<OutputRefere
 /// `energy_value` and `capacity_value` (constant in the analysis basis's
 /// money, like the candidates' O&M prices). A candidate above the reference
 /// (one set apart from the scenario's list) has no shortfall.
-fn replacement(
+fn bought_in(
     scenario: &Scenario,
     site_output_kw: f64,
     year: &AnnualOperation,
     reference: &OutputReference,
-) -> Replacement<Decimal> {
+) -> BoughtIn<Decimal> {
     let e = &scenario.economics;
-    Replacement {
+    BoughtIn {
         energy_mwh_per_year: (reference.energy_mwh - year.energy_mwh).max(0.0),
         energy_price: EscalatingPrice {
             price: e.energy_value_per_mwh,
@@ -165,9 +166,18 @@ fn replacement(
     }
 }
 
+/// A price constant in the analysis basis's money (like the candidates' O&M
+/// prices).
+fn constant(price: Decimal) -> EscalatingPrice<Decimal> {
+    EscalatingPrice {
+        price,
+        escalation: 0.0,
+    }
+}
+
 /// The ledger inputs of a candidate whose year of operation is `year` and
 /// base-load output at the site `site_output_kw`, levelled on output to
-/// `reference` (an output replacement stream for its shortfall in energy
+/// `reference` (an energy and capacity bought in stream for its shortfall in energy
 /// and capacity). Fixed O&M stays on the rated net output: it is quoted per
 /// kW of rating (common practice) and does not fall on a hot day.
 pub fn ledger_inputs(
@@ -220,12 +230,17 @@ pub fn ledger_inputs(
             Timing::EndOfYear => finance::Timing::EndOfYear,
             Timing::MidYear => finance::Timing::MidYear,
         },
+        present_value_date: match e.present_value_date {
+            PresentValueDate::CommercialOperation => None,
+            PresentValueDate::Study => Some(scenario.meta.date),
+        },
         capital,
         operation: finance::Operation {
             operating_hours: year.operating_hours,
             energy_mwh: year.energy_mwh,
             fuel_energy_gj_lhv: year.fuel_energy_gj_lhv,
             net_output_kw: candidate.net_output_kw,
+            starts_per_year: scenario.operation.starts_per_year,
         },
         fuel: finance::Fuel {
             price,
@@ -248,13 +263,26 @@ pub fn ledger_inputs(
             price: costs.variable_om_per_mwh,
             escalation: 0.0,
         },
+        starts: Starts {
+            fuel_gj_lhv_per_start: costs.start_fuel_gj,
+            cost_per_start: constant(costs.start_cost),
+        },
+        service: ServiceFees {
+            per_fired_hour: constant(costs.service_fee_per_fired_hour),
+            per_start: constant(costs.service_fee_per_start),
+        },
         overhaul: (costs.overhaul_interval_hours > 0.0).then_some(Overhaul {
             interval_hours: costs.overhaul_interval_hours,
+            hours_per_start: costs.hours_per_start,
+            interval_starts: (costs.overhaul_starts > 0.0).then_some(costs.overhaul_starts),
+            outage_days: costs.overhaul_outage_days,
+            outage_capacity_kw: site_output_kw,
             cost: costs.overhaul_cost,
             escalation: 0.0,
         }),
         degradation: Degradation {
             heat_rate_fraction_per_year: costs.degradation_per_year,
+            output_fraction_per_year: costs.output_degradation_per_year,
             recoverable_fraction: costs.recoverable_fraction,
         },
         residual: Residual {
@@ -264,7 +292,7 @@ pub fn ledger_inputs(
             },
             escalation: 0.0,
         },
-        replacement: replacement(scenario, site_output_kw, year, reference),
+        bought_in: bought_in(scenario, site_output_kw, year, reference),
         acceptance_settlement: finance::AcceptanceSettlement::default(),
     })
 }

@@ -43,16 +43,56 @@ fn payback_view(p: Payback) -> PaybackView {
     }
 }
 
+/// Unique labels of a ledger's rows: capital payments by year
+/// (`"2026 construction"`, or by date when two fall in one year; one paid on
+/// the commercial-operation date is `"capital at commercial operation"`),
+/// `"acceptance test"`, operating rows by calendar year (`"2027
+/// operation"`), and `"end of life"` for the residual credit. Capital dates
+/// strictly ascend and there is one operating row per calendar year, so no
+/// two labels are equal.
+pub fn ledger_row_labels(
+    rows: &[crate::finance::LedgerRow],
+    commercial_operation: chrono::NaiveDate,
+) -> Vec<String> {
+    let capital_in = |year: i32| {
+        rows.iter()
+            .filter(|r| r.kind == RowKind::Capital && r.year == year)
+            .count()
+    };
+    rows.iter()
+        .map(|r| match r.kind {
+            RowKind::Capital if r.period_start == commercial_operation => {
+                "capital at commercial operation".to_string()
+            }
+            RowKind::Capital if capital_in(r.year) > 1 => {
+                format!("{} construction", r.period_start)
+            }
+            RowKind::Capital => format!("{} construction", r.year),
+            RowKind::Settlement => "acceptance test".to_string(),
+            RowKind::Operation => format!("{} operation", r.year),
+            RowKind::Residual => "end of life".to_string(),
+        })
+        .collect()
+}
+
 fn ledger_rows(outcome: &CandidateOutcome) -> Vec<LedgerRowView> {
-    outcome
+    let rows = &outcome.ledger.rows;
+    let commercial_operation = outcome
         .ledger
-        .rows
-        .iter()
-        .map(|r| LedgerRowView {
+        .summary
+        .analysis
+        .calendar
+        .commercial_operation;
+    ledger_row_labels(rows, commercial_operation)
+        .into_iter()
+        .zip(rows)
+        .map(|(label, r)| LedgerRowView {
+            label,
             year: r.year,
             period_start: r.period_start.to_string(),
             period_end: r.period_end.to_string(),
             operating_hours: r.operating_hours,
+            starts: r.starts,
             energy_mwh: r.energy_mwh,
             fuel_energy_gj: r.fuel_energy_gj,
             fuel_cost: money(r.fuel_cost),
@@ -60,7 +100,7 @@ fn ledger_rows(outcome: &CandidateOutcome) -> Vec<LedgerRowView> {
             fixed_om: money(r.fixed_om),
             variable_om: money(r.variable_om),
             overhaul: money(r.overhaul),
-            replacement: money(r.replacement),
+            bought_in: money(r.bought_in),
             capital: money(r.capital),
             residual: money(r.residual),
             guarantee_settlement: money(r.guarantee_settlement),
@@ -69,6 +109,65 @@ fn ledger_rows(outcome: &CandidateOutcome) -> Vec<LedgerRowView> {
             present_value: money(r.present_value),
         })
         .collect()
+}
+
+/// The totals row of a ledger: each column of the unrounded rows summed
+/// in row order, then rounded once like every other figure. The present
+/// value column sums to the lifecycle cost (the ledger's own definition of
+/// it).
+fn ledger_total(outcome: &CandidateOutcome) -> LedgerTotalView {
+    let rows = &outcome.ledger.rows;
+    let sum = |pick: fn(&crate::finance::LedgerRow) -> Decimal| {
+        money(rows.iter().map(pick).fold(Decimal::ZERO, |a, b| a + b))
+    };
+    let physics = |pick: fn(&crate::finance::LedgerRow) -> f64| rows.iter().map(pick).sum();
+    LedgerTotalView {
+        label: "total".to_string(),
+        period_start: rows
+            .first()
+            .map(|r| r.period_start.to_string())
+            .unwrap_or_default(),
+        period_end: rows
+            .last()
+            .map(|r| r.period_end.to_string())
+            .unwrap_or_default(),
+        operating_hours: physics(|r| r.operating_hours),
+        starts: physics(|r| r.starts),
+        energy_mwh: physics(|r| r.energy_mwh),
+        fuel_energy_gj: physics(|r| r.fuel_energy_gj),
+        fuel_cost: sum(|r| r.fuel_cost),
+        carbon_cost: sum(|r| r.carbon_cost),
+        fixed_om: sum(|r| r.fixed_om),
+        variable_om: sum(|r| r.variable_om),
+        overhaul: sum(|r| r.overhaul),
+        bought_in: sum(|r| r.bought_in),
+        capital: sum(|r| r.capital),
+        residual: sum(|r| r.residual),
+        guarantee_settlement: sum(|r| r.guarantee_settlement),
+        total: sum(|r| r.total),
+        present_value: sum(|r| r.present_value),
+    }
+}
+
+/// The sentence that states the present-value date and the money basis.
+fn present_value_note(scenario: &crate::scenario::Scenario, date: chrono::NaiveDate) -> String {
+    let e = &scenario.economics;
+    let which = match e.present_value_date {
+        crate::scenario::PresentValueDate::CommercialOperation => "the commercial operation date",
+        crate::scenario::PresentValueDate::Study => "the study date",
+    };
+    let money = match e.rate_basis {
+        crate::scenario::RateBasis::Real => format!(
+            "real money (constant money of {}, general inflation taken out)",
+            scenario.meta.date
+        ),
+        crate::scenario::RateBasis::Nominal => {
+            "nominal money (then-current, general inflation included)".to_string()
+        }
+    };
+    format!(
+        "Present values are stated at {date}, {which}: construction payments made before it are compounded to it and later cash is discounted to it; all amounts are in {money}."
+    )
 }
 
 /// When a ledger row's cash counts on the savings curve, and which rows of
@@ -384,7 +483,7 @@ fn candidate_view(
             operation_and_maintenance: money(pv.fixed_om + pv.variable_om),
             overhauls: money(pv.overhaul),
             carbon: money(pv.carbon_cost),
-            replacement: money(pv.replacement),
+            bought_in: money(pv.bought_in),
             residual: money(pv.residual),
             guarantee_settlement: money(pv.guarantee_settlement),
         },
@@ -398,7 +497,7 @@ fn candidate_view(
                 ),
                 overhauls: money(pv.overhaul - b.overhaul),
                 carbon: money(pv.carbon_cost - b.carbon_cost),
-                replacement: money(pv.replacement - b.replacement),
+                bought_in: money(pv.bought_in - b.bought_in),
                 residual: money(pv.residual - b.residual),
                 guarantee_settlement: money(pv.guarantee_settlement - b.guarantee_settlement),
             }
@@ -409,6 +508,7 @@ fn candidate_view(
             cumulative(outcome, baseline)
         },
         ledger: ledger_rows(outcome),
+        ledger_total: ledger_total(outcome),
     }
 }
 
@@ -579,6 +679,10 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
     warnings.extend(cycle_warnings(loaded, &study));
     warnings.extend(implied.iter().filter_map(verdict_warning));
     let e = &scenario.economics;
+    let present_value_date = match e.present_value_date {
+        crate::scenario::PresentValueDate::CommercialOperation => e.commercial_operation,
+        crate::scenario::PresentValueDate::Study => scenario.meta.date,
+    };
     let mut gas_models: Vec<String> = candidates.iter().map(|c| c.gas_model.clone()).collect();
     gas_models.dedup();
     Ok(Model {
@@ -651,10 +755,16 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
             levelled: study
                 .outcomes
                 .iter()
-                .any(|o| !o.ledger.summary.present_value.replacement.is_zero()),
+                .any(|o| !o.ledger.summary.present_value.bought_in.is_zero()),
             energy_value_per_mwh: money(e.energy_value_per_mwh),
             capacity_value_per_kw_year: money(e.capacity_value_per_kw_year),
-            present_value_date: e.commercial_operation.to_string(),
+            present_value_date: present_value_date.to_string(),
+            present_value_base: match e.present_value_date {
+                crate::scenario::PresentValueDate::CommercialOperation => "commercial-operation",
+                crate::scenario::PresentValueDate::Study => "study",
+            }
+            .to_string(),
+            present_value_note: present_value_note(scenario, present_value_date),
         },
         fuel_price_curves: fuel_price_curves(loaded, &study),
         sensitivity: if options.sensitivity {

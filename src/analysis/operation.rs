@@ -139,6 +139,7 @@ mod tests {
     fn full_load_year_is_output_times_hours_times_heat_rate() {
         let op = Operation {
             hours_per_year: 4000.0,
+            starts_per_year: 0.0,
             dispatch: vec![],
             part_load: vec![],
         };
@@ -152,6 +153,7 @@ mod tests {
     fn dispatch_profile_sums_blocks_with_part_load_penalty() {
         let op = Operation {
             hours_per_year: 3000.0,
+            starts_per_year: 0.0,
             dispatch: vec![
                 DispatchBlock {
                     load_fraction: 1.0,

@@ -10,12 +10,12 @@
 //!   worth the present value of a stated capacity value per kW-year
 //!   (what a kW of shortfall would cost to replace; zero unless given),
 //!   computed by the same ledger as the capacity part of the output
-//!   replacement stream ([`Replacement`]) for one kW, so it equals what one
+//!   bought_in stream ([`BoughtIn`]) for one kW, so it equals what one
 //!   kW less shortfall saves in a comparison levelled on output. The factor
 //!   is the worth less the cost.
 
 use super::engine::summarize_ledger;
-use super::inputs::{EscalatingPrice, LedgerInputs, Replacement};
+use super::inputs::{BoughtIn, EscalatingPrice, LedgerInputs};
 use super::money::Money;
 use super::FinanceError;
 
@@ -91,13 +91,13 @@ pub fn bid_factors<M: Money>(
         .ok_or_else(|| overflow(inputs))?;
 
     let mut capacity = inputs.clone();
-    capacity.replacement = Replacement {
+    capacity.bought_in = BoughtIn {
         capacity_kw: 1.0,
         capacity_price: EscalatingPrice {
             price: capacity_value.per_kw_year,
             escalation: capacity_value.escalation,
         },
-        ..Replacement::default()
+        ..BoughtIn::default()
     };
     let pv_capacity_value_per_kw = summarize_ledger(&capacity)
         .map_err(|error| match error {
@@ -108,7 +108,7 @@ pub fn bid_factors<M: Money>(
             FinanceError::OutOfRange {
                 value,
                 valid,
-                field: "replacement.capacity_price.escalation",
+                field: "bought_in.capacity_price.escalation",
             } => FinanceError::OutOfRange {
                 field: "capacity_value.escalation",
                 value,
@@ -117,7 +117,7 @@ pub fn bid_factors<M: Money>(
             other => other,
         })?
         .present_value
-        .replacement;
+        .bought_in;
     let pv_per_kw_net_output = pv_capacity_value_per_kw
         .sub_checked(pv_fixed_om_per_kw)
         .ok_or_else(|| overflow(inputs))?;

@@ -11,12 +11,31 @@
 pub(crate) struct FactorChain {
     growth: f64,
     value: f64,
+    /// The factor at `t = 0`: 1, or `growth^-b` for a chain whose base time
+    /// is `b` (see [`FactorChain::discount_to`]).
+    start: f64,
 }
 
 impl FactorChain {
     /// The factor `growth^t` starting at `t = 0` (value 1).
     pub(crate) fn new(growth: f64) -> FactorChain {
-        FactorChain { growth, value: 1.0 }
+        FactorChain {
+            growth,
+            value: 1.0,
+            start: 1.0,
+        }
+    }
+
+    /// A chain for a discount rate to a base time `base_years` (years since
+    /// commercial operation; negative for a date before it): the factor
+    /// `(1 + d)^-(t - base)`. A base of 0 is [`FactorChain::discount`]
+    /// exactly.
+    pub(crate) fn discount_to(rate: f64, base_years: f64) -> FactorChain {
+        let mut chain = FactorChain::discount(rate);
+        let start = chain.at(-base_years);
+        chain.start = start;
+        chain.value = start;
+        chain
     }
 
     /// A chain for a discount rate: the factor `(1 + d)^-t`.
@@ -43,10 +62,15 @@ impl FactorChain {
     pub(crate) fn at(&self, time_years: f64) -> f64 {
         // 1^t is 1 for every t (IEEE 754 `pow`), so a flat chain needs no
         // power.
-        if time_years == 0.0 || self.growth == 1.0 {
+        let factor = if time_years == 0.0 || self.growth == 1.0 {
             1.0
         } else {
             self.growth.powf(time_years)
+        };
+        if self.start == 1.0 {
+            factor
+        } else {
+            self.start * factor
         }
     }
 }

@@ -5,9 +5,9 @@
 //! Cost classes (documented choice): "investment" is capital plus the
 //! guarantee settlement at the acceptance test (damages received are
 //! negative capital) plus the (negative) residual credit; "operating" is fuel, carbon, fixed and
-//! variable O&M, overhauls and output replacement (overhauls count as
+//! variable O&M, overhauls and energy and capacity bought in (overhauls count as
 //! repair, an OM&R cost in the terms of NIST Handbook 135, not as capital
-//! replacement; output replacement is energy and capacity bought each year
+//! bought_in; energy and capacity bought in is energy and capacity bought each year
 //! to make up a shortfall, an operating cost).
 
 use super::inputs::FuelPrice;

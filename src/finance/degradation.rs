@@ -15,6 +15,12 @@
 //!   `1 + D(h)` over the row's operating hours (an exact integral of the
 //!   piecewise-linear sawtooth).
 //! - Overhauls fall at whole multiples of the interval of accumulated hours.
+//! - Output degradation follows the same shape at its own rate `g_out`: the
+//!   output lost at accumulated hours `h` is
+//!   `L(h) = (g_out/H) · ((1 − ρ)·h + ρ·(h − h_last))` of the new-and-clean
+//!   output (the same recoverable share `ρ` restored at each overhaul), at
+//!   most all of it; a row's energy is the new-and-clean energy times
+//!   `1 − mean L` over the row's hours.
 
 /// Relative tolerance for deciding that accumulated hours sit exactly on an
 /// overhaul multiple (absorbs rounding of sums of fractional years).
@@ -26,6 +32,8 @@ const ON_MULTIPLE_TOLERANCE: f64 = 1e-9;
 pub(crate) struct WearModel {
     /// Degradation per operating hour (fraction of heat rate).
     rate_per_hour: f64,
+    /// Output degradation per operating hour (fraction of output).
+    output_rate_per_hour: f64,
     /// Recoverable share of degradation.
     recoverable: f64,
     /// Operating hours between overhauls, if overhauls are scheduled.
@@ -41,6 +49,9 @@ pub(crate) struct WearModel {
 pub(crate) struct RowWear {
     /// Mean of `1 + D(h)` over the row's accumulated hours.
     pub(crate) heat_rate_multiplier: f64,
+    /// Mean of the output lost `L(h)` over the row's accumulated hours, a
+    /// fraction of the new-and-clean output (0 to 1).
+    pub(crate) output_loss: f64,
     /// Overhauls triggered in the row.
     pub(crate) overhaul_count: u32,
 }
@@ -58,17 +69,20 @@ impl WearModel {
     /// `recoverable` recovered at overhauls every `interval_hours`.
     pub(crate) fn new(
         annual_hours: f64,
-        fraction_per_year: f64,
+        (fraction_per_year, output_fraction_per_year): (f64, f64),
         recoverable: f64,
         interval_hours: Option<f64>,
     ) -> WearModel {
-        let rate_per_hour = if annual_hours > 0.0 {
-            fraction_per_year / annual_hours
-        } else {
-            0.0
+        let per_hour = |fraction: f64| {
+            if annual_hours > 0.0 {
+                fraction / annual_hours
+            } else {
+                0.0
+            }
         };
         WearModel {
-            rate_per_hour,
+            rate_per_hour: per_hour(fraction_per_year),
+            output_rate_per_hour: per_hour(output_fraction_per_year),
             recoverable,
             interval_hours,
             reached: None,
@@ -94,23 +108,27 @@ impl WearModel {
                 upto,
             }
         });
+        let (heat_rate_multiplier, output_loss) =
+            if self.rate_per_hour == 0.0 && self.output_rate_per_hour == 0.0 {
+                (1.0, 0.0)
+            } else {
+                let worn = self.mean_worn_hours(from_hours, to_hours, intervals);
+                (
+                    1.0 + self.rate_per_hour * worn,
+                    (self.output_rate_per_hour * worn).min(1.0),
+                )
+            };
         RowWear {
-            heat_rate_multiplier: self.mean_heat_rate_multiplier(from_hours, to_hours, intervals),
+            heat_rate_multiplier,
+            output_loss,
             overhaul_count: intervals.map_or(0, |i| overhauls_between(to_hours, i, ends_service)),
         }
     }
 
-    /// Mean of `1 + D(h)` over accumulated hours `from_hours..to_hours`;
-    /// the value at `from_hours` when the span is empty.
-    fn mean_heat_rate_multiplier(
-        &self,
-        from_hours: f64,
-        to_hours: f64,
-        intervals: Option<Intervals>,
-    ) -> f64 {
-        if self.rate_per_hour == 0.0 {
-            return 1.0;
-        }
+    /// Mean over accumulated hours `from_hours..to_hours` of the hours that
+    /// count toward degradation, `(1 − ρ)·h + ρ·(h − h_last)`; the value at
+    /// `from_hours` when the span is empty.
+    fn mean_worn_hours(&self, from_hours: f64, to_hours: f64, intervals: Option<Intervals>) -> f64 {
         let span = to_hours - from_hours;
         let permanent = (1.0 - self.recoverable) * 0.5 * (from_hours + to_hours);
         let since_overhaul = match intervals {
@@ -122,7 +140,7 @@ impl WearModel {
             Some(i) => from_hours - i.before * i.interval,
             None => 0.5 * (from_hours + to_hours),
         };
-        1.0 + self.rate_per_hour * (permanent + self.recoverable * since_overhaul)
+        permanent + self.recoverable * since_overhaul
     }
 }
 

@@ -103,14 +103,18 @@ pub(crate) fn single_date_row<M: Money>(kind: RowKind, date: NaiveDate, time: f6
         cash_time_years: time,
         operating_hours: 0.0,
         energy_mwh: 0.0,
+        starts: 0.0,
         fuel_energy_gj: 0.0,
+        heat_rate_multiplier: 1.0,
+        output_loss: 0.0,
+        in_service: 1.0,
         overhaul_count: 0,
         fuel_cost: M::ZERO,
         carbon_cost: M::ZERO,
         fixed_om: M::ZERO,
         variable_om: M::ZERO,
         overhaul: M::ZERO,
-        replacement: M::ZERO,
+        bought_in: M::ZERO,
         capital: M::ZERO,
         guarantee_settlement: M::ZERO,
         residual: M::ZERO,
@@ -212,11 +216,15 @@ fn run<M: Money>(
 ) -> Result<LedgerSummary<M>, FinanceError> {
     inputs.validate()?;
     let calendar = Calendar::new(inputs.commercial_operation, inputs.service_life_years)?;
-    let discount = FactorChain::discount(inputs.rates.discount_rate);
+    let present_value_date = inputs
+        .present_value_date
+        .unwrap_or(inputs.commercial_operation);
+    let base_years = calendar.time_of(present_value_date);
+    let discount = FactorChain::discount_to(inputs.rates.discount_rate, base_years);
 
     let capital = capital_rows(inputs, &calendar, &discount, sink)?;
     let settlement = settlement_row(inputs, &calendar, &discount, sink)?;
-    let operating = operating_rows(inputs, &calendar, sink)?;
+    let operating = operating_rows(inputs, &calendar, base_years, sink)?;
 
     // Residual value, credited at the end of life.
     let end_time = calendar.end_of_life_years();
@@ -277,6 +285,7 @@ fn run<M: Money>(
             calendar,
             rates: inputs.rates,
             timing: inputs.timing,
+            present_value_date,
         },
         present_value,
         lifecycle_cost,

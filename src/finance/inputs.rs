@@ -24,6 +24,13 @@ pub struct LedgerInputs<M: Money = Decimal> {
     pub rates: Rates,
     /// When within a year cash flows are counted.
     pub timing: Timing,
+    /// The date present values are stated at; `None`: commercial operation.
+    /// Every discount factor is to this date (a cash flow before it is
+    /// compounded to it). Prices stay stated at commercial operation and
+    /// escalate from there; only the discounting base moves, so every
+    /// present value is the commercial-operation one times
+    /// `(1 + d)^-(years from this date to commercial operation)`.
+    pub present_value_date: Option<NaiveDate>,
     /// Capital cost and when it is paid.
     pub capital: Capital<M>,
     /// A full year of new-and-clean operation, from the physics layer.
@@ -36,6 +43,12 @@ pub struct LedgerInputs<M: Money = Decimal> {
     pub fixed_om: EscalatingPrice<M>,
     /// Variable O&M: price per MWh generated, escalating.
     pub variable_om: EscalatingPrice<M>,
+    /// Starts: fuel and cost per start (the count is
+    /// [`Operation::starts_per_year`]). Zero, the default: nothing charged.
+    pub starts: Starts<M>,
+    /// Service-agreement fees per fired hour and per start (zero, the
+    /// default: none).
+    pub service: ServiceFees<M>,
     /// Major overhauls, if any are charged.
     pub overhaul: Option<Overhaul<M>>,
     /// Heat-rate degradation and its recovery at overhauls.
@@ -44,7 +57,7 @@ pub struct LedgerInputs<M: Money = Decimal> {
     pub residual: Residual<M>,
     /// Output levelling: the energy and capacity this candidate falls short
     /// of the reference output and must buy elsewhere (zero: no stream).
-    pub replacement: Replacement<M>,
+    pub bought_in: BoughtIn<M>,
     /// Damages and bonus settled at the acceptance test, paid once on the
     /// commercial-operation date (zero, the default: no row).
     pub acceptance_settlement: AcceptanceSettlement<M>,
@@ -81,6 +94,54 @@ pub struct Operation {
     pub fuel_energy_gj_lhv: f64,
     /// Net electrical output, kW (the basis of fixed O&M).
     pub net_output_kw: f64,
+    /// Starts per full year, 0 or more (spread evenly over the year like the
+    /// operating hours).
+    pub starts_per_year: f64,
+}
+
+/// What each start costs besides the fired hours.
+///
+/// Start fuel is fuel: it is priced on the fuel's basis and price (path or
+/// escalation) and carries its carbon, and it is not degraded (it is a
+/// quantity per start, not per MWh). The start cost is an O&M charge,
+/// counted in the variable O&M column.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Starts<M: Money = Decimal> {
+    /// Fuel energy burned per start, GJ on the lower heating value basis
+    /// (≥ 0).
+    pub fuel_gj_lhv_per_start: f64,
+    /// Cost per start at the base date, and its escalation.
+    pub cost_per_start: EscalatingPrice<M>,
+}
+
+impl<M: Money> Default for Starts<M> {
+    /// No start fuel and no start cost.
+    fn default() -> Self {
+        Starts {
+            fuel_gj_lhv_per_start: 0.0,
+            cost_per_start: EscalatingPrice::ZERO,
+        }
+    }
+}
+
+/// Fees of a long-term service agreement, counted in the variable O&M
+/// column: a fee per fired (operating) hour and a fee per start.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct ServiceFees<M: Money = Decimal> {
+    /// Fee per fired hour at the base date, and its escalation.
+    pub per_fired_hour: EscalatingPrice<M>,
+    /// Fee per start at the base date, and its escalation.
+    pub per_start: EscalatingPrice<M>,
+}
+
+impl<M: Money> Default for ServiceFees<M> {
+    /// No fees.
+    fn default() -> Self {
+        ServiceFees {
+            per_fired_hour: EscalatingPrice::ZERO,
+            per_start: EscalatingPrice::ZERO,
+        }
+    }
 }
 
 /// Heating-value basis on which a fuel price is quoted.
@@ -142,7 +203,15 @@ pub struct EscalatingPrice<M: Money = Decimal> {
     pub escalation: f64,
 }
 
-/// Output levelling ("replacement") stream: what a candidate that delivers
+impl<M: Money> EscalatingPrice<M> {
+    /// A zero price that does not escalate.
+    pub const ZERO: EscalatingPrice<M> = EscalatingPrice {
+        price: M::ZERO,
+        escalation: 0.0,
+    };
+}
+
+/// Output levelling ("bought in") stream: what a candidate that delivers
 /// less than the reference output pays to buy the shortfall elsewhere, so
 /// that candidates of different output are compared on equal deliveries
 /// (common practice in bid evaluation).
@@ -158,7 +227,7 @@ pub struct EscalatingPrice<M: Money = Decimal> {
 ///
 /// [`LedgerSummary::levelized_cost_per_mwh`]: super::LedgerSummary::levelized_cost_per_mwh
 #[derive(Debug, Clone, Copy, PartialEq)]
-pub struct Replacement<M: Money = Decimal> {
+pub struct BoughtIn<M: Money = Decimal> {
     /// Energy to be bought per full year of operation, MWh (≥ 0).
     pub energy_mwh_per_year: f64,
     /// Price of that energy per MWh at the base date, and its escalation.
@@ -170,14 +239,14 @@ pub struct Replacement<M: Money = Decimal> {
     pub capacity_price: EscalatingPrice<M>,
 }
 
-impl<M: Money> Default for Replacement<M> {
+impl<M: Money> Default for BoughtIn<M> {
     /// No shortfall: zero quantities at zero prices.
     fn default() -> Self {
         let zero = EscalatingPrice {
             price: M::ZERO,
             escalation: 0.0,
         };
-        Replacement {
+        BoughtIn {
             energy_mwh_per_year: 0.0,
             energy_price: zero,
             capacity_kw: 0.0,
@@ -186,36 +255,67 @@ impl<M: Money> Default for Replacement<M> {
     }
 }
 
-/// Major overhauls, triggered by accumulated operating hours.
+/// Major overhauls, triggered by equivalent operating hours or by starts,
+/// whichever comes first.
 ///
-/// One is charged each time accumulated hours reach a whole multiple of the
-/// interval strictly before the end of the service life; an overhaul falling
-/// exactly at the end of life is not charged (the unit retires instead).
+/// Equivalent operating hours (EOH) = operating hours + starts ×
+/// `hours_per_start` (common practice in gas-turbine maintenance
+/// contracts). Hours and starts both accrue evenly over the year, so the
+/// two limits fall due at fixed intervals of operating time, and the
+/// earlier governs: an overhaul every
+/// `min(interval_hours / (H + S·hours_per_start), interval_starts / S)`
+/// years at `H` hours and `S` starts a year (see
+/// [`Overhaul::operating_hours_between`]); each overhaul resets both counts.
+/// With no starts this is the plain operating-hours interval.
+///
+/// One is charged each time accumulated operating hours reach a whole
+/// multiple of that interval strictly before the end of the service life; an
+/// overhaul falling exactly at the end of life is not charged (the unit
+/// retires instead).
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Overhaul<M: Money = Decimal> {
-    /// Operating hours between overhauls; must be positive.
+    /// Equivalent operating hours between overhauls; must be positive.
     pub interval_hours: f64,
+    /// Equivalent operating hours counted per start (0 or more; 0: starts
+    /// add nothing to the hours).
+    pub hours_per_start: f64,
+    /// Starts between overhauls, if starts limit them (positive).
+    pub interval_starts: Option<f64>,
+    /// Days out of service per overhaul (0 or more). The row's operation
+    /// (fired hours, starts, energy and fuel) falls by the outage's share of
+    /// the year, and the energy and capacity lost are bought in at the
+    /// [`BoughtIn`] prices.
+    pub outage_days: f64,
+    /// Capacity lost while out of service, kW (the base-load output at the
+    /// site; 0 or more).
+    pub outage_capacity_kw: f64,
     /// Cost of one overhaul at the base date.
     pub cost: M,
     /// Escalation per year on the analysis basis.
     pub escalation: f64,
 }
 
-/// Heat-rate degradation.
+/// Heat-rate and output degradation.
 ///
 /// Model: degradation accrues in proportion to operating hours (`g` per year
 /// of operation at the stated annual hours); each overhaul recovers the
 /// recoverable share of what accrued since the previous overhaul, the rest
 /// accumulates for the life. A row's fuel energy is the new-and-clean fuel
-/// energy times the mean of `1 + degradation` over the row's hours. Output
-/// is held; degradation raises fuel burn only.
+/// energy times the mean of `1 + degradation` over the row's hours, times
+/// `1 − output loss`. Output degradation lowers the energy delivered (the
+/// heat rate of what is delivered is set by heat-rate degradation alone);
+/// the energy lost is bought in at the [`BoughtIn`] energy price.
 #[derive(Debug, Clone, Copy, PartialEq, Default)]
 pub struct Degradation {
     /// Heat-rate increase per year of operation at the stated annual hours,
     /// as a fraction of the new-and-clean heat rate (0.005 = 0.5 % per year),
     /// 0 to below 1.
     pub heat_rate_fraction_per_year: f64,
-    /// Share of the degradation that each overhaul recovers, 0 to 1.
+    /// Output loss per year of operation at the stated annual hours, as a
+    /// fraction of the new-and-clean output, 0 to below 1.
+    pub output_fraction_per_year: f64,
+    /// Share of the degradation that each overhaul recovers, 0 to 1 (heat
+    /// rate and output alike).
     pub recoverable_fraction: f64,
 }
 
@@ -295,6 +395,32 @@ impl<M: Money> Capital<M> {
     }
 }
 
+impl<M: Money> Overhaul<M> {
+    /// Operating (fired) hours between overhauls for a year of `operation`:
+    /// the equivalent-hours interval over the equivalent hours per fired
+    /// hour, or the starts interval over the starts per fired hour, whichever
+    /// is shorter. `None` when the unit does not run (no hours, so nothing
+    /// wears).
+    ///
+    /// Example (hand-worked): 500 h and 150 starts a year at 20 h per start
+    /// is 3 500 EOH a year; a 24 000 EOH interval falls every 6.857 years,
+    /// i.e. every 3 428.6 fired hours. A 900-start limit falls every 6 years
+    /// (3 000 fired hours) and governs.
+    pub fn operating_hours_between(&self, operation: &Operation) -> Option<f64> {
+        let hours = operation.operating_hours;
+        if hours <= 0.0 {
+            return None;
+        }
+        let starts_per_hour = operation.starts_per_year / hours;
+        let by_hours = self.interval_hours / (1.0 + starts_per_hour * self.hours_per_start);
+        let by_starts = match self.interval_starts {
+            Some(starts) if starts_per_hour > 0.0 => starts / starts_per_hour,
+            _ => f64::INFINITY,
+        };
+        Some(by_hours.min(by_starts))
+    }
+}
+
 impl<M: Money> LedgerInputs<M> {
     /// The same inputs with every money value converted by `convert`, e.g.
     /// `Decimal` inputs to `f64` for sampling (see [`LedgerInputs::to_f64`]).
@@ -334,6 +460,7 @@ impl<M: Money> LedgerInputs<M> {
             service_life_years: self.service_life_years,
             rates: self.rates,
             timing: self.timing,
+            present_value_date: self.present_value_date,
             capital,
             operation: self.operation,
             fuel: Fuel {
@@ -348,8 +475,20 @@ impl<M: Money> LedgerInputs<M> {
             },
             fixed_om: escalating(&self.fixed_om),
             variable_om: escalating(&self.variable_om),
+            starts: Starts {
+                fuel_gj_lhv_per_start: self.starts.fuel_gj_lhv_per_start,
+                cost_per_start: escalating(&self.starts.cost_per_start),
+            },
+            service: ServiceFees {
+                per_fired_hour: escalating(&self.service.per_fired_hour),
+                per_start: escalating(&self.service.per_start),
+            },
             overhaul: self.overhaul.map(|o| Overhaul {
                 interval_hours: o.interval_hours,
+                hours_per_start: o.hours_per_start,
+                interval_starts: o.interval_starts,
+                outage_days: o.outage_days,
+                outage_capacity_kw: o.outage_capacity_kw,
                 cost: convert(o.cost),
                 escalation: o.escalation,
             }),
@@ -361,11 +500,11 @@ impl<M: Money> LedgerInputs<M> {
                 },
                 escalation: self.residual.escalation,
             },
-            replacement: Replacement {
-                energy_mwh_per_year: self.replacement.energy_mwh_per_year,
-                energy_price: escalating(&self.replacement.energy_price),
-                capacity_kw: self.replacement.capacity_kw,
-                capacity_price: escalating(&self.replacement.capacity_price),
+            bought_in: BoughtIn {
+                energy_mwh_per_year: self.bought_in.energy_mwh_per_year,
+                energy_price: escalating(&self.bought_in.energy_price),
+                capacity_kw: self.bought_in.capacity_kw,
+                capacity_price: escalating(&self.bought_in.capacity_price),
             },
             acceptance_settlement: AcceptanceSettlement {
                 damages: convert(self.acceptance_settlement.damages),

@@ -54,8 +54,20 @@ pub struct LedgerRow<M: Money = Decimal> {
     pub operating_hours: f64,
     /// Net energy generated in the period, MWh.
     pub energy_mwh: f64,
-    /// Fuel energy burned in the period including degradation, GJ (LHV).
+    /// Starts in the period.
+    pub starts: f64,
+    /// Fuel energy burned in the period including degradation and start
+    /// fuel, GJ (LHV).
     pub fuel_energy_gj: f64,
+    /// Mean heat-rate multiplier of the period, `1 + degradation` (1 for a
+    /// single-date row).
+    pub heat_rate_multiplier: f64,
+    /// Mean output lost to degradation in the period, a fraction of the
+    /// new-and-clean output.
+    pub output_loss: f64,
+    /// Share of the period's operation in service (1 less the overhaul
+    /// outages' share).
+    pub in_service: f64,
     /// Overhauls done in the period.
     pub overhaul_count: u32,
     /// Fuel cost.
@@ -68,9 +80,9 @@ pub struct LedgerRow<M: Money = Decimal> {
     pub variable_om: M,
     /// Overhaul cost.
     pub overhaul: M,
-    /// Output replacement: the energy and capacity shortfall bought
-    /// elsewhere (see [`Replacement`](super::Replacement)).
-    pub replacement: M,
+    /// Energy and capacity bought in: the energy and capacity shortfall bought
+    /// elsewhere (see [`BoughtIn`](super::BoughtIn)).
+    pub bought_in: M,
     /// Capital paid.
     pub capital: M,
     /// Guarantee settlement at the acceptance test: bonus paid less damages
@@ -80,7 +92,7 @@ pub struct LedgerRow<M: Money = Decimal> {
     pub residual: M,
     /// Sum of the row's money columns.
     pub total: M,
-    /// Discount factor to the base date at `cash_time_years`.
+    /// Discount factor to the present-value date at `cash_time_years`.
     pub discount_factor: M,
     /// `total` × `discount_factor`.
     pub present_value: M,
@@ -99,8 +111,8 @@ pub struct StreamTotals<M: Money = Decimal> {
     pub variable_om: M,
     /// Present value of overhauls.
     pub overhaul: M,
-    /// Present value of output replacement (energy and capacity shortfall).
-    pub replacement: M,
+    /// Present value of energy and capacity bought in (energy and capacity shortfall).
+    pub bought_in: M,
     /// Present value of capital.
     pub capital: M,
     /// Present value of the guarantee settlement (bonus less damages).
@@ -117,14 +129,14 @@ impl<M: Money> StreamTotals<M> {
         fixed_om: M::ZERO,
         variable_om: M::ZERO,
         overhaul: M::ZERO,
-        replacement: M::ZERO,
+        bought_in: M::ZERO,
         capital: M::ZERO,
         guarantee_settlement: M::ZERO,
         residual: M::ZERO,
     };
 
     /// Operating, maintenance and repair costs: fuel, carbon, fixed and
-    /// variable O&M, overhauls and output replacement (everything but
+    /// variable O&M, overhauls and energy and capacity bought in (everything but
     /// capital and residual).
     pub fn operating(&self) -> Option<M> {
         self.fuel_cost
@@ -132,7 +144,7 @@ impl<M: Money> StreamTotals<M> {
             .add_checked(self.fixed_om)?
             .add_checked(self.variable_om)?
             .add_checked(self.overhaul)?
-            .add_checked(self.replacement)
+            .add_checked(self.bought_in)
     }
 
     /// Investment net of residual value: capital plus the guarantee
@@ -158,6 +170,9 @@ pub struct Analysis {
     pub rates: Rates,
     /// Cash timing convention.
     pub timing: Timing,
+    /// The date every present value is stated at (discounted or, for
+    /// construction payments before it, compounded to).
+    pub present_value_date: NaiveDate,
 }
 
 impl Analysis {
@@ -177,6 +192,9 @@ impl Analysis {
         }
         if self.timing != other.timing {
             return differs("cash timing");
+        }
+        if self.present_value_date != other.present_value_date {
+            return differs("present-value date");
         }
         Ok(())
     }
@@ -206,14 +224,14 @@ pub struct LedgerSummary<M: Money = Decimal> {
 impl<M: Money> LedgerSummary<M> {
     /// Levelized cost of electricity per MWh: the candidate's own lifecycle
     /// cost over the present value of the energy it generates. Output
-    /// replacement is left out: it buys energy and capacity the candidate
+    /// bought_in is left out: it buys energy and capacity the candidate
     /// does not generate, so it is not a cost of the candidate's MWh (and
     /// levelized costs of candidates of different output stay comparable).
     /// `None` when no energy is generated.
     pub fn levelized_cost_per_mwh(&self) -> Option<M> {
         let energy = M::from_physics(self.pv_energy_mwh)?;
         self.lifecycle_cost
-            .sub_checked(self.present_value.replacement)?
+            .sub_checked(self.present_value.bought_in)?
             .div_checked(energy)
     }
 }

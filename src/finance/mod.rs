@@ -24,7 +24,7 @@
 //! - Overhauls fall at multiples of the interval of accumulated operating
 //!   hours; one falling exactly at the end of life is not charged.
 //! - Residual value is credited on its own row at the end of life.
-//! - Output replacement ([`Replacement`]), the energy and capacity a
+//! - Energy and capacity bought in ([`BoughtIn`]), the energy and capacity a
 //!   candidate falls short of and buys elsewhere, is an operating cost
 //!   charged pro rata in each operating row; the levelized cost leaves it
 //!   out.
@@ -66,8 +66,8 @@ pub use guarantee::{
     SettlementRates, TestTolerance, ToleranceRule,
 };
 pub use inputs::{
-    Capital, CapitalPayment, Carbon, Degradation, EscalatingPrice, Fuel, FuelPrice, LedgerInputs,
-    Operation, Overhaul, PriceBasis, Replacement, Residual, ResidualValue,
+    BoughtIn, Capital, CapitalPayment, Carbon, Degradation, EscalatingPrice, Fuel, FuelPrice,
+    LedgerInputs, Operation, Overhaul, PriceBasis, Residual, ResidualValue, ServiceFees, Starts,
 };
 pub use ledger::{Analysis, Ledger, LedgerRow, LedgerSummary, RowKind, StreamTotals};
 pub use money::{

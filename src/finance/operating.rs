@@ -16,8 +16,17 @@ const CARBON_COST: &str = "carbon cost";
 const FIXED_OM: &str = "fixed O&M";
 const VARIABLE_OM: &str = "variable O&M";
 const OVERHAUL_COST: &str = "overhaul cost";
-const REPLACEMENT_ENERGY: &str = "output replacement energy";
-const REPLACEMENT_CAPACITY: &str = "output replacement capacity";
+const START_COST: &str = "start cost";
+const LOST_ENERGY: &str = "energy lost to outages and output degradation";
+const LOST_CAPACITY: &str = "capacity lost to outages";
+
+/// Days in the year an outage's share is counted against (365: the share of
+/// a common year; common practice for availability figures).
+const DAYS_PER_YEAR: f64 = 365.0;
+const SERVICE_PER_HOUR: &str = "service fee per fired hour";
+const SERVICE_PER_START: &str = "service fee per start";
+const BOUGHT_IN_ENERGY: &str = "energy bought in";
+const BOUGHT_IN_CAPACITY: &str = "capacity bought in";
 
 /// Present values accumulated over the operating rows.
 pub(crate) struct OperatingPart<M: Money> {
@@ -176,6 +185,48 @@ impl<M: Money> OptionalStream<M> {
             None => Ok(M::ZERO),
         }
     }
+
+    /// `sum` plus [`Stream::cost`]; `sum` itself, untouched, when the stream
+    /// is off (so a ledger without the stream is exactly what it was).
+    fn add_cost(
+        &mut self,
+        sum: M,
+        quantity: f64,
+        step_years: f64,
+        discount: f64,
+        year: i32,
+    ) -> Result<M, FinanceError> {
+        match &mut self.0 {
+            Some(stream) => {
+                let cost = stream.cost(quantity, step_years, discount, year)?;
+                add(sum, cost, stream.name, year)
+            }
+            None => Ok(sum),
+        }
+    }
+
+    /// `sum` plus [`Stream::present_value`]; `sum` when the stream is off.
+    fn add_present_value(&self, sum: M, year: i32) -> Result<M, FinanceError> {
+        match &self.0 {
+            Some(stream) => add(sum, stream.present_value(year)?, stream.name, year),
+            None => Ok(sum),
+        }
+    }
+}
+
+/// A stream that is on when its price is not zero and its yearly quantity
+/// is positive.
+fn priced_stream<M: Money>(
+    name: &'static str,
+    price: &super::inputs::EscalatingPrice<M>,
+    quantity_per_year: f64,
+) -> OptionalStream<M> {
+    OptionalStream::new(
+        price.price != M::ZERO && quantity_per_year > 0.0,
+        name,
+        price.price,
+        price.escalation,
+    )
 }
 
 /// Positive quantities below this always convert to money (finite, and
@@ -223,15 +274,37 @@ fn cash_time(timing: Timing, period: &Span, previous_fraction: Option<f64>) -> (
 pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
     inputs: &LedgerInputs<M>,
     calendar: &Calendar,
+    base_years: f64,
     sink: &mut S,
 ) -> Result<OperatingPart<M>, FinanceError> {
     let operation = &inputs.operation;
     let overhaul = inputs.overhaul;
     let mut wear = WearModel::new(
         operation.operating_hours,
-        inputs.degradation.heat_rate_fraction_per_year,
+        (
+            inputs.degradation.heat_rate_fraction_per_year,
+            inputs.degradation.output_fraction_per_year,
+        ),
         inputs.degradation.recoverable_fraction,
-        overhaul.map(|o| o.interval_hours),
+        overhaul.and_then(|o| o.operating_hours_between(operation)),
+    );
+    // Outages: the share of a year each overhaul takes out of service (a
+    // year of 365 days), and the capacity lost meanwhile.
+    let (outage_year_share, outage_capacity_kw) = overhaul.map_or((0.0, 0.0), |o| {
+        (o.outage_days / DAYS_PER_YEAR, o.outage_capacity_kw)
+    });
+    let starts_per_year = operation.starts_per_year;
+    let start_fuel_per_year = starts_per_year * inputs.starts.fuel_gj_lhv_per_start;
+    let mut start_cost = priced_stream(START_COST, &inputs.starts.cost_per_start, starts_per_year);
+    let mut service_per_hour = priced_stream(
+        SERVICE_PER_HOUR,
+        &inputs.service.per_fired_hour,
+        operation.operating_hours,
+    );
+    let mut service_per_start = priced_stream(
+        SERVICE_PER_START,
+        &inputs.service.per_start,
+        starts_per_year,
     );
     let (first_year, last_year) = calendar.operating_years();
     let mut fuel = match &inputs.fuel.price {
@@ -256,20 +329,36 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
     let mut variable_om = Stream::new(VARIABLE_OM, variable.price, variable.escalation);
     let mut overhauls =
         OptionalStream(overhaul.map(|o| Stream::new(OVERHAUL_COST, o.cost, o.escalation)));
-    let shortfall = &inputs.replacement;
-    let mut replacement_energy = OptionalStream::new(
+    let shortfall = &inputs.bought_in;
+    let mut bought_in_energy = OptionalStream::new(
         shortfall.energy_mwh_per_year > 0.0,
-        REPLACEMENT_ENERGY,
+        BOUGHT_IN_ENERGY,
         shortfall.energy_price.price,
         shortfall.energy_price.escalation,
     );
-    let mut replacement_capacity = OptionalStream::new(
+    let mut bought_in_capacity = OptionalStream::new(
         shortfall.capacity_kw > 0.0,
-        REPLACEMENT_CAPACITY,
+        BOUGHT_IN_CAPACITY,
         shortfall.capacity_price.price,
         shortfall.capacity_price.escalation,
     );
-    let mut discount = FactorChain::discount(inputs.rates.discount_rate);
+    let loses_energy = inputs.degradation.output_fraction_per_year > 0.0
+        || (outage_year_share > 0.0 && operation.energy_mwh > 0.0);
+    let mut lost_energy = OptionalStream::new(
+        loses_energy && shortfall.energy_price.price != M::ZERO,
+        LOST_ENERGY,
+        shortfall.energy_price.price,
+        shortfall.energy_price.escalation,
+    );
+    let mut lost_capacity = OptionalStream::new(
+        outage_year_share > 0.0
+            && outage_capacity_kw > 0.0
+            && shortfall.capacity_price.price != M::ZERO,
+        LOST_CAPACITY,
+        shortfall.capacity_price.price,
+        shortfall.capacity_price.escalation,
+    );
+    let mut discount = FactorChain::discount_to(inputs.rates.discount_rate, base_years);
 
     let mut rows_present_value = M::ZERO;
     let mut pv_energy_mwh = 0.0;
@@ -284,11 +373,36 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
         let fraction = period.fraction_of_year;
         let from_hours = operation.operating_hours * period.time_start_years;
         let to_hours = operation.operating_hours * period.time_end_years;
-        let operating_hours = operation.operating_hours * fraction;
-        let energy_mwh = operation.energy_mwh * fraction;
+        let mut operating_hours = operation.operating_hours * fraction;
+        let new_and_clean_mwh = operation.energy_mwh * fraction;
+        let mut energy_mwh = new_and_clean_mwh;
         let wear = wear.row(from_hours, to_hours, index == last_index);
-        let fuel_energy_gj = operation.fuel_energy_gj_lhv * fraction * wear.heat_rate_multiplier;
+        let mut fuel_energy_gj =
+            operation.fuel_energy_gj_lhv * fraction * wear.heat_rate_multiplier;
+        if wear.output_loss > 0.0 {
+            // Output degradation: less delivered, at the degraded heat rate.
+            energy_mwh *= 1.0 - wear.output_loss;
+            fuel_energy_gj *= 1.0 - wear.output_loss;
+        }
+        if start_fuel_per_year > 0.0 {
+            // Start fuel: burned per start, not degraded.
+            fuel_energy_gj += start_fuel_per_year * fraction;
+        }
+        let mut starts = starts_per_year * fraction;
         let overhaul_count = wear.overhaul_count;
+        // Outage: the row's operation falls by the share out of service.
+        let outage_share = if outage_year_share > 0.0 && overhaul_count > 0 && fraction > 0.0 {
+            (f64::from(overhaul_count) * outage_year_share / fraction).min(1.0)
+        } else {
+            0.0
+        };
+        let in_service = 1.0 - outage_share;
+        if outage_share > 0.0 {
+            operating_hours *= in_service;
+            energy_mwh *= in_service;
+            fuel_energy_gj *= in_service;
+            starts *= in_service;
+        }
 
         // Quantities meet prices.
         let discount_value = discount.advance(step);
@@ -308,28 +422,50 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
             year,
         )?;
         let variable_om = variable_om.cost(energy_mwh, step, discount_value, year)?;
+        // Starts and service-agreement fees are variable O&M.
+        let variable_om = start_cost.add_cost(variable_om, starts, step, discount_value, year)?;
+        let variable_om =
+            service_per_hour.add_cost(variable_om, operating_hours, step, discount_value, year)?;
+        let variable_om =
+            service_per_start.add_cost(variable_om, starts, step, discount_value, year)?;
         let overhaul = overhauls.cost(f64::from(overhaul_count), step, discount_value, year)?;
-        // Output replacement: energy pro rata like energy, capacity like
+        // Energy and capacity bought in: energy pro rata like energy, capacity like
         // fixed O&M.
-        let replacement_energy = replacement_energy.cost(
+        let bought_in_energy = bought_in_energy.cost(
             shortfall.energy_mwh_per_year * fraction,
             step,
             discount_value,
             year,
         )?;
-        let replacement_capacity = replacement_capacity.cost(
+        let bought_in_capacity = bought_in_capacity.cost(
             shortfall.capacity_kw * fraction,
             step,
             discount_value,
             year,
         )?;
-        let replacement = add(
-            replacement_energy,
-            replacement_capacity,
-            "output replacement",
+        let bought_in = add(
+            bought_in_energy,
+            bought_in_capacity,
+            "energy and capacity bought in",
             year,
         )?;
-        let total = [carbon_cost, fixed_om, variable_om, overhaul, replacement]
+        // Energy lost to outages and output degradation, and capacity lost
+        // to outages, bought in at the same prices.
+        let bought_in = lost_energy.add_cost(
+            bought_in,
+            new_and_clean_mwh - energy_mwh,
+            step,
+            discount_value,
+            year,
+        )?;
+        let bought_in = lost_capacity.add_cost(
+            bought_in,
+            outage_capacity_kw * outage_share * fraction,
+            step,
+            discount_value,
+            year,
+        )?;
+        let total = [carbon_cost, fixed_om, variable_om, overhaul, bought_in]
             .into_iter()
             .try_fold(fuel_cost, |sum, x| add(sum, x, "row total", year))?;
         let present_value = mul(total, discount_factor, "present value", year)?;
@@ -358,14 +494,18 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
             cash_time_years,
             operating_hours,
             energy_mwh,
+            starts,
             fuel_energy_gj,
+            heat_rate_multiplier: wear.heat_rate_multiplier,
+            output_loss: wear.output_loss,
+            in_service,
             overhaul_count,
             fuel_cost,
             carbon_cost,
             fixed_om,
             variable_om,
             overhaul,
-            replacement,
+            bought_in,
             capital: M::ZERO,
             guarantee_settlement: M::ZERO,
             residual: M::ZERO,
@@ -378,13 +518,20 @@ pub(crate) fn operating_rows<M: Money, S: RowSink<M>>(
         fuel_cost: fuel.present_value(last_year)?,
         carbon_cost: carbon_cost.present_value(last_year)?,
         fixed_om: fixed_om.present_value(last_year)?,
-        variable_om: variable_om.present_value(last_year)?,
+        variable_om: [&start_cost, &service_per_hour, &service_per_start]
+            .into_iter()
+            .try_fold(variable_om.present_value(last_year)?, |sum, stream| {
+                stream.add_present_value(sum, last_year)
+            })?,
         overhaul: overhauls.present_value(last_year)?,
-        replacement: add(
-            replacement_energy.present_value(last_year)?,
-            replacement_capacity.present_value(last_year)?,
-            "output replacement",
-            last_year,
+        bought_in: [&lost_energy, &lost_capacity].into_iter().try_fold(
+            add(
+                bought_in_energy.present_value(last_year)?,
+                bought_in_capacity.present_value(last_year)?,
+                "energy and capacity bought in",
+                last_year,
+            )?,
+            |sum, stream| stream.add_present_value(sum, last_year),
         )?,
         ..StreamTotals::ZERO
     };

@@ -104,6 +104,35 @@ impl<M: Money> LedgerInputs<M> {
         )?;
         check_money("carbon.price_per_tonne", self.carbon.price_per_tonne)?;
         check_rate("carbon.escalation", self.carbon.escalation)?;
+        check_range(
+            "operation.starts_per_year",
+            op.starts_per_year,
+            0.0,
+            f64::MAX,
+            NON_NEGATIVE,
+        )?;
+        check_range(
+            "starts.fuel_gj_lhv_per_start",
+            self.starts.fuel_gj_lhv_per_start,
+            0.0,
+            f64::MAX,
+            NON_NEGATIVE,
+        )?;
+        check_money("starts.cost_per_start", self.starts.cost_per_start.price)?;
+        check_rate(
+            "starts.cost_per_start.escalation",
+            self.starts.cost_per_start.escalation,
+        )?;
+        check_money("service.per_fired_hour", self.service.per_fired_hour.price)?;
+        check_rate(
+            "service.per_fired_hour.escalation",
+            self.service.per_fired_hour.escalation,
+        )?;
+        check_money("service.per_start", self.service.per_start.price)?;
+        check_rate(
+            "service.per_start.escalation",
+            self.service.per_start.escalation,
+        )?;
         check_money("fixed_om.price", self.fixed_om.price)?;
         check_rate("fixed_om.escalation", self.fixed_om.escalation)?;
         check_money("variable_om.price", self.variable_om.price)?;
@@ -116,6 +145,36 @@ impl<M: Money> LedgerInputs<M> {
                     valid: "a finite number of operating hours greater than 0",
                 });
             }
+            check_range(
+                "overhaul.hours_per_start",
+                overhaul.hours_per_start,
+                0.0,
+                f64::MAX,
+                NON_NEGATIVE,
+            )?;
+            check_range(
+                "overhaul.outage_days",
+                overhaul.outage_days,
+                0.0,
+                365.0,
+                "0 to 365 days per overhaul",
+            )?;
+            check_range(
+                "overhaul.outage_capacity_kw",
+                overhaul.outage_capacity_kw,
+                0.0,
+                f64::MAX,
+                NON_NEGATIVE,
+            )?;
+            if let Some(starts) = overhaul.interval_starts {
+                if !(starts.is_finite() && starts > 0.0) {
+                    return Err(FinanceError::OutOfRange {
+                        field: "overhaul.interval_starts",
+                        value: starts,
+                        valid: "a finite number of starts greater than 0",
+                    });
+                }
+            }
             check_money("overhaul.cost", overhaul.cost)?;
             check_rate("overhaul.escalation", overhaul.escalation)?;
         }
@@ -123,6 +182,13 @@ impl<M: Money> LedgerInputs<M> {
         check_range(
             "degradation.heat_rate_fraction_per_year",
             degradation.heat_rate_fraction_per_year,
+            0.0,
+            0.999_999,
+            "0 to below 1 per year",
+        )?;
+        check_range(
+            "degradation.output_fraction_per_year",
+            degradation.output_fraction_per_year,
             0.0,
             0.999_999,
             "0 to below 1 per year",
@@ -141,7 +207,7 @@ impl<M: Money> LedgerInputs<M> {
             ResidualValue::Amount(amount) => check_money("residual.amount", amount)?,
         }
         check_rate("residual.escalation", self.residual.escalation)?;
-        self.validate_replacement()?;
+        self.validate_bought_in()?;
         check_money(
             "acceptance_settlement.damages",
             self.acceptance_settlement.damages,
@@ -153,37 +219,34 @@ impl<M: Money> LedgerInputs<M> {
         self.validate_capital()
     }
 
-    fn validate_replacement(&self) -> Result<(), FinanceError> {
-        let replacement = &self.replacement;
+    fn validate_bought_in(&self) -> Result<(), FinanceError> {
+        let bought_in = &self.bought_in;
         check_range(
-            "replacement.energy_mwh_per_year",
-            replacement.energy_mwh_per_year,
+            "bought_in.energy_mwh_per_year",
+            bought_in.energy_mwh_per_year,
+            0.0,
+            f64::MAX,
+            NON_NEGATIVE,
+        )?;
+        check_money("bought_in.energy_price.price", bought_in.energy_price.price)?;
+        check_rate(
+            "bought_in.energy_price.escalation",
+            bought_in.energy_price.escalation,
+        )?;
+        check_range(
+            "bought_in.capacity_kw",
+            bought_in.capacity_kw,
             0.0,
             f64::MAX,
             NON_NEGATIVE,
         )?;
         check_money(
-            "replacement.energy_price.price",
-            replacement.energy_price.price,
+            "bought_in.capacity_price.price",
+            bought_in.capacity_price.price,
         )?;
         check_rate(
-            "replacement.energy_price.escalation",
-            replacement.energy_price.escalation,
-        )?;
-        check_range(
-            "replacement.capacity_kw",
-            replacement.capacity_kw,
-            0.0,
-            f64::MAX,
-            NON_NEGATIVE,
-        )?;
-        check_money(
-            "replacement.capacity_price.price",
-            replacement.capacity_price.price,
-        )?;
-        check_rate(
-            "replacement.capacity_price.escalation",
-            replacement.capacity_price.escalation,
+            "bought_in.capacity_price.escalation",
+            bought_in.capacity_price.escalation,
         )
     }
 

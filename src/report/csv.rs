@@ -6,21 +6,33 @@
 //! `guarantee_settlement` column (bonus paid less damages received at the
 //! acceptance test) is always present, zero on rows without a settlement,
 //! so the stream columns of every row add up to its `total`.
+//!
+//! Each row has a unique label (`row`: `"2026 construction"`, `"2027
+//! operation"`, `"acceptance test"`, `"end of life"`); each candidate's rows
+//! end with a `total` row (year and discount factor empty) whose money
+//! columns are the undiscounted sums and whose `present_value` is the
+//! lifecycle cost. `present_value_date` is the date every present value is
+//! stated at.
 
 use super::format::{self, Quantity};
 use super::model::{Model, Units};
 use super::Renderer;
 
+/// Position of the fuel-energy column (renamed with US units).
+const FUEL_ENERGY_COLUMN: usize = 8;
+
 /// Renders every candidate's ledger as CSV.
 pub struct LedgerCsvRenderer;
 
 /// Column names, in order.
-pub const LEDGER_COLUMNS: [&str; 20] = [
+pub const LEDGER_COLUMNS: [&str; 23] = [
     "candidate_id",
+    "row",
     "year",
     "period_start",
     "period_end",
     "operating_hours",
+    "starts",
     "energy_mwh",
     "fuel_energy_gj",
     "fuel_cost",
@@ -28,7 +40,7 @@ pub const LEDGER_COLUMNS: [&str; 20] = [
     "fixed_om",
     "variable_om",
     "overhaul",
-    "replacement",
+    "bought_in",
     "capital",
     "residual",
     "guarantee_settlement",
@@ -36,6 +48,7 @@ pub const LEDGER_COLUMNS: [&str; 20] = [
     "discount_factor",
     "present_value",
     "currency",
+    "present_value_date",
 ];
 
 impl Renderer for LedgerCsvRenderer {
@@ -44,18 +57,21 @@ impl Renderer for LedgerCsvRenderer {
         let fail = |e: csv::Error| crate::Error::Internal(format!("CSV encoding failed: {e}"));
         let mut columns = LEDGER_COLUMNS;
         if model.meta.units == Units::Us {
-            columns[6] = "fuel_energy_mmbtu";
+            columns[FUEL_ENERGY_COLUMN] = "fuel_energy_mmbtu";
         }
         writer.write_record(columns).map_err(fail)?;
+        let pv_date = &model.method.present_value_date;
         for c in &model.candidates {
             for r in &c.ledger {
                 writer
                     .write_record([
                         c.id.clone(),
+                        r.label.clone(),
                         r.year.to_string(),
                         r.period_start.clone(),
                         r.period_end.clone(),
                         r.operating_hours.to_string(),
+                        r.starts.to_string(),
                         r.energy_mwh.to_string(),
                         fuel_energy(r.fuel_energy_gj, model.meta.units),
                         r.fuel_cost.to_string(),
@@ -63,7 +79,7 @@ impl Renderer for LedgerCsvRenderer {
                         r.fixed_om.to_string(),
                         r.variable_om.to_string(),
                         r.overhaul.to_string(),
-                        r.replacement.to_string(),
+                        r.bought_in.to_string(),
                         r.capital.to_string(),
                         r.residual.to_string(),
                         r.guarantee_settlement.to_string(),
@@ -71,9 +87,38 @@ impl Renderer for LedgerCsvRenderer {
                         r.discount_factor.to_string(),
                         r.present_value.to_string(),
                         model.meta.currency.clone(),
+                        pv_date.clone(),
                     ])
                     .map_err(fail)?;
             }
+            let t = &c.ledger_total;
+            writer
+                .write_record([
+                    c.id.clone(),
+                    t.label.clone(),
+                    String::new(),
+                    t.period_start.clone(),
+                    t.period_end.clone(),
+                    t.operating_hours.to_string(),
+                    t.starts.to_string(),
+                    t.energy_mwh.to_string(),
+                    fuel_energy(t.fuel_energy_gj, model.meta.units),
+                    t.fuel_cost.to_string(),
+                    t.carbon_cost.to_string(),
+                    t.fixed_om.to_string(),
+                    t.variable_om.to_string(),
+                    t.overhaul.to_string(),
+                    t.bought_in.to_string(),
+                    t.capital.to_string(),
+                    t.residual.to_string(),
+                    t.guarantee_settlement.to_string(),
+                    t.total.to_string(),
+                    String::new(),
+                    t.present_value.to_string(),
+                    model.meta.currency.clone(),
+                    pv_date.clone(),
+                ])
+                .map_err(fail)?;
         }
         writer
             .into_inner()

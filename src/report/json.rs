@@ -115,5 +115,6 @@ fn candidate(c: &CandidateView) -> Value {
         "cost_breakdown": c.cost_breakdown,
         "cycle": c.cycle,
         "ledger": c.ledger,
+        "ledger_total": c.ledger_total,
     })
 }

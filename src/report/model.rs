@@ -59,7 +59,7 @@ impl Model {
     /// Whether some candidate settles a guarantee at the acceptance test
     /// (a non-zero `guarantee_settlement` stream): renderers show the
     /// settlement column, category or bar only then, as they do output
-    /// replacement only when it is charged.
+    /// bought_in only when it is charged.
     pub fn settled(&self) -> bool {
         self.candidates.iter().any(|c| {
             !c.cost_breakdown.guarantee_settlement.is_zero()
@@ -165,6 +165,52 @@ pub struct CandidateView {
     pub cumulative_savings: Vec<CumulativePoint>,
     /// The year-by-year ledger.
     pub ledger: Vec<LedgerRowView>,
+    /// The ledger's totals row: each column summed over the rows (money
+    /// undiscounted, except `present_value`, which is the lifecycle cost).
+    pub ledger_total: LedgerTotalView,
+}
+
+/// The totals row of a candidate's ledger: the unrounded rows summed, then
+/// rounded once. Its present value is the lifecycle cost.
+#[derive(Debug, Clone, Serialize)]
+pub struct LedgerTotalView {
+    /// `"total"`.
+    pub label: String,
+    /// First day of the first row (ISO 8601).
+    pub period_start: String,
+    /// Last day of the last row (ISO 8601).
+    pub period_end: String,
+    /// Operating hours over the life.
+    pub operating_hours: f64,
+    /// Starts over the life.
+    pub starts: f64,
+    /// Net energy over the life, MWh.
+    pub energy_mwh: f64,
+    /// Fuel energy over the life, GJ (LHV).
+    pub fuel_energy_gj: f64,
+    /// Fuel cost, undiscounted.
+    pub fuel_cost: Decimal,
+    /// Carbon cost, undiscounted.
+    pub carbon_cost: Decimal,
+    /// Fixed O&M, undiscounted.
+    pub fixed_om: Decimal,
+    /// Variable O&M, undiscounted.
+    pub variable_om: Decimal,
+    /// Overhauls, undiscounted.
+    pub overhaul: Decimal,
+    /// Energy and capacity bought in, undiscounted.
+    pub bought_in: Decimal,
+    /// Capital, undiscounted.
+    pub capital: Decimal,
+    /// Residual value credited, undiscounted (negative).
+    pub residual: Decimal,
+    /// Guarantee settlement; left out of the JSON when zero.
+    #[serde(skip_serializing_if = "Decimal::is_zero")]
+    pub guarantee_settlement: Decimal,
+    /// Sum of the rows' totals, undiscounted.
+    pub total: Decimal,
+    /// Sum of the rows' present values: the lifecycle cost.
+    pub present_value: Decimal,
 }
 
 /// Headline performance at site conditions, new and clean, full load.
@@ -367,10 +413,10 @@ pub struct CostBreakdown {
     pub overhauls: Decimal,
     /// Carbon.
     pub carbon: Decimal,
-    /// Output replacement: the candidate's shortfall in energy and capacity
+    /// Energy and capacity bought in: the candidate's shortfall in energy and capacity
     /// against the largest candidate, bought elsewhere (zero for the
     /// largest, or when the scenario values neither).
-    pub replacement: Decimal,
+    pub bought_in: Decimal,
     /// Residual value (a credit, negative).
     pub residual: Decimal,
     /// Guarantee settlement at the acceptance test: bonus paid less damages
@@ -400,6 +446,9 @@ pub struct CumulativePoint {
 /// One ledger row as shown.
 #[derive(Debug, Clone, Serialize)]
 pub struct LedgerRowView {
+    /// Unique label of the row: `"2026-03-01 construction"`,
+    /// `"acceptance test"`, `"2027 operation"`, `"2057-05-01 residual value"`.
+    pub label: String,
     /// Calendar year label.
     pub year: i32,
     /// First day of the period (ISO 8601).
@@ -408,6 +457,8 @@ pub struct LedgerRowView {
     pub period_end: String,
     /// Operating hours.
     pub operating_hours: f64,
+    /// Starts.
+    pub starts: f64,
     /// Net energy, MWh.
     pub energy_mwh: f64,
     /// Fuel energy, GJ (LHV).
@@ -422,8 +473,8 @@ pub struct LedgerRowView {
     pub variable_om: Decimal,
     /// Overhaul.
     pub overhaul: Decimal,
-    /// Output replacement (energy and capacity shortfall bought elsewhere).
-    pub replacement: Decimal,
+    /// Energy and capacity bought in (energy and capacity shortfall bought elsewhere).
+    pub bought_in: Decimal,
     /// Capital.
     pub capital: Decimal,
     /// Residual value (a credit, negative).
@@ -524,9 +575,16 @@ pub struct MethodView {
     /// Value of one kW of capacity bought elsewhere, per kW-year
     /// (`economics.capacity_value`).
     pub capacity_value_per_kw_year: Decimal,
-    /// The date every present value is discounted to (ISO 8601): the
-    /// commercial operation date.
+    /// The date every present value is stated at (ISO 8601): the
+    /// commercial operation date or the study date
+    /// (`economics.present_value_date`).
     pub present_value_date: String,
+    /// Which date that is: `"commercial-operation"` or `"study"`.
+    pub present_value_base: String,
+    /// One sentence stating the present-value date, that construction
+    /// payments before it are compounded to it and later cash discounted,
+    /// and the money basis (real or nominal).
+    pub present_value_note: String,
 }
 
 /// The energy unit fuel prices are shown per (the one the scenario file

@@ -37,6 +37,7 @@ impl Renderer for TableRenderer {
         out.push_str("Performance at site, new and clean, full load (heat rate on LHV)\n");
         out.push_str(&performance_table(model));
         out.push_str("\n\nEconomics over the service life (present values)\n");
+        out.push_str(&format!("{}\n", m.present_value_note));
         out.push_str(&economics_table(model));
         out.push_str(
             "\n\nEvaluation factors: what one unit more of each figure is worth over the life \

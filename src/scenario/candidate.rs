@@ -169,6 +169,22 @@ pub struct CandidateCosts {
     pub overhaul_interval_hours: f64,
     /// Cost of one major overhaul.
     pub overhaul_cost: Decimal,
+    /// Equivalent operating hours counted per start (0: starts add none).
+    pub hours_per_start: f64,
+    /// Starts between major overhauls; 0 means starts do not limit them.
+    pub overhaul_starts: f64,
+    /// Days out of service per major overhaul.
+    pub overhaul_outage_days: f64,
+    /// Output loss per year of operation (fraction per year).
+    pub output_degradation_per_year: f64,
+    /// Fuel burned per start, GJ (LHV).
+    pub start_fuel_gj: f64,
+    /// Cost per start (O&M), currency.
+    pub start_cost: Decimal,
+    /// Service-agreement fee per fired hour, currency.
+    pub service_fee_per_fired_hour: Decimal,
+    /// Service-agreement fee per start, currency.
+    pub service_fee_per_start: Decimal,
     /// Heat-rate increase per year of operation (fraction per year).
     pub degradation_per_year: f64,
     /// Fraction of the degradation an overhaul recovers, in [0, 1].

@@ -74,6 +74,110 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
     )
     .within(0.0, AMOUNT_HIGH, "", AMOUNT_REASON),
     K::number(
+        "costs.hours_per_start",
+        Kind::Duration,
+        Range::NonNegative,
+        Presence::Default { text: "0 h", value: 0.0 },
+        "equivalent operating hours counted per start toward `overhaul_interval` (which is then in equivalent hours)",
+        |c| Some(c.costs.hours_per_start),
+        |c, v| {
+            c.costs.hours_per_start = v;
+            Ok(())
+        },
+    )
+    .within(0.0, 1000.0, "h", "a start is commonly counted as about 10 to 50 equivalent hours (common practice); above 1000 h a start would outweigh a month of running"),
+    K::number(
+        "costs.overhaul_starts",
+        Kind::Number,
+        Range::NonNegative,
+        Presence::Default { text: "0 (starts do not limit)", value: 0.0 },
+        "starts between major overhauls; an overhaul falls due on equivalent hours or on starts, whichever comes first; needs an `overhaul_interval` above 0",
+        |c| Some(c.costs.overhaul_starts),
+        |c, v| {
+            c.costs.overhaul_starts = v;
+            Ok(())
+        },
+    )
+    .within(0.0, 1e6, "", "hundreds to a few thousand starts in practice (common practice); a million would never fall due"),
+    K::number(
+        "costs.overhaul_outage_days",
+        Kind::Number,
+        Range::NonNegative,
+        Presence::Default { text: "0", value: 0.0 },
+        "days out of service per major overhaul; the energy and capacity lost meanwhile are bought in at `economics.energy_value` and `capacity_value`",
+        |c| Some(c.costs.overhaul_outage_days),
+        |c, v| {
+            c.costs.overhaul_outage_days = v;
+            Ok(())
+        },
+    )
+    .within(0.0, 365.0, "", "a major overhaul takes days to a few weeks (common practice); a year is the most a yearly ledger row can lose"),
+    K::number(
+        "costs.output_degradation_per_year",
+        Kind::Fraction,
+        Range::Loss,
+        Presence::Default { text: "0 %", value: 0.0 },
+        "net output lost per year of operation; `recoverable_fraction` of it is restored at each overhaul; the energy lost is bought in at `economics.energy_value`",
+        |c| Some(c.costs.output_degradation_per_year),
+        |c, v| {
+            c.costs.output_degradation_per_year = v;
+            Ok(())
+        },
+    )
+    .within(0.0, 0.2, "", "a fraction of a per cent to a few per cent a year in practice (common practice)"),
+    K::number(
+        "costs.start_fuel",
+        Kind::FuelEnergy,
+        Range::NonNegative,
+        Presence::Default { text: "0 GJ", value: 0.0 },
+        "fuel burned per start (LHV), priced like the fuel and carrying its carbon",
+        |c| Some(c.costs.start_fuel_gj),
+        |c, v| {
+            c.costs.start_fuel_gj = v;
+            Ok(())
+        },
+    )
+    .within(0.0, 1e5, "GJ", "a start burns roughly the fuel of a fraction of an hour to a few hours at full load (common practice); 100 000 GJ is days of a large machine"),
+    K::number(
+        "costs.start_cost",
+        Kind::Money,
+        Range::NonNegative,
+        Presence::Default { text: "0", value: 0.0 },
+        "O&M cost per start (counted in variable O&M)",
+        |c| Some(money_to_f64(c.costs.start_cost)),
+        |c, v| {
+            c.costs.start_cost = money_from_f64(v)?;
+            Ok(())
+        },
+    )
+    .within(0.0, AMOUNT_HIGH, "", AMOUNT_REASON),
+    K::number(
+        "costs.service_per_fired_hour",
+        Kind::Money,
+        Range::NonNegative,
+        Presence::Default { text: "0", value: 0.0 },
+        "service-agreement fee per fired hour (counted in variable O&M)",
+        |c| Some(money_to_f64(c.costs.service_fee_per_fired_hour)),
+        |c, v| {
+            c.costs.service_fee_per_fired_hour = money_from_f64(v)?;
+            Ok(())
+        },
+    )
+    .within(0.0, AMOUNT_HIGH, "", AMOUNT_REASON),
+    K::number(
+        "costs.service_per_start",
+        Kind::Money,
+        Range::NonNegative,
+        Presence::Default { text: "0", value: 0.0 },
+        "service-agreement fee per start (counted in variable O&M)",
+        |c| Some(money_to_f64(c.costs.service_fee_per_start)),
+        |c, v| {
+            c.costs.service_fee_per_start = money_from_f64(v)?;
+            Ok(())
+        },
+    )
+    .within(0.0, AMOUNT_HIGH, "", AMOUNT_REASON),
+    K::number(
         "costs.degradation_per_year",
         Kind::Fraction,
         Range::Loss,
@@ -128,6 +232,32 @@ pub(crate) fn read_costs(
             "expected an overhaul_interval above 0 h, e.g. \"24000 h\"",
         ));
     }
+    let hours_per_start = t.declared_at(ctx, KEYS, "costs.hours_per_start")?;
+    let overhaul_starts = t.declared_at(ctx, KEYS, "costs.overhaul_starts")?;
+    if overhaul_starts > 0.0 && overhaul_interval_hours <= 0.0 {
+        return Err(t.error(
+            ctx,
+            "overhaul_starts",
+            "is given but overhaul_interval is 0 h",
+            "expected an overhaul_interval above 0 h (in equivalent hours), e.g. \"24000 h\"",
+        ));
+    }
+    let overhaul_outage_days = t.declared_at(ctx, KEYS, "costs.overhaul_outage_days")?;
+    if overhaul_outage_days > 0.0 && overhaul_interval_hours <= 0.0 {
+        return Err(t.error(
+            ctx,
+            "overhaul_outage_days",
+            "is given but overhaul_interval is 0 h",
+            "expected an overhaul_interval above 0 h, e.g. \"24000 h\"",
+        ));
+    }
+    let output_degradation_per_year =
+        t.declared_at(ctx, KEYS, "costs.output_degradation_per_year")?;
+    let start_fuel_gj = t.declared_at(ctx, KEYS, "costs.start_fuel")?;
+    let start_cost = money_or_zero(ctx, &t, "start_cost", units::money, "")?;
+    let service_fee_per_fired_hour =
+        money_or_zero(ctx, &t, "service_per_fired_hour", units::money, "")?;
+    let service_fee_per_start = money_or_zero(ctx, &t, "service_per_start", units::money, "")?;
     let degradation_per_year = t.declared_at(ctx, KEYS, "costs.degradation_per_year")?;
     let recoverable_fraction = t.declared_at(ctx, KEYS, "costs.recoverable_fraction")?;
     let residual_value = read_residual(ctx, &t)?;
@@ -137,6 +267,14 @@ pub(crate) fn read_costs(
         variable_om_per_mwh,
         overhaul_interval_hours,
         overhaul_cost,
+        hours_per_start,
+        overhaul_starts,
+        overhaul_outage_days,
+        output_degradation_per_year,
+        start_fuel_gj,
+        start_cost,
+        service_fee_per_fired_hour,
+        service_fee_per_start,
         degradation_per_year,
         recoverable_fraction,
         residual_value,

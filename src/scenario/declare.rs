@@ -217,6 +217,7 @@ pub(crate) fn value_of_kind(kind: Kind, text: &str) -> Result<f64, UnitError> {
         Kind::Duration => units::duration_h(text),
         Kind::EmissionFactor => units::emission_factor_kg_per_gj(text),
         Kind::MassFlow => units::mass_flow_kg_per_s(text),
+        Kind::FuelEnergy => units::fuel_energy_gj(text),
         Kind::Money => units::money(text).map(money),
         Kind::FuelPrice => units::price_per_gj(text).map(money),
         Kind::PricePerTonne => units::price_per_tonne(text).map(money),
@@ -311,6 +312,7 @@ fn kind_text(kind: Kind) -> &'static str {
         Kind::Duration => "duration",
         Kind::EmissionFactor => "emission factor",
         Kind::MassFlow => "mass flow",
+        Kind::FuelEnergy => "fuel energy",
     }
 }
 

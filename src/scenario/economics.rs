@@ -7,7 +7,7 @@ use super::error::ScenarioError;
 use super::ranges::{Range, PRICE_HIGH, PRICE_REASON, RATE_HIGH, RATE_LOW, RATE_REASON};
 use super::reader::TableReader;
 use super::tree::Node;
-use super::types::{Economics, RateBasis, Scenario, Timing};
+use super::types::{Economics, PresentValueDate, RateBasis, Scenario, Timing};
 use super::values::{checked, money_or_zero, required_date};
 use crate::units::{self, Kind};
 
@@ -58,6 +58,7 @@ pub(crate) const KEYS: &[Key<Scenario>] = &[
     )
     .within(RATE_LOW, RATE_HIGH, "", RATE_REASON),
     K::plain("economics.timing", Shape::Choice(&["end-of-year", "mid-year"]), Presence::Default { text: "end-of-year", value: 0.0 }, "when in each year its cash flows are discounted"),
+    K::plain("economics.present_value_date", Shape::Choice(&["commercial-operation", "study"]), Presence::Default { text: "commercial-operation", value: 0.0 }, "the date every present value is stated at: the commercial operation date, or the scenario's `date` (the study date); construction payments before it are compounded to it, later cash discounted; prices still escalate from commercial operation"),
     K::number(
         "economics.carbon_price",
         Kind::PricePerTonne,
@@ -145,6 +146,15 @@ pub(crate) fn read_economics(ctx: &mut Context, node: &Node) -> Read<Economics> 
         "mid-year" => Timing::MidYear,
         _ => Timing::EndOfYear,
     };
+    let present_value_date = match r.choice(
+        ctx,
+        "present_value_date",
+        &["commercial-operation", "study"],
+        "commercial-operation",
+    )? {
+        "study" => PresentValueDate::Study,
+        _ => PresentValueDate::CommercialOperation,
+    };
     let carbon_price_per_tonne =
         money_or_zero(ctx, &r, "carbon_price", units::price_per_tonne, "/t")?;
     let carbon_escalation = r.declared_at(ctx, KEYS, "economics.carbon_escalation")?;
@@ -165,6 +175,7 @@ pub(crate) fn read_economics(ctx: &mut Context, node: &Node) -> Read<Economics> 
         rate_basis,
         inflation,
         timing,
+        present_value_date,
         carbon_price_per_tonne,
         carbon_escalation,
         capacity_value_per_kw_year,

@@ -26,6 +26,19 @@ pub(crate) const KEYS: &[Key<Scenario>] = &[
         |s| Some(s.operation.hours_per_year),
         set_hours_per_year,
     ),
+    K::number(
+        "operation.starts_per_year",
+        Kind::Number,
+        Range::NonNegative,
+        Presence::Default { text: "0", value: 0.0 },
+        "starts per year, every candidate alike: start fuel, start cost, service fees per start and the overhaul count follow them",
+        |s| Some(s.operation.starts_per_year),
+        |s, v| {
+            s.operation.starts_per_year = v;
+            Ok(())
+        },
+    )
+    .within(0.0, HOURS_PER_LEAP_YEAR, "", "at most one start per hour of the year; a peaker starts a few hundred times a year (common practice)"),
     K::plain("operation.dispatch", Shape::Array, Presence::Optional { text: "every hour at full load" }, "`[{ load = \"100 %\", hours = 2000 }, { load = \"75 %\", hours = 1000 }]`; loads in (0, 100 %], hours ≥ 0, total ≤ 8784. With `hours_per_year` too, the total must equal it"),
     K::plain("operation.part_load", Shape::Array, Presence::Optional { text: "none" }, "`[{ load = \"75 %\", heat_rate_ratio = 1.07 }, …]`: heat rate at that load ÷ full-load heat rate. Loads strictly ascending or descending; ratios ≥ 1 and not rising with load; exactly 1.0 at 100 % (added if absent). Optional: without it each candidate's own fixed machine gives its part-load heat rate (see `brayfin offdesign`); with it, the table is a stated vendor curve applied to each candidate's base-load heat rate at the site, and must reach down to the lowest dispatch load (no extrapolation)"),
 ];
@@ -91,6 +104,7 @@ pub(crate) fn read_operation(ctx: &mut Context, node: &Node) -> Read<Operation> 
             ))
         }
     };
+    let starts_per_year = r.declared_at(ctx, KEYS, "operation.starts_per_year")?;
     check_part_load(ctx, &r, &mut part_load)?;
     for (i, block) in dispatch.iter().enumerate() {
         if block.load_fraction >= 1.0 {
@@ -116,6 +130,7 @@ pub(crate) fn read_operation(ctx: &mut Context, node: &Node) -> Read<Operation> 
     }
     Ok(Operation {
         hours_per_year,
+        starts_per_year,
         dispatch,
         part_load,
     })

@@ -182,6 +182,16 @@ pub enum Timing {
     MidYear,
 }
 
+/// The date present values are stated at (`economics.present_value_date`).
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
+pub enum PresentValueDate {
+    /// The commercial-operation date (the default).
+    #[default]
+    CommercialOperation,
+    /// The scenario's study date (`scenario.date`).
+    Study,
+}
+
 /// The `[economics]` section.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Economics {
@@ -198,6 +208,8 @@ pub struct Economics {
     pub inflation: f64,
     /// Discounting convention.
     pub timing: Timing,
+    /// The date present values are stated at.
+    pub present_value_date: PresentValueDate,
     /// Carbon price in the first year of operation, currency per tonne CO2.
     pub carbon_price_per_tonne: Decimal,
     /// Yearly carbon price escalation (fraction, > −1).
@@ -238,6 +250,8 @@ pub struct Operation {
     /// Operating hours per year, in (0, 8784]. With a dispatch profile it
     /// equals the sum of the profile's hours.
     pub hours_per_year: f64,
+    /// Starts per year, 0 or more.
+    pub starts_per_year: f64,
     /// Dispatch profile; empty means every hour at full load.
     pub dispatch: Vec<DispatchBlock>,
     /// Part-load curve sorted by ascending load, ending at (1.0, 1.0); empty

@@ -241,3 +241,27 @@ fn durations_and_emission_factors() {
         Some(Problem::WrongKind(Kind::Power))
     ));
 }
+
+#[test]
+fn fuel_energy_in_gj_from_each_unit() {
+    // 1 MMBtu = 1.055056 GJ (KJ_PER_BTU; NIST SP 811 B.8, rounded as
+    // quoted); 1 therm = 10^5 Btu; 1 MWh = 3.6 GJ and 1 MJ = 0.001 GJ (SI).
+    let close = |text: &str, gj: f64| {
+        let value = fuel_energy_gj(text).expect(text);
+        assert!((value - gj).abs() <= 1e-12 * gj.max(1.0), "{text}: {value}");
+    };
+    close("110 GJ", 110.0);
+    close("110", 110.0);
+    close("2500 MJ", 2.5);
+    close("100 MMBtu", 105.5056);
+    close("1000 therm", 105.5056);
+    close("10 MWh", 36.0);
+    assert!(matches!(
+        fuel_energy_gj("-5 GJ").err().map(|e| e.problem),
+        Some(Problem::OutOfRange(_))
+    ));
+    assert!(matches!(
+        fuel_energy_gj("5 kg/s").err().map(|e| e.problem),
+        Some(Problem::WrongKind(Kind::MassFlow))
+    ));
+}

@@ -7,9 +7,19 @@
 //!   × (1 + escalation)^cash time, or the year's price from the path;
 //! - carbon = fuel energy × kg CO2/GJ ÷ 1000 × carbon price escalated;
 //! - fixed O&M = rated kW × share of the year × price per kW-yr;
-//! - variable O&M = MWh × price per MWh; overhauls = count × cost;
-//! - output replacement = shortfall × share of the year × value;
-//! - discount factor = (1 + rate)^−cash time; present value = total × factor.
+//! - fuel energy = year's fuel × share of the year × degradation multiplier,
+//!   plus starts per year × share of the year × start fuel;
+//! - variable O&M = MWh × price per MWh, plus fired hours × service fee per
+//!   hour, plus starts × (start cost + service fee per start);
+//! - overhauls = count × cost (the counts, due on equivalent hours or
+//!   starts, are constants);
+//! - energy and capacity bought in = shortfall × share of the year × value,
+//!   plus the energy lost to output degradation and overhaul outages (the
+//!   year's energy × share of the year − the row's energy) × energy value,
+//!   plus the site output × the share out of service × share of the year ×
+//!   capacity value (output lost and share in service are constants);
+//! - discount factor = (1 + rate)^−(cash time − present-value date's time);
+//!   present value = total × factor.
 //!
 //! The ledger never rounds money; its one rounding is where a quantity
 //! (already times its escalation factor) becomes `Decimal`, at 15
@@ -40,18 +50,20 @@ pub(crate) mod col {
     pub(crate) const HOURS: u16 = 7;
     pub(crate) const ENERGY: u16 = 8;
     pub(crate) const MULTIPLIER: u16 = 9;
-    pub(crate) const FUEL_GJ: u16 = 10;
-    pub(crate) const OVERHAULS: u16 = 11;
-    pub(crate) const FUEL: u16 = 12;
-    pub(crate) const CAPITAL: u16 = 18;
-    pub(crate) const RESIDUAL: u16 = 19;
-    pub(crate) const TOTAL: u16 = 20;
-    pub(crate) const FACTOR: u16 = 21;
-    pub(crate) const PV: u16 = 22;
-    pub(crate) const SAVING: u16 = 23;
-    pub(crate) const SIMPLE_CROSSING: u16 = 24;
-    pub(crate) const PV_SAVING: u16 = 25;
-    pub(crate) const DISCOUNTED_CROSSING: u16 = 26;
+    pub(crate) const OUTPUT_LOSS: u16 = 10;
+    pub(crate) const IN_SERVICE: u16 = 11;
+    pub(crate) const FUEL_GJ: u16 = 12;
+    pub(crate) const OVERHAULS: u16 = 13;
+    pub(crate) const FUEL: u16 = 14;
+    pub(crate) const CAPITAL: u16 = 20;
+    pub(crate) const RESIDUAL: u16 = 21;
+    pub(crate) const TOTAL: u16 = 22;
+    pub(crate) const FACTOR: u16 = 23;
+    pub(crate) const PV: u16 = 24;
+    pub(crate) const SAVING: u16 = 25;
+    pub(crate) const SIMPLE_CROSSING: u16 = 26;
+    pub(crate) const PV_SAVING: u16 = 27;
+    pub(crate) const DISCOUNTED_CROSSING: u16 = 28;
 }
 
 /// Rows of the totals block (zero-based), value in column B.
@@ -69,7 +81,7 @@ pub(crate) mod total {
 /// Header row of the ledger table; rows follow it.
 const HEADER_ROW: u32 = 12;
 
-const HEADERS: [&str; 27] = [
+const HEADERS: [&str; 29] = [
     "Row",
     "Year",
     "Period start",
@@ -80,6 +92,8 @@ const HEADERS: [&str; 27] = [
     "Operating hours",
     "Net energy, MWh",
     "Heat-rate multiplier, degradation (computed)",
+    "Output lost, degradation (computed)",
+    "Share in service, overhaul outages (computed)",
     "Fuel energy, GJ LHV",
     "Overhauls (computed)",
     "Fuel",
@@ -87,7 +101,7 @@ const HEADERS: [&str; 27] = [
     "Fixed O&M",
     "Variable O&M",
     "Overhauls",
-    "Output replacement",
+    "Energy and capacity bought in",
     "Capital",
     "Residual value",
     "Total",
@@ -298,34 +312,40 @@ impl LedgerSheet<'_> {
         let frac = at(r, col::FRACTION);
         let g = at(r, col::CASH_TIME);
         let k = at(r, col::FUEL_GJ);
+        cells.number(
+            r,
+            col::MULTIPLIER,
+            row.heat_rate_multiplier,
+            &s.factor.computed,
+        )?;
+        cells.number(r, col::OUTPUT_LOSS, row.output_loss, &s.factor.computed)?;
+        cells.number(r, col::IN_SERVICE, row.in_service, &s.factor.computed)?;
+        let kept = format!("(1-{})", at(r, col::OUTPUT_LOSS));
+        let in_service = at(r, col::IN_SERVICE);
         cells.formula(
             r,
             col::HOURS,
-            &format!("={}*{frac}", n.name("AnnualHours")),
+            &format!("={}*{frac}*{in_service}", n.name("AnnualHours")),
             row.operating_hours,
             &s.number.formula,
         )?;
         cells.formula(
             r,
             col::ENERGY,
-            &format!("={}*{frac}", n.name("AnnualEnergy")),
+            &format!("={}*{frac}*{kept}*{in_service}", n.name("AnnualEnergy")),
             row.energy_mwh,
             &s.number.formula,
         )?;
-        let new_and_clean = inputs.operation.fuel_energy_gj_lhv * fraction;
-        let multiplier = if new_and_clean > 0.0 {
-            row.fuel_energy_gj / new_and_clean
-        } else {
-            1.0
-        };
-        cells.number(r, col::MULTIPLIER, multiplier, &s.factor.computed)?;
+        let starts = format!("{}*{frac}*{in_service}", n.name("StartsPerYear"));
         cells.formula(
             r,
             col::FUEL_GJ,
             &format!(
-                "={}*{frac}*{}",
+                "=({}*{frac}*{}*{kept}+{}*{frac}*{})*{in_service}",
                 n.name("AnnualFuelGj"),
-                at(r, col::MULTIPLIER)
+                at(r, col::MULTIPLIER),
+                n.name("StartsPerYear"),
+                n.name("StartFuelGj")
             ),
             row.fuel_energy_gj,
             &s.number.formula,
@@ -365,7 +385,15 @@ impl LedgerSheet<'_> {
         cells.formula(
             r,
             col::FUEL + 3,
-            &format!("={}*{}", at(r, col::ENERGY), n.name("VariableOm")),
+            &format!(
+                "={}*{}+{}*{}+{starts}*({}+{})",
+                at(r, col::ENERGY),
+                n.name("VariableOm"),
+                at(r, col::HOURS),
+                n.name("ServicePerHour"),
+                n.name("StartCost"),
+                n.name("ServicePerStart")
+            ),
             f(row.variable_om),
             m,
         )?;
@@ -376,12 +404,15 @@ impl LedgerSheet<'_> {
             f(row.overhaul),
             m,
         )?;
-        let replacement = format!(
-            "={}*{frac}*EnergyValue+{}*{frac}*CapacityValue",
+        let bought_in = format!(
+            "={}*{frac}*EnergyValue+{}*{frac}*CapacityValue+({}*{frac}-{})*EnergyValue+{}*(1-{in_service})*{frac}*CapacityValue",
             n.name("EnergyShortfall"),
-            n.name("CapacityShortfall")
+            n.name("CapacityShortfall"),
+            n.name("AnnualEnergy"),
+            at(r, col::ENERGY),
+            n.name("SiteOutputKw"),
         );
-        cells.formula(r, col::FUEL + 5, &replacement, f(row.replacement), m)?;
+        cells.formula(r, col::FUEL + 5, &bought_in, f(row.bought_in), m)?;
         cells.number(r, col::CAPITAL, 0.0, m)?;
         cells.number(r, col::RESIDUAL, 0.0, m)
     }
@@ -390,7 +421,10 @@ impl LedgerSheet<'_> {
         let s = self.styles;
         let total = format!("=SUM({}:{})", at(r, col::FUEL), at(r, col::RESIDUAL));
         cells.formula(r, col::TOTAL, &total, f(row.total), &s.money.formula)?;
-        let factor = format!("=(1+DiscountRate)^(-{})", at(r, col::CASH_TIME));
+        let factor = format!(
+            "=(1+DiscountRate)^(-({}-PresentValueYears))",
+            at(r, col::CASH_TIME)
+        );
         cells.formula(
             r,
             col::FACTOR,

@@ -3,9 +3,9 @@
 #![allow(dead_code)]
 
 use brayfin::finance::{
-    AcceptanceSettlement, Capital, Carbon, Degradation, EscalatingPrice, Fuel, FuelPrice,
-    LedgerInputs, Operation, PriceBasis, RateBasis, Rates, Replacement, Residual, ResidualValue,
-    Timing,
+    AcceptanceSettlement, BoughtIn, Capital, Carbon, Degradation, EscalatingPrice, Fuel, FuelPrice,
+    LedgerInputs, Operation, PriceBasis, RateBasis, Rates, Residual, ResidualValue, ServiceFees,
+    Starts, Timing,
 };
 use chrono::NaiveDate;
 use rust_decimal::Decimal;
@@ -22,7 +22,7 @@ pub fn dec(text: &str) -> Decimal {
 
 /// A ledger with every stream zero: 1 January start, real 3 %, end-of-year,
 /// no capital, no fuel, no carbon, no O&M, no overhauls, no residual, no
-/// output replacement. Tests switch on only what they check.
+/// energy and capacity bought in. Tests switch on only what they check.
 pub fn empty_inputs(service_life_years: u32, discount_rate: f64) -> LedgerInputs {
     LedgerInputs {
         commercial_operation: date(2026, 1, 1),
@@ -33,12 +33,14 @@ pub fn empty_inputs(service_life_years: u32, discount_rate: f64) -> LedgerInputs
             inflation: 0.02,
         },
         timing: Timing::EndOfYear,
+        present_value_date: None,
         capital: Capital::AtCommercialOperation(Decimal::ZERO),
         operation: Operation {
             operating_hours: 0.0,
             energy_mwh: 0.0,
             fuel_energy_gj_lhv: 0.0,
             net_output_kw: 0.0,
+            starts_per_year: 0.0,
         },
         fuel: Fuel {
             price: FuelPrice::Escalating {
@@ -61,13 +63,15 @@ pub fn empty_inputs(service_life_years: u32, discount_rate: f64) -> LedgerInputs
             price: Decimal::ZERO,
             escalation: 0.0,
         },
+        starts: Starts::default(),
+        service: ServiceFees::default(),
         overhaul: None,
         degradation: Degradation::default(),
         residual: Residual {
             value: ResidualValue::Amount(Decimal::ZERO),
             escalation: 0.0,
         },
-        replacement: Replacement::default(),
+        bought_in: BoughtIn::default(),
         acceptance_settlement: AcceptanceSettlement::default(),
     }
 }
@@ -87,6 +91,7 @@ pub fn busy_inputs() -> LedgerInputs {
             inflation: 0.025,
         },
         timing: Timing::EndOfYear,
+        present_value_date: None,
         capital: Capital::Schedule(vec![
             CapitalPayment {
                 date: date(2025, 7, 1),
@@ -106,6 +111,7 @@ pub fn busy_inputs() -> LedgerInputs {
             energy_mwh: 300_000.0,
             fuel_energy_gj_lhv: 2_850_000.0,
             net_output_kw: 50_000.0,
+            starts_per_year: 0.0,
         },
         fuel: Fuel {
             price: FuelPrice::Escalating {
@@ -128,20 +134,27 @@ pub fn busy_inputs() -> LedgerInputs {
             price: dec("3.20"),
             escalation: 0.004,
         },
+        starts: Starts::default(),
+        service: ServiceFees::default(),
         overhaul: Some(Overhaul {
             interval_hours: 24_000.0,
+            hours_per_start: 0.0,
+            interval_starts: None,
+            outage_days: 0.0,
+            outage_capacity_kw: 0.0,
             cost: dec("2400000.00"),
             escalation: 0.01,
         }),
         degradation: Degradation {
             heat_rate_fraction_per_year: 0.004,
+            output_fraction_per_year: 0.0,
             recoverable_fraction: 0.7,
         },
         residual: Residual {
             value: ResidualValue::FractionOfCapital(0.1),
             escalation: 0.0,
         },
-        replacement: Replacement {
+        bought_in: BoughtIn {
             energy_mwh_per_year: 24_000.0,
             energy_price: EscalatingPrice {
                 price: dec("92.00"),
@@ -166,6 +179,10 @@ pub fn busy_baseline() -> LedgerInputs {
     inputs.operation.fuel_energy_gj_lhv = 3_120_000.0;
     inputs.overhaul = Some(Overhaul {
         interval_hours: 20_000.0,
+        hours_per_start: 0.0,
+        interval_starts: None,
+        outage_days: 0.0,
+        outage_capacity_kw: 0.0,
         cost: dec("2100000.00"),
         escalation: 0.01,
     });

@@ -61,10 +61,16 @@ fn ledger(life: u32, capital: i64, fuel: i64) -> Vec<LedgerRowView> {
             let overhaul = if i > 0 && i % 8 == 0 { 2_500_000 } else { 0 };
             let total = cap + fuel_cost + om + residual + overhaul + 150_000;
             LedgerRowView {
+                label: if i == 0 {
+                    "capital at commercial operation".into()
+                } else {
+                    format!("{} operation", 2027 + i)
+                },
                 year: 2027 + i as i32,
                 period_start: format!("{}-01-01", 2027 + i),
                 period_end: format!("{}-12-31", 2027 + i),
                 operating_hours: if i == 0 { 0.0 } else { 6500.0 },
+                starts: 0.0,
                 energy_mwh: if i == 0 { 0.0 } else { 273_000.0 },
                 fuel_energy_gj: if i == 0 { 0.0 } else { 2_700_000.0 },
                 fuel_cost: dec(fuel_cost),
@@ -72,7 +78,7 @@ fn ledger(life: u32, capital: i64, fuel: i64) -> Vec<LedgerRowView> {
                 fixed_om: dec(om / 2),
                 variable_om: dec(om / 2),
                 overhaul: dec(overhaul),
-                replacement: dec(0),
+                bought_in: dec(0),
                 capital: dec(cap),
                 residual: dec(residual),
                 guarantee_settlement: dec(0),
@@ -187,7 +193,7 @@ fn candidate(
             operation_and_maintenance: dec(11_000_000),
             overhauls: dec(6_000_000),
             carbon: dec(4_500_000),
-            replacement: dec(0),
+            bought_in: dec(0),
             residual: dec(-1_500_000),
             guarantee_settlement: dec(0),
         },
@@ -197,7 +203,7 @@ fn candidate(
             operation_and_maintenance: dec(0),
             overhauls: dec(250_000),
             carbon: dec(-300_000),
-            replacement: dec(0),
+            bought_in: dec(0),
             residual: dec(-100_000),
             guarantee_settlement: dec(0),
         }),
@@ -206,13 +212,45 @@ fn candidate(
         } else {
             linear_savings(life, premium, per_year)
         },
+        ledger_total: total_of(&ledger(life, capital, 11_000_000 - per_year)),
         ledger: ledger(life, capital, 11_000_000 - per_year),
+    }
+}
+
+/// The totals row of a fixture ledger: each column summed.
+fn total_of(rows: &[LedgerRowView]) -> LedgerTotalView {
+    let sum = |pick: fn(&LedgerRowView) -> Decimal| rows.iter().map(pick).sum::<Decimal>();
+    LedgerTotalView {
+        label: "total".into(),
+        period_start: rows
+            .first()
+            .map(|r| r.period_start.clone())
+            .unwrap_or_default(),
+        period_end: rows
+            .last()
+            .map(|r| r.period_end.clone())
+            .unwrap_or_default(),
+        operating_hours: rows.iter().map(|r| r.operating_hours).sum(),
+        starts: 0.0,
+        energy_mwh: rows.iter().map(|r| r.energy_mwh).sum(),
+        fuel_energy_gj: rows.iter().map(|r| r.fuel_energy_gj).sum(),
+        fuel_cost: sum(|r| r.fuel_cost),
+        carbon_cost: sum(|r| r.carbon_cost),
+        fixed_om: sum(|r| r.fixed_om),
+        variable_om: sum(|r| r.variable_om),
+        overhaul: sum(|r| r.overhaul),
+        bought_in: sum(|r| r.bought_in),
+        capital: sum(|r| r.capital),
+        residual: sum(|r| r.residual),
+        guarantee_settlement: sum(|r| r.guarantee_settlement),
+        total: sum(|r| r.total),
+        present_value: sum(|r| r.present_value),
     }
 }
 
 /// The fixture: a baseline and two bids (the last with a long label), with
 /// or without the sensitivity and risk parts. All three have the same net
-/// output, so nothing is charged for output replacement (see [`levelled`]).
+/// output, so nothing is charged for energy and capacity bought in (see [`levelled`]).
 pub fn model(with_sensitivity: bool, with_risk: bool) -> Model {
     let candidates = vec![
         candidate("base", "Base bid: simple cycle", true, 30_000_000, 10_300.0, 0, 0, false),
@@ -295,7 +333,7 @@ pub fn model(with_sensitivity: bool, with_risk: bool) -> Model {
     });
     Model {
         meta: Meta {
-            title: "Northmere Energy Park: replacement gas turbine".into(),
+            title: "Northmere Energy Park: bought_in gas turbine".into(),
             prepared_for: "Northmere Municipal Power Cooperative".into(),
             prepared_by: "Plant engineering office".into(),
             date: "2026-11-30".into(),
@@ -386,6 +424,8 @@ pub fn model(with_sensitivity: bool, with_risk: bool) -> Model {
             energy_value_per_mwh: dec(0),
             capacity_value_per_kw_year: dec(0),
             present_value_date: "2027-01-01".into(),
+            present_value_base: "commercial-operation".into(),
+            present_value_note: "Present values are stated at 2027-01-01, the commercial operation date: construction payments made before it are compounded to it and later cash is discounted to it; all amounts are in real money (constant money of 2025-03-14, general inflation taken out).".into(),
         },
         fuel_price_curves: FuelPriceCurves {
             scenario_price_per_gj: Decimal::new(520, 2),
@@ -415,10 +455,10 @@ pub fn levelled(with_sensitivity: bool, with_risk: bool) -> Model {
     model.method.energy_value_per_mwh = Decimal::new(9500, 2);
     model.method.capacity_value_per_kw_year = Decimal::new(4000, 2);
     let base = &mut model.candidates[0];
-    base.cost_breakdown.replacement = dec(9_000_000);
+    base.cost_breakdown.bought_in = dec(9_000_000);
     base.cost_breakdown.fuel -= dec(9_000_000);
     for row in base.ledger.iter_mut().filter(|r| r.operating_hours > 0.0) {
-        row.replacement = dec(900_000);
+        row.bought_in = dec(900_000);
         row.fuel_cost -= dec(900_000);
     }
     model

@@ -287,7 +287,7 @@ pub fn nominal_variant(dir: &Path) -> std::path::PathBuf {
         ("rate_basis = \"real\"", "rate_basis = \"nominal\""),
         ("discount_rate = \"8 %\"", "discount_rate = \"10.16 %\""),
         (
-            "overhaul_interval = \"32000 h\"\noverhaul_cost = \"2600000 EUR\"\n",
+            "overhaul_interval = \"32000 h\"\noverhaul_cost = \"2600000 EUR\"\noverhaul_outage_days = 21\n",
             "",
         ),
     ] {
@@ -295,6 +295,23 @@ pub fn nominal_variant(dir: &Path) -> std::path::PathBuf {
         text = text.replacen(from, to, 1);
     }
     let path = dir.join("kestrel-nominal.toml");
+    std::fs::write(&path, text).expect("variant written");
+    path
+}
+
+/// The second demo with every present value stated at the study date
+/// (`economics.present_value_date = "study"`), written into `dir`. It
+/// exercises the discount factor's shift to the present-value date.
+pub fn study_date_variant(dir: &Path) -> std::path::PathBuf {
+    let text = std::fs::read_to_string(DEMOS[1]).expect("demo");
+    let from = "rate_basis = \"real\"";
+    assert!(text.contains(from), "the demo has {from}");
+    let text = text.replacen(
+        from,
+        "rate_basis = \"real\"\npresent_value_date = \"study\"",
+        1,
+    );
+    let path = dir.join("kestrel-study-date.toml");
     std::fs::write(&path, text).expect("variant written");
     path
 }

@@ -48,10 +48,12 @@ pub(super) fn fuel(dst: &mut FuelSpec, src: &FuelSpec) {
 pub(super) fn operation(dst: &mut Operation, src: &Operation) {
     let Operation {
         hours_per_year,
+        starts_per_year,
         dispatch,
         part_load,
     } = src;
     dst.hours_per_year = *hours_per_year;
+    dst.starts_per_year = *starts_per_year;
     dst.dispatch.clone_from(dispatch);
     dst.part_load.clone_from(part_load);
 }
@@ -62,6 +64,14 @@ fn costs(dst: &mut CandidateCosts, src: &CandidateCosts) {
         variable_om_per_mwh,
         overhaul_interval_hours,
         overhaul_cost,
+        hours_per_start,
+        overhaul_starts,
+        overhaul_outage_days,
+        output_degradation_per_year,
+        start_fuel_gj,
+        start_cost,
+        service_fee_per_fired_hour,
+        service_fee_per_start,
         degradation_per_year,
         recoverable_fraction,
         residual_value,
@@ -71,6 +81,14 @@ fn costs(dst: &mut CandidateCosts, src: &CandidateCosts) {
     dst.variable_om_per_mwh = *variable_om_per_mwh;
     dst.overhaul_interval_hours = *overhaul_interval_hours;
     dst.overhaul_cost = *overhaul_cost;
+    dst.hours_per_start = *hours_per_start;
+    dst.overhaul_starts = *overhaul_starts;
+    dst.overhaul_outage_days = *overhaul_outage_days;
+    dst.output_degradation_per_year = *output_degradation_per_year;
+    dst.start_fuel_gj = *start_fuel_gj;
+    dst.start_cost = *start_cost;
+    dst.service_fee_per_fired_hour = *service_fee_per_fired_hour;
+    dst.service_fee_per_start = *service_fee_per_start;
     dst.degradation_per_year = *degradation_per_year;
     dst.recoverable_fraction = *recoverable_fraction;
     dst.residual_value = *residual_value;

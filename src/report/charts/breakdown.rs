@@ -1,6 +1,6 @@
 //! Lifecycle cost of each candidate broken down by stream (present values):
 //! capital, fuel, O&M, overhauls, carbon and (when any candidate is charged
-//! for an output shortfall) output replacement stacked upward from zero, the
+//! for an output shortfall) energy and capacity bought in stacked upward from zero, the
 //! residual-value credit below zero, and the lifecycle cost marked. A
 //! guarantee settlement (when any candidate has one) is its own category:
 //! damages received stack below zero with the residual credit, a bonus paid
@@ -20,7 +20,7 @@ pub struct Segment {
     /// Candidate id.
     pub candidate_id: String,
     /// Stream index (0 capital, 1 fuel, 2 O&M, 3 overhauls, 4 carbon,
-    /// 5 residual, 6 output replacement, 7 guarantee settlement).
+    /// 5 residual, 6 energy and capacity bought in, 7 guarantee settlement).
     pub stream: usize,
     /// The segment's box on the page.
     pub rect: Rect,
@@ -35,8 +35,8 @@ pub struct BreakdownChart {
     pub segments: Vec<Segment>,
 }
 
-/// Index of the output-replacement stream.
-const REPLACEMENT: usize = 6;
+/// Index of the energy and capacity bought in stream.
+const BOUGHT_IN: usize = 6;
 
 /// Index of the guarantee-settlement stream.
 pub const SETTLEMENT: usize = 7;
@@ -50,14 +50,14 @@ fn streams(b: &CostBreakdown) -> [f64; 8] {
         money_f64(b.overhauls),
         money_f64(b.carbon),
         money_f64(b.residual),
-        money_f64(b.replacement),
+        money_f64(b.bought_in),
         money_f64(b.guarantee_settlement),
     ]
 }
 
 /// Order of stacking and of the legend: the candidate's own costs, then
 /// what it buys elsewhere, then the settlement, then the credit.
-const STACK_ORDER: [usize; 8] = [0, 1, 2, 3, 4, REPLACEMENT, SETTLEMENT, 5];
+const STACK_ORDER: [usize; 8] = [0, 1, 2, 3, 4, BOUGHT_IN, SETTLEMENT, 5];
 
 /// The chart inside `area`; `None` if the model has no candidates.
 pub fn breakdown_chart(model: &Model, labels: &Labels, area: Rect) -> Option<BreakdownChart> {
@@ -71,14 +71,14 @@ pub fn breakdown_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Bre
         &labels.overhauls,
         &labels.carbon,
         &labels.residual,
-        &labels.replacement,
+        &labels.bought_in,
         &labels.guarantee_settlement,
     ];
     let settled = model.settled();
     let levelled = model
         .candidates
         .iter()
-        .any(|c| !c.cost_breakdown.replacement.is_zero());
+        .any(|c| !c.cost_breakdown.bought_in.is_zero());
     let (mut low, mut high) = (0.0f64, 0.0f64);
     for c in &model.candidates {
         let values = streams(&c.cost_breakdown);
@@ -113,7 +113,7 @@ pub fn breakdown_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Bre
     };
     let mut legend: Vec<LegendEntry> = STACK_ORDER
         .iter()
-        .filter(|i| levelled || **i != REPLACEMENT)
+        .filter(|i| levelled || **i != BOUGHT_IN)
         .filter(|i| settled || **i != SETTLEMENT)
         .map(|&i| {
             let (colour, hatch) = stream_fill(i);

@@ -42,7 +42,7 @@ pub struct DifferenceChart {
 }
 
 /// Stream values by index: capital, fuel, O&M, overhauls, carbon, output
-/// replacement, residual value, guarantee settlement (a row of the chart
+/// bought_in, residual value, guarantee settlement (a row of the chart
 /// only when some candidate's settlement differs from the baseline's).
 pub fn stream_values(b: &CostBreakdown) -> [f64; 8] {
     [
@@ -51,7 +51,7 @@ pub fn stream_values(b: &CostBreakdown) -> [f64; 8] {
         money_f64(b.operation_and_maintenance),
         money_f64(b.overhauls),
         money_f64(b.carbon),
-        money_f64(b.replacement),
+        money_f64(b.bought_in),
         money_f64(b.residual),
         money_f64(b.guarantee_settlement),
     ]
@@ -74,7 +74,7 @@ pub fn difference_chart(model: &Model, labels: &Labels, area: Rect) -> Option<Di
         &labels.operation_and_maintenance,
         &labels.overhauls,
         &labels.carbon,
-        &labels.replacement,
+        &labels.bought_in,
         &labels.residual,
         &labels.guarantee_settlement,
     ];

@@ -78,6 +78,8 @@ fn method(model: &Model) -> Value {
         energy_value => unit_price(m.energy_value_per_mwh, currency),
         capacity_value => unit_price(m.capacity_value_per_kw_year, currency),
         present_value_date => m.present_value_date.clone(),
+        present_value_base => m.present_value_base.clone(),
+        present_value_note => m.present_value_note.clone(),
     }
 }
 

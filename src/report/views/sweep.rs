@@ -60,6 +60,7 @@ fn internal_unit(kind: Option<Kind>, currency: &str) -> String {
             Kind::Duration => "h".into(),
             Kind::EmissionFactor => "kg/GJ".into(),
             Kind::MassFlow => "kg/s".into(),
+            Kind::FuelEnergy => "GJ".into(),
         },
     }
 }

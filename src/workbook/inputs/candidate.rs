@@ -84,9 +84,64 @@ pub(super) fn write(
         &source_of(loaded, &key("costs.variable_om")),
         Origin::Input,
     )?;
+    w.named(
+        "Starts per year",
+        &n.name("StartsPerYear"),
+        Shown::Number(inputs.operation.starts_per_year),
+        "starts",
+        &source_of(loaded, "operation.starts_per_year"),
+        Origin::Input,
+    )?;
+    w.named(
+        "Start fuel (LHV)",
+        &n.name("StartFuelGj"),
+        Shown::Number(inputs.starts.fuel_gj_lhv_per_start),
+        "GJ per start",
+        &format!(
+            "{}; priced like the fuel",
+            source_of(loaded, &key("costs.start_fuel"))
+        ),
+        Origin::Input,
+    )?;
+    w.named(
+        "Start cost",
+        &n.name("StartCost"),
+        Shown::Money(inputs.starts.cost_per_start.price),
+        &format!("{currency} per start"),
+        &format!(
+            "{}; counted in variable O&M",
+            source_of(loaded, &key("costs.start_cost"))
+        ),
+        Origin::Input,
+    )?;
+    w.named(
+        "Service fee per fired hour",
+        &n.name("ServicePerHour"),
+        Shown::Money(inputs.service.per_fired_hour.price),
+        &format!("{currency}/h"),
+        &format!(
+            "{}; counted in variable O&M",
+            source_of(loaded, &key("costs.service_per_fired_hour"))
+        ),
+        Origin::Input,
+    )?;
+    w.named(
+        "Service fee per start",
+        &n.name("ServicePerStart"),
+        Shown::Money(inputs.service.per_start.price),
+        &format!("{currency} per start"),
+        &format!(
+            "{}; counted in variable O&M",
+            source_of(loaded, &key("costs.service_per_start"))
+        ),
+        Origin::Input,
+    )?;
     let (interval, cost) = inputs
         .overhaul
         .map_or((0.0, Decimal::ZERO), |o| (o.interval_hours, o.cost));
+    let (hours_per_start, interval_starts) = inputs.overhaul.map_or((0.0, 0.0), |o| {
+        (o.hours_per_start, o.interval_starts.unwrap_or(0.0))
+    });
     w.named(
         "Overhaul cost (each)",
         &n.name("OverhaulCost"),
@@ -99,10 +154,32 @@ pub(super) fn write(
         "Overhaul interval",
         &n.name("OverhaulInterval"),
         Shown::Number(interval),
-        "operating hours",
+        "equivalent operating hours",
         &format!(
             "{}; sets the overhaul counts in the ledger (computed constants)",
             source_of(loaded, &key("costs.overhaul_interval"))
+        ),
+        Origin::Input,
+    )?;
+    w.named(
+        "Equivalent hours per start",
+        &n.name("HoursPerStart"),
+        Shown::Number(hours_per_start),
+        "h per start",
+        &format!(
+            "{}; equivalent hours = fired hours + starts × this; sets the overhaul counts (computed constants)",
+            source_of(loaded, &key("costs.hours_per_start"))
+        ),
+        Origin::Input,
+    )?;
+    w.named(
+        "Starts between overhauls",
+        &n.name("OverhaulStarts"),
+        Shown::Number(interval_starts),
+        "starts (0: no limit)",
+        &format!(
+            "{}; an overhaul falls due on equivalent hours or starts, whichever comes first; sets the overhaul counts (computed constants)",
+            source_of(loaded, &key("costs.overhaul_starts"))
         ),
         Origin::Input,
     )?;
@@ -114,6 +191,28 @@ pub(super) fn write(
         &format!(
             "{}; enters the ledger through the heat-rate multipliers (computed constants)",
             source_of(loaded, &key("costs.degradation_per_year"))
+        ),
+        Origin::Input,
+    )?;
+    w.named(
+        "Output degradation",
+        &n.name("OutputDegradation"),
+        Shown::Percent(inputs.degradation.output_fraction_per_year),
+        "per year of operation",
+        &format!(
+            "{}; enters the ledger through the output-lost column (computed constants); the energy lost is bought in at EnergyValue",
+            source_of(loaded, &key("costs.output_degradation_per_year"))
+        ),
+        Origin::Input,
+    )?;
+    w.named(
+        "Outage per overhaul",
+        &n.name("OutageDays"),
+        Shown::Number(inputs.overhaul.map_or(0.0, |o| o.outage_days)),
+        "days",
+        &format!(
+            "{}; enters the ledger through the share-in-service column (computed constants: 1 − overhauls × days ÷ 365 ÷ share of the year); the energy and capacity lost are bought in",
+            source_of(loaded, &key("costs.overhaul_outage_days"))
         ),
         Origin::Input,
     )?;
@@ -210,7 +309,7 @@ pub(super) fn write(
         "Energy shortfall bought elsewhere",
         &n.name("EnergyShortfall"),
         &format!("=MAX(0,MAX({energies})-{})", n.name("AnnualEnergy")),
-        inputs.replacement.energy_mwh_per_year,
+        inputs.bought_in.energy_mwh_per_year,
         "MWh per full year",
         "levelling: the most any candidate delivers, less this candidate's",
     )?;
@@ -218,7 +317,7 @@ pub(super) fn write(
         "Capacity shortfall bought elsewhere",
         &n.name("CapacityShortfall"),
         &format!("=MAX(0,MAX({outputs})-{})", n.name("SiteOutputKw")),
-        inputs.replacement.capacity_kw,
+        inputs.bought_in.capacity_kw,
         "kW",
         "levelling: the largest base-load output at the site, less this candidate's",
     )?;

@@ -82,6 +82,27 @@ pub(crate) fn write(
         &source_of(loaded, "economics.commercial_operation"),
         Origin::Input,
     )?;
+    let analysis = &study.outcomes[study.baseline_index].ledger.summary.analysis;
+    let pv_date = analysis.present_value_date;
+    w.named(
+        "Present-value date",
+        "PresentValueDate",
+        Shown::Word(pv_date.to_string()),
+        "date",
+        &format!(
+            "{}; every present value is stated at this date (construction payments before it compounded to it)",
+            source_of(loaded, "economics.present_value_date")
+        ),
+        Origin::Input,
+    )?;
+    w.named(
+        "Present-value date, years from commercial operation",
+        "PresentValueYears",
+        Shown::Number(analysis.calendar.time_of(pv_date)),
+        "years",
+        "computed by brayfin's calendar (a constant); the discount factor is (1 + DiscountRate)^-(cash time - this)",
+        Origin::Computed,
+    )?;
     w.named(
         "Service life",
         "ServiceLifeYears",

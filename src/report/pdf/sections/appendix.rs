@@ -3,17 +3,17 @@
 
 use super::Ctx;
 use crate::report::format;
-use crate::report::model::LedgerRowView;
+use crate::report::model::{LedgerRowView, LedgerTotalView};
 use crate::report::pdf::document::{Composer, Orientation};
 use crate::report::pdf::fonts::Face;
 use crate::report::pdf::table::{draw_table_continued, Column, TableStyle};
 
-/// A row's cells; the replacement column only when `levelled`, the
+/// A row's cells; the bought_in column only when `levelled`, the
 /// guarantee-settlement column only when `settled`.
 fn row(r: &LedgerRowView, levelled: bool, settled: bool) -> Vec<String> {
     let m = |v| format::grouped(v, 0);
     let mut cells = vec![
-        r.year.to_string(),
+        r.label.clone(),
         format::number(r.operating_hours, 0),
         format::number(r.energy_mwh, 0),
         format::number(r.fuel_energy_gj, 0),
@@ -22,13 +22,39 @@ fn row(r: &LedgerRowView, levelled: bool, settled: bool) -> Vec<String> {
         m(r.fixed_om),
         m(r.variable_om),
         m(r.overhaul),
-        m(r.replacement),
+        m(r.bought_in),
         m(r.capital),
         m(r.residual),
         m(r.guarantee_settlement),
         m(r.total),
         format!("{:.4}", r.discount_factor),
         m(r.present_value),
+    ];
+    drop_hidden(&mut cells, levelled, settled);
+    cells
+}
+
+/// The totals row's cells (no discount factor: its present value is the
+/// sum of the rows', the lifecycle cost).
+fn total_row(t: &LedgerTotalView, label: &str, levelled: bool, settled: bool) -> Vec<String> {
+    let m = |v| format::grouped(v, 0);
+    let mut cells = vec![
+        label.to_string(),
+        format::number(t.operating_hours, 0),
+        format::number(t.energy_mwh, 0),
+        format::number(t.fuel_energy_gj, 0),
+        m(t.fuel_cost),
+        m(t.carbon_cost),
+        m(t.fixed_om),
+        m(t.variable_om),
+        m(t.overhaul),
+        m(t.bought_in),
+        m(t.capital),
+        m(t.residual),
+        m(t.guarantee_settlement),
+        m(t.total),
+        String::new(),
+        m(t.present_value),
     ];
     drop_hidden(&mut cells, levelled, settled);
     cells
@@ -41,13 +67,13 @@ fn drop_hidden<T>(cells: &mut Vec<T>, levelled: bool, settled: bool) {
         cells.remove(SETTLEMENT_COLUMN);
     }
     if !levelled {
-        cells.remove(REPLACEMENT_COLUMN);
+        cells.remove(BOUGHT_IN_COLUMN);
     }
 }
 
-/// Position of the replacement column, shown only when some candidate is
+/// Position of the bought_in column, shown only when some candidate is
 /// charged for an output shortfall.
-const REPLACEMENT_COLUMN: usize = 9;
+const BOUGHT_IN_COLUMN: usize = 9;
 
 /// Position of the guarantee-settlement column (after the residual, before
 /// the total), shown only when some candidate settles a guarantee.
@@ -68,7 +94,7 @@ pub fn ledger(ctx: &Ctx, composer: &mut Composer) {
         Column::right(l.ledger_fixed_om.clone()),
         Column::right(l.ledger_variable_om.clone()),
         Column::right(l.ledger_overhaul.clone()),
-        Column::right(l.ledger_replacement.clone()),
+        Column::right(l.ledger_bought_in.clone()),
         Column::right(l.ledger_capital.clone()),
         Column::right(l.ledger_residual.clone()),
         Column::right(l.ledger_settlement.clone()),
@@ -93,7 +119,14 @@ pub fn ledger(ctx: &Ctx, composer: &mut Composer) {
             }
         }
         composer.heading(&c.label, 2, 30.0);
-        let rows: Vec<Vec<String>> = c.ledger.iter().map(|r| row(r, levelled, settled)).collect();
+        let mut rows: Vec<Vec<String>> =
+            c.ledger.iter().map(|r| row(r, levelled, settled)).collect();
+        rows.push(total_row(
+            &c.ledger_total,
+            &l.ledger_total,
+            levelled,
+            settled,
+        ));
         let caption = format!("{} ({})", c.label, l.continued);
         draw_table_continued(composer, &columns, &rows, &style, Some(&caption));
     }

@@ -1,4 +1,4 @@
-//! The output-replacement ("levelling") stream: energy and capacity a
+//! The energy and capacity bought in ("levelling") stream: energy and capacity a
 //! candidate falls short of, bought elsewhere at escalating prices.
 //!
 //! Checks:
@@ -18,8 +18,8 @@ mod finance_support;
 
 use brayfin::finance::factors::modified_uniform_present_value;
 use brayfin::finance::{
-    bid_factors, build_ledger, compare_summaries, summarize_ledger, CapacityValue, EscalatingPrice,
-    FinanceError, LedgerInputs, Money, Replacement, RowKind,
+    bid_factors, build_ledger, compare_summaries, summarize_ledger, BoughtIn, CapacityValue,
+    EscalatingPrice, FinanceError, LedgerInputs, Money, RowKind,
 };
 use finance_support::{busy_inputs, date, dec, empty_inputs};
 use rust_decimal::Decimal;
@@ -39,8 +39,8 @@ fn shortfall(
     kw: f64,
     capacity: &str,
     e_capacity: f64,
-) -> Replacement {
-    Replacement {
+) -> BoughtIn {
+    BoughtIn {
         energy_mwh_per_year: energy_mwh,
         energy_price: EscalatingPrice {
             price: dec(energy),
@@ -54,14 +54,14 @@ fn shortfall(
     }
 }
 
-/// Present value of the replacement stream and the lifecycle cost, in both
+/// Present value of the bought_in stream and the lifecycle cost, in both
 /// number types, as f64.
-fn replacement_pv(inputs: &LedgerInputs) -> [f64; 4] {
+fn bought_in_pv(inputs: &LedgerInputs) -> [f64; 4] {
     let decimal = summarize_ledger(inputs).expect("decimal ledger");
     let float = summarize_ledger(&inputs.to_f64()).expect("f64 ledger");
     [
-        decimal.present_value.replacement.to_f64(),
-        float.present_value.replacement,
+        decimal.present_value.bought_in.to_f64(),
+        float.present_value.bought_in,
         decimal.lifecycle_cost.to_f64(),
         float.lifecycle_cost,
     ]
@@ -73,14 +73,14 @@ fn replacement_pv(inputs: &LedgerInputs) -> [f64; 4] {
 /// Each alone and both together (the sum), 1 January start, end-of-year;
 /// 5 × 4 × 4 = 80 combinations.
 #[test]
-fn replacement_matches_modified_upv() {
+fn bought_in_matches_modified_upv() {
     for d in [0.0, 0.03, 0.08, 0.12, -0.01] {
         for e in [-0.03, 0.0, 0.02, d] {
             for n in [1, 12, 30, 60] {
                 let what = format!("d={d} e={e} n={n}");
                 let energy = 2_508_000.0 * modified_uniform_present_value(d, e, n);
                 let capacity = 132_000.0 * modified_uniform_present_value(d, e, n);
-                for (replacement, expected, part) in [
+                for (bought_in, expected, part) in [
                     (
                         shortfall(26_400.0, "95.00", e, 0.0, "40.00", e),
                         energy,
@@ -98,8 +98,8 @@ fn replacement_matches_modified_upv() {
                     ),
                 ] {
                     let mut inputs = empty_inputs(n, d);
-                    inputs.replacement = replacement;
-                    let [decimal, float, lcc_decimal, lcc_float] = replacement_pv(&inputs);
+                    inputs.bought_in = bought_in;
+                    let [decimal, float, lcc_decimal, lcc_float] = bought_in_pv(&inputs);
                     assert_close(decimal, expected, &format!("Decimal {part} {what}"));
                     assert_close(float, expected, &format!("f64 {part} {what}"));
                     // The only stream: the lifecycle cost (the sum of the
@@ -127,7 +127,7 @@ fn partial_years_are_charged_pro_rata() {
     inputs.operation.net_output_kw = 25_000.0;
     inputs.fixed_om.price = dec("20.00");
 
-    inputs.replacement = shortfall(10_000.0, "90.00", 0.0, 0.0, "0", 0.0);
+    inputs.bought_in = shortfall(10_000.0, "90.00", 0.0, 0.0, "0", 0.0);
     let ledger = build_ledger(&inputs).unwrap();
     let rows: Vec<_> = ledger
         .rows
@@ -141,19 +141,19 @@ fn partial_years_are_charged_pro_rata() {
         let share = row.energy_mwh / 200_000.0;
         let expected = 900_000.0 * share;
         assert!(
-            (row.replacement.to_f64() - expected).abs() < 1e-6,
+            (row.bought_in.to_f64() - expected).abs() < 1e-6,
             "{}: {} vs {expected}",
             row.year,
-            row.replacement
+            row.bought_in
         );
     }
 
-    inputs.replacement = shortfall(0.0, "0", 0.0, 5_000.0, "40.00", 0.0);
+    inputs.bought_in = shortfall(0.0, "0", 0.0, 5_000.0, "40.00", 0.0);
     let ledger = build_ledger(&inputs).unwrap();
     for row in ledger.rows.iter().filter(|r| r.kind == RowKind::Operation) {
-        // Fixed O&M is 25 000 kW × 20.00 = 500 000 a year; replacement
+        // Fixed O&M is 25 000 kW × 20.00 = 500 000 a year; bought_in
         // 5 000 kW × 40.00 = 200 000 a year: the ratio holds in every row.
-        let ratio = row.replacement.to_f64() / row.fixed_om.to_f64();
+        let ratio = row.bought_in.to_f64() / row.fixed_om.to_f64();
         assert!((ratio - 0.4).abs() < 1e-12, "{}: ratio {ratio}", row.year);
     }
 }
@@ -164,17 +164,17 @@ fn partial_years_are_charged_pro_rata() {
 #[test]
 fn zero_quantities_leave_the_ledger_unchanged() {
     let mut without = busy_inputs();
-    without.replacement = Replacement::default();
+    without.bought_in = BoughtIn::default();
     let reference = build_ledger(&without).unwrap();
-    for replacement in [
+    for bought_in in [
         shortfall(0.0, "95.00", 0.02, 0.0, "40.00", 0.01),
         shortfall(12_000.0, "0", 0.02, 2_000.0, "0", 0.0),
     ] {
         let mut inputs = without.clone();
-        inputs.replacement = replacement;
+        inputs.bought_in = bought_in;
         let ledger = build_ledger(&inputs).unwrap();
-        assert_eq!(ledger, reference, "{replacement:?}");
-        assert!(ledger.rows.iter().all(|r| r.replacement.is_zero()));
+        assert_eq!(ledger, reference, "{bought_in:?}");
+        assert!(ledger.rows.iter().all(|r| r.bought_in.is_zero()));
         let float = build_ledger(&inputs.to_f64()).unwrap();
         assert_eq!(float, build_ledger(&without.to_f64()).unwrap());
     }
@@ -184,21 +184,21 @@ fn zero_quantities_leave_the_ledger_unchanged() {
 /// shortfall raises the lifecycle cost by the stream's present value and
 /// leaves the levelized cost as it was (to the last digit of the division).
 #[test]
-fn levelized_cost_leaves_replacement_out() {
+fn levelized_cost_leaves_bought_in_out() {
     let mut without = busy_inputs();
-    without.replacement = Replacement::default();
+    without.bought_in = BoughtIn::default();
     let with = busy_inputs();
     let (a, b) = (
         summarize_ledger(&without).unwrap(),
         summarize_ledger(&with).unwrap(),
     );
-    assert!(b.present_value.replacement > Decimal::ZERO);
+    assert!(b.present_value.bought_in > Decimal::ZERO);
     let added = b.lifecycle_cost - a.lifecycle_cost;
-    let gap = (added - b.present_value.replacement).abs();
+    let gap = (added - b.present_value.bought_in).abs();
     assert!(
         gap < dec("0.000001"),
         "added {added} vs stream {}",
-        b.present_value.replacement
+        b.present_value.bought_in
     );
     let (lcoe_a, lcoe_b) = (
         a.levelized_cost_per_mwh().unwrap(),
@@ -212,18 +212,18 @@ fn levelized_cost_leaves_replacement_out() {
 
 /// Two candidates alike but for their shortfall: the one short of output
 /// saves nothing in operation and loses exactly the present value of its
-/// replacement, which counts as an operating cost (ASTM E1074 split).
+/// bought_in, which counts as an operating cost (ASTM E1074 split).
 #[test]
-fn replacement_is_an_operating_cost_in_savings() {
+fn bought_in_is_an_operating_cost_in_savings() {
     let mut full = busy_inputs();
-    full.replacement = Replacement::default();
+    full.bought_in = BoughtIn::default();
     let short = busy_inputs();
     let savings = compare_summaries(
         &summarize_ledger(&short).unwrap(),
         &summarize_ledger(&full).unwrap(),
     )
     .unwrap();
-    let stream = summarize_ledger(&short).unwrap().present_value.replacement;
+    let stream = summarize_ledger(&short).unwrap().present_value.bought_in;
     assert!((savings.net_savings + stream).abs() < dec("0.000001"));
     assert!((savings.operating_savings + stream).abs() < dec("0.000001"));
     assert_eq!(savings.added_investment, Decimal::ZERO);
@@ -233,15 +233,15 @@ fn replacement_is_an_operating_cost_in_savings() {
 /// shortfall lowers the lifecycle cost by exactly the present value of one
 /// kW of capacity value (same price, same escalation).
 #[test]
-fn capacity_value_per_kw_is_one_kw_of_replacement() {
+fn capacity_value_per_kw_is_one_kw_of_bought_in() {
     let inputs = busy_inputs();
     let capacity = CapacityValue {
-        per_kw_year: inputs.replacement.capacity_price.price,
-        escalation: inputs.replacement.capacity_price.escalation,
+        per_kw_year: inputs.bought_in.capacity_price.price,
+        escalation: inputs.bought_in.capacity_price.escalation,
     };
     let factors = bid_factors(&inputs, &capacity).unwrap();
     let mut less = inputs.clone();
-    less.replacement.capacity_kw -= 1.0;
+    less.bought_in.capacity_kw -= 1.0;
     let saved = summarize_ledger(&inputs).unwrap().lifecycle_cost
         - summarize_ledger(&less).unwrap().lifecycle_cost;
     assert!(
@@ -258,56 +258,56 @@ fn refusal(inputs: &LedgerInputs) -> String {
     decimal.to_string()
 }
 
-/// A way to spoil one replacement input.
-type Spoil = fn(&mut Replacement);
+/// A way to spoil one bought_in input.
+type Spoil = fn(&mut BoughtIn);
 
 #[test]
-fn bad_replacement_inputs_are_refused_by_name() {
+fn bad_bought_in_inputs_are_refused_by_name() {
     let cases: [(Spoil, &str, &str); 6] = [
         (
             |r| r.energy_mwh_per_year = -1.0,
-            "replacement.energy_mwh_per_year",
+            "bought_in.energy_mwh_per_year",
             "zero or more",
         ),
         (
             |r| r.energy_mwh_per_year = f64::NAN,
-            "replacement.energy_mwh_per_year",
+            "bought_in.energy_mwh_per_year",
             "finite",
         ),
         (
             |r| r.capacity_kw = f64::INFINITY,
-            "replacement.capacity_kw",
+            "bought_in.capacity_kw",
             "finite",
         ),
         (
             |r| r.energy_price.price = dec("-0.01"),
-            "replacement.energy_price.price",
+            "bought_in.energy_price.price",
             "zero or more",
         ),
         (
             |r| r.capacity_price.price = dec("-5"),
-            "replacement.capacity_price.price",
+            "bought_in.capacity_price.price",
             "zero or more",
         ),
         (
             |r| r.capacity_price.escalation = -1.0,
-            "replacement.capacity_price.escalation",
+            "bought_in.capacity_price.escalation",
             "greater than -1",
         ),
     ];
     for (spoil, field, valid) in cases {
         let mut inputs = busy_inputs();
-        spoil(&mut inputs.replacement);
+        spoil(&mut inputs.bought_in);
         let message = refusal(&inputs);
         assert!(message.contains(field), "{message:?} lacks {field}");
         assert!(message.contains(valid), "{message:?} lacks {valid}");
     }
     let mut inputs = busy_inputs();
-    inputs.replacement.energy_price.escalation = f64::NAN;
+    inputs.bought_in.energy_price.escalation = f64::NAN;
     assert!(matches!(
         build_ledger(&inputs),
         Err(FinanceError::OutOfRange {
-            field: "replacement.energy_price.escalation",
+            field: "bought_in.energy_price.escalation",
             ..
         })
     ));

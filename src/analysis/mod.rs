@@ -12,6 +12,7 @@ pub mod offdesign_grid;
 pub mod operation;
 pub mod sensitivity;
 pub mod site;
+pub mod vendor;
 pub mod warnings;
 
 pub use model::{build_model, ModelOptions};

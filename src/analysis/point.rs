@@ -26,7 +26,9 @@ use super::site::{fixed_machine_site, rated_site, SitePerformance};
 use crate::cycle::{self, EngineConfig, GasModel};
 use crate::finance::{compare_summaries, summarize_ledger, LedgerInputs, LedgerSummary};
 use crate::fuel::Fuel;
-use crate::scenario::{Candidate, ControlSpec, PartLoadPoint, RatingCondition, Scenario};
+use crate::scenario::{
+    AmbientCorrectionSpec, Candidate, ControlSpec, PartLoadPoint, RatingCondition, Scenario,
+};
 use rust_decimal::prelude::ToPrimitive;
 
 /// What one candidate's figures are at one point.
@@ -142,6 +144,7 @@ struct CachedCycle {
     control: ControlSpec,
     dispatch_loads: Vec<f64>,
     part_load: Vec<PartLoadPoint>,
+    ambient_correction: Vec<AmbientCorrectionSpec>,
     site: SitePerformance,
 }
 
@@ -163,7 +166,8 @@ impl CachedCycle {
             && self.gas == *gas
             && self.rating == candidate.rating
             && self.control == candidate.control
-            && self.part_load == scenario.operation.part_load
+            && self.part_load == candidate.part_load
+            && self.ambient_correction == candidate.ambient_correction
             && self.dispatch_loads.iter().copied().eq(scenario
                 .operation
                 .dispatch
@@ -316,7 +320,8 @@ impl<'s> PointModel<'s> {
                     .iter()
                     .map(|b| b.load_fraction)
                     .collect(),
-                part_load: scenario.operation.part_load.clone(),
+                part_load: candidate.part_load.clone(),
+                ambient_correction: candidate.ambient_correction.clone(),
                 site,
             });
         }

@@ -232,6 +232,16 @@ pub struct Candidate {
     pub rating: RatingCondition,
     /// Part-load control of the fixed machine (`[candidate.control]`).
     pub control: super::candidate_control::ControlSpec,
+    /// The vendor's part-load curve (`part_load`): heat rate over the
+    /// base-load heat rate against load, sorted by ascending load and ending
+    /// at load 1, ratio 1; empty when the bid states none (the machine's
+    /// physics price part load).
+    pub part_load: Vec<super::types::PartLoadPoint>,
+    /// The vendor's ambient-correction curve (`ambient_correction`), sorted
+    /// by ascending temperature and passing through the rating temperature
+    /// at ratios 1; empty when the bid states none (the machine's physics
+    /// price the site's ambient).
+    pub ambient_correction: Vec<super::candidate_curves::AmbientCorrectionSpec>,
     /// O&M, overhaul, degradation, residual value, construction schedule.
     pub costs: CandidateCosts,
     /// Performance guarantee with damages (`[candidate.guarantee]`, keys
@@ -724,6 +734,8 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         |c, v| set_figure(c, v, |d, v| d.firing_temperature_k = Some(v)),
     )
     .within(HOT_LOW, HOT_HIGH, "K", HOT_REASON),
-K::plain("control", Shape::Table, Presence::Optional { text: "guide vanes to 70 % airflow, 30 % minimum load" }, "how the fixed machine is held away from base load (`brayfin offdesign`)"),
+    K::plain("part_load", Shape::Array, Presence::Optional { text: "none: the fixed machine's own part-load physics" }, "the vendor's part-load curve, `[{ load = \"75 %\", heat_rate_ratio = 1.07 }, …]`: heat rate at that load ÷ base-load heat rate. Loads strictly ascending or descending; ratios from 1 to 3, not rising with load, exactly 1.0 at 100 % (added if absent). Prices this bid's part load (applied to its base-load heat rate at the site) and must reach down to the lowest dispatch load; `check` compares it with the calibrated machine"),
+    K::plain("ambient_correction", Shape::Array, Presence::Optional { text: "none: the fixed machine's own physics at the site" }, "the vendor's ambient correction at base load, `[{ temperature = \"35 degC\", output_ratio = 0.88, heat_rate_ratio = 1.04 }, …]`: output and heat rate at that compressor inlet temperature ÷ those at the rating (rating pressure and humidity). Temperatures strictly ascending or descending; ratios from 0.5 to 1.5, exactly 1.0 at the rating temperature (added if absent); output ratio not rising with temperature. Prices this bid's base load at the site temperature (linear between points; the site's pressure and humidity from physics); `check` compares it with the calibrated machine"),
+    K::plain("control", Shape::Table, Presence::Optional { text: "guide vanes to 70 % airflow, 30 % minimum load" }, "how the fixed machine is held away from base load (`brayfin offdesign`)"),
     K::plain("costs", Shape::Table, Presence::Optional { text: "all zero" }, "O&M, overhauls, degradation, residual value, construction schedule (below)"),
 ];

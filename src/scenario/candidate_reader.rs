@@ -8,6 +8,7 @@ use super::candidate::{
 };
 use super::candidate_control::{read_control, ControlSpec};
 use super::candidate_costs::read_costs;
+use super::candidate_curves::{read_ambient_correction, read_part_load};
 use super::candidate_guarantee::read_guarantee;
 use super::context::Context;
 use super::declare::{find, keys_in, Key};
@@ -235,11 +236,16 @@ fn read_candidate(ctx: &mut Context, node: &Node, index: usize, cod: NaiveDate) 
             datasheet: None,
         },
         control: ControlSpec::default(),
+        part_load: Vec::new(),
+        ambient_correction: Vec::new(),
         costs,
         guarantee,
     };
     read_rating(ctx, &r, &mut candidate)?;
     read_control(ctx, &r, &mut candidate)?;
+    candidate.part_load = read_part_load(ctx, &r)?;
+    candidate.ambient_correction =
+        read_ambient_correction(ctx, &r, candidate.rating.temperature_k)?;
     Ok(candidate)
 }
 

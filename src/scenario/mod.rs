@@ -8,6 +8,7 @@
 
 mod candidate;
 mod candidate_control;
+mod candidate_curves;
 mod candidate_costs;
 mod candidate_guarantee;
 mod candidate_reader;

@@ -49,11 +49,9 @@ pub(super) fn operation(dst: &mut Operation, src: &Operation) {
     let Operation {
         hours_per_year,
         dispatch,
-        part_load,
     } = src;
     dst.hours_per_year = *hours_per_year;
     dst.dispatch.clone_from(dispatch);
-    dst.part_load.clone_from(part_load);
 }
 
 fn costs(dst: &mut CandidateCosts, src: &CandidateCosts) {
@@ -103,6 +101,8 @@ pub(super) fn candidate(dst: &mut Candidate, src: &Candidate) {
         turbine_cooling,
         rating,
         control,
+        part_load,
+        ambient_correction,
         costs: src_costs,
         guarantee,
     } = src;
@@ -129,6 +129,8 @@ pub(super) fn candidate(dst: &mut Candidate, src: &Candidate) {
     dst.turbine_cooling = *turbine_cooling;
     dst.rating = *rating;
     dst.control = *control;
+    dst.part_load.clone_from(part_load);
+    dst.ambient_correction.clone_from(ambient_correction);
     costs(&mut dst.costs, src_costs);
     dst.guarantee = *guarantee;
 }

@@ -578,6 +578,7 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
     let mut warnings = engineering_warnings(scenario);
     warnings.extend(cycle_warnings(loaded, &study));
     warnings.extend(implied.iter().filter_map(verdict_warning));
+    warnings.extend(super::implied::curve_warnings(scenario, &study.fuel));
     let e = &scenario.economics;
     let mut gas_models: Vec<String> = candidates.iter().map(|c| c.gas_model.clone()).collect();
     gas_models.dedup();
@@ -617,7 +618,17 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
             })
             .collect(),
         warnings,
-        information: information_notes(scenario),
+        information: {
+            // What priced each bid (vendor curves or its machine).
+            let sites: Vec<_> = study
+                .outcomes
+                .iter()
+                .map(|o| o.solved.site.clone())
+                .collect();
+            let mut notes = information_notes(scenario);
+            notes.extend(super::site::pricing_notes(scenario, &sites));
+            notes
+        },
         method: MethodView {
             gas_models,
             rate_basis: match e.rate_basis {

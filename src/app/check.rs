@@ -19,6 +19,10 @@ pub fn run(args: &CheckArgs) -> Result<()> {
     information.extend(crate::analysis::implied::unassessed_notes(&loaded.scenario));
     let implied = crate::analysis::implied::implied_bids(&loaded, &study.fuel)?;
     let mut extra = extra;
+    extra.extend(crate::analysis::implied::curve_warnings(
+        &loaded.scenario,
+        &study.fuel,
+    ));
     for bid in &implied {
         extra.extend(crate::analysis::implied::verdict_warning(bid));
     }

@@ -12,7 +12,7 @@
 
 use assert_cmd::Command;
 use brayfin::analysis::compare::run_study;
-use brayfin::analysis::operation::annual_operation;
+use brayfin::analysis::operation::annual_operation_with_ratios;
 use brayfin::analysis::site::Basis;
 use brayfin::scenario::parse;
 use serde_json::Value;
@@ -138,7 +138,8 @@ fn elevation_cuts_output_in_proportion_to_pressure() {
 /// from memory; the demo's bids take the default rating) reproduces the
 /// rated pricing: output = rated net output and heat rate = the design
 /// solve's, each to 1e-6, and the year's fuel the same as pricing the
-/// rated figures with the scenario's part-load table.
+/// rated figures with each bid's part-load ratios (its vendor's curve where
+/// it states one).
 #[test]
 fn the_rating_condition_reproduces_rated_pricing() {
     let text = demo_at("ambient_temperature = \"15 degC\"\nelevation = \"0 m\"");
@@ -162,7 +163,27 @@ fn the_rating_condition_reproduces_rated_pricing() {
             candidate.id,
             site.heat_rate_kj_per_kwh
         );
-        let rated_year = annual_operation(&scenario.operation, candidate.net_output_kw, rated_hr);
+        // The demo's dispatch is 100 %, 80 %, 60 %: Bid A's and Bid C's
+        // vendor curves state those loads (1.045, 1.12; 1.015, 1.05 in the
+        // file), Bid B's machine gives its own.
+        let ratios = match candidate.id.as_str() {
+            "standard" => vec![1.0, 1.045, 1.12],
+            "regenerated" => vec![1.0, 1.015, 1.05],
+            _ => site.block_ratios.clone(),
+        };
+        for (got, want) in site.block_ratios.iter().zip(&ratios) {
+            assert!(
+                (got - want).abs() < 1e-12,
+                "{}: {got} vs {want}",
+                candidate.id
+            );
+        }
+        let rated_year = annual_operation_with_ratios(
+            &scenario.operation,
+            candidate.net_output_kw,
+            rated_hr,
+            &ratios,
+        );
         let year = &outcome.solved.year;
         assert!((year.energy_mwh / rated_year.energy_mwh - 1.0).abs() < 1e-6);
         assert!((year.fuel_energy_gj_lhv / rated_year.fuel_energy_gj_lhv - 1.0).abs() < 1e-6);
@@ -182,6 +203,20 @@ fn without_vendor_curves(text: &str) -> String {
         }
         if skipping {
             skipping = !t.starts_with(']');
+            continue;
+        }
+        if t.starts_with("sources = {") {
+            // Drop the curves' own sources with them: `, key = "…"`.
+            let mut kept = line.to_string();
+            for key in [", part_load = \"", ", ambient_correction = \""] {
+                if let Some(start) = kept.find(key) {
+                    let value = start + key.len();
+                    let end = value + kept[value..].find('"').expect("a closing quote") + 1;
+                    kept.replace_range(start..end, "");
+                }
+            }
+            out.push_str(&kept);
+            out.push('\n');
             continue;
         }
         out.push_str(line);

@@ -233,8 +233,16 @@ fn a_bids_ambient_correction_is_sorted_with_the_rating_point_added() {
     let curve = &loaded.scenario.candidates[0].ambient_correction;
     let t: Vec<f64> = curve.iter().map(|p| p.temperature_k).collect();
     assert_eq!(t.len(), 3);
-    assert!((t[0] - 268.15).abs() < 1e-9 && (t[1] - 288.15).abs() < 1e-9 && (t[2] - 308.15).abs() < 1e-9, "{t:?}");
-    assert_eq!((curve[1].output_ratio, curve[1].heat_rate_ratio), (1.0, 1.0));
+    assert!(
+        (t[0] - 268.15).abs() < 1e-9
+            && (t[1] - 288.15).abs() < 1e-9
+            && (t[2] - 308.15).abs() < 1e-9,
+        "{t:?}"
+    );
+    assert_eq!(
+        (curve[1].output_ratio, curve[1].heat_rate_ratio),
+        (1.0, 1.0)
+    );
 }
 
 #[test]

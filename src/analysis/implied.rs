@@ -262,11 +262,9 @@ pub fn curve_warnings(scenario: &crate::scenario::Scenario, fuel: &Fuel) -> Vec<
         ];
         for outcome in checks {
             match outcome {
-                Ok(deviations) => warnings.extend(
-                    deviations
-                        .iter()
-                        .map(|d| curve_warning(&candidate.id, d)),
-                ),
+                Ok(deviations) => {
+                    warnings.extend(deviations.iter().map(|d| curve_warning(&candidate.id, d)))
+                }
                 Err(e) => warnings.push(format!(
                     "candidate[{}]: a vendor curve point cannot be checked against its \
                      calibrated machine: {e}",

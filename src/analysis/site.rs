@@ -141,13 +141,9 @@ pub fn fixed_machine_site(
         Err(e) => return Err(located(e, None)),
     };
     let ambient = site_ambient(candidate, &scenario.site);
-    let priced = super::vendor::site_pricing(
-        candidate,
-        &machine,
-        ambient,
-        &scenario.operation.dispatch,
-    )
-    .map_err(|(e, load)| located(e, load))?;
+    let priced =
+        super::vendor::site_pricing(candidate, &machine, ambient, &scenario.operation.dispatch)
+            .map_err(|(e, load)| located(e, load))?;
     Ok(Ok(SitePerformance {
         net_output_kw: priced.base.net_output_kw,
         heat_rate_kj_per_kwh: priced.base.heat_rate_kj_per_kwh,

@@ -107,7 +107,12 @@ pub fn part_load_source(candidate: &Candidate) -> Source {
 
 /// A value of a sorted curve at `x`, linear between the two points around
 /// it; `None` beyond the curve's ends (or for an empty curve).
-pub fn interpolate<P>(points: &[P], x: f64, at: impl Fn(&P) -> f64, value: impl Fn(&P) -> f64) -> Option<f64> {
+pub fn interpolate<P>(
+    points: &[P],
+    x: f64,
+    at: impl Fn(&P) -> f64,
+    value: impl Fn(&P) -> f64,
+) -> Option<f64> {
     let (first, last) = (points.first()?, points.last()?);
     if x < at(first) || x > at(last) {
         return None;
@@ -133,7 +138,12 @@ pub fn curve_part_load_ratio(part_load: &[PartLoadPoint], load_fraction: f64) ->
     if load_fraction >= 1.0 || part_load.is_empty() {
         return Some(1.0);
     }
-    interpolate(part_load, load_fraction, |p| p.load_fraction, |p| p.heat_rate_ratio)
+    interpolate(
+        part_load,
+        load_fraction,
+        |p| p.load_fraction,
+        |p| p.heat_rate_ratio,
+    )
 }
 
 /// The vendor's (output, heat-rate) ratios at `temperature_k`; `None`
@@ -258,9 +268,7 @@ pub fn site_pricing(
     ambient: Ambient,
     dispatch: &[DispatchBlock],
 ) -> Result<SitePricing, (OffDesignError, Option<f64>)> {
-    let machine_base = machine
-        .solve(ambient, Load::BASE)
-        .map_err(|e| (e, None))?;
+    let machine_base = machine.solve(ambient, Load::BASE).map_err(|e| (e, None))?;
     let figures = |p: &OffDesignPoint| Figures {
         net_output_kw: p.net_output_kw,
         heat_rate_kj_per_kwh: p.heat_rate_kj_per_kwh,
@@ -293,7 +301,10 @@ pub fn site_pricing(
 /// fixed machine (intercooled, reheat). The loader refuses dispatch loads
 /// below the curve, so a load it does not cover counts as its lowest point.
 pub fn curve_block_ratios(candidate: &Candidate, dispatch: &[DispatchBlock]) -> Vec<f64> {
-    let lowest = candidate.part_load.first().map_or(1.0, |p| p.heat_rate_ratio);
+    let lowest = candidate
+        .part_load
+        .first()
+        .map_or(1.0, |p| p.heat_rate_ratio);
     dispatch
         .iter()
         .map(|b| curve_part_load_ratio(&candidate.part_load, b.load_fraction).unwrap_or(lowest))
@@ -306,7 +317,11 @@ pub fn curve_block_ratios(candidate: &Candidate, dispatch: &[DispatchBlock]) -> 
 /// says whether candidate `i` is priced as a fixed machine (a candidate
 /// kept at its rating has its own note in `analysis::site`).
 pub fn pricing_notes(scenario: &Scenario, fixed_machine: &[bool]) -> Vec<String> {
-    let has_part_load = scenario.operation.dispatch.iter().any(|b| b.load_fraction < 1.0);
+    let has_part_load = scenario
+        .operation
+        .dispatch
+        .iter()
+        .any(|b| b.load_fraction < 1.0);
     let mut notes = Vec::new();
     for (candidate, &machine) in scenario.candidates.iter().zip(fixed_machine) {
         let base = match (machine, ambient_source(candidate)) {

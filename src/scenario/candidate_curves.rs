@@ -136,7 +136,10 @@ pub(crate) fn read_ambient_correction(
         if !(AMBIENT_T_K.0..=AMBIENT_T_K.1).contains(&t) {
             return Err(ctx.error_for(
                 &field("temperature"),
-                format!("{t} K is outside {} K to {} K", AMBIENT_T_K.0, AMBIENT_T_K.1),
+                format!(
+                    "{t} K is outside {} K to {} K",
+                    AMBIENT_T_K.0, AMBIENT_T_K.1
+                ),
                 format!("expected an ambient temperature: {AMBIENT_T_REASON}"),
             ));
         }
@@ -236,12 +239,7 @@ fn sort_ascending(
 /// Read an array of small inline tables with the keys `keys`, all required,
 /// as numbers in the internal unit (the first a load fraction or a
 /// temperature, the rest positive ratios).
-fn read_rows(
-    ctx: &mut Context,
-    r: &TableReader,
-    key: &str,
-    keys: &[&str],
-) -> Read<Vec<Vec<f64>>> {
+fn read_rows(ctx: &mut Context, r: &TableReader, key: &str, keys: &[&str]) -> Read<Vec<Vec<f64>>> {
     let Some(node) = r.node(ctx, key) else {
         return Ok(Vec::new());
     };

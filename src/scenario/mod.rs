@@ -8,8 +8,8 @@
 
 mod candidate;
 mod candidate_control;
-mod candidate_curves;
 mod candidate_costs;
+mod candidate_curves;
 mod candidate_guarantee;
 mod candidate_reader;
 mod context;

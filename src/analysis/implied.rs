@@ -145,7 +145,12 @@ pub fn implied_bids(loaded: &LoadedScenario, fuel: &Fuel) -> crate::Result<Vec<I
             continue;
         }
         let located = |e: DatasheetError| datasheet_error(loaded, candidate, &e);
-        let components = stated_components(loaded, candidate, fuel).map_err(located)?;
+        // A candidate fitted to its datasheet states no components: its
+        // fit is not checked against itself.
+        let components = match candidate.fitted {
+            Some(_) => ComponentData::default(),
+            None => stated_components(loaded, candidate, fuel).map_err(located)?,
+        };
         let assessment = assess(&datasheet, &components, &options_of(candidate, &components))
             .map_err(located)?;
         bids.push(ImpliedBid {
@@ -293,4 +298,39 @@ fn curve_warning(candidate_id: &str, d: &CurveDeviation) -> String {
         d.physics,
         (d.vendor - d.physics).abs(),
     )
+}
+
+/// Information lines for each candidate that states no components: its
+/// machine (what prices it) is the one fitted to its datasheet when the
+/// file was read; the fitted values and every assumption of the fit.
+pub fn fitted_notes(scenario: &crate::scenario::Scenario) -> Vec<String> {
+    scenario
+        .candidates
+        .iter()
+        .filter_map(|c| {
+            let fit = c.fitted.as_ref()?;
+            Some(format!(
+                "candidate[{}]: states no components; its machine is fitted to its datasheet \
+                 (fitted: {}): pressure ratio {:.2}, firing temperature {:.1} K, polytropic \
+                 efficiencies {:.4} (compressor) and {:.4} (turbine), turbine cooling {:.1} % of \
+                 compressor air, mechanical and generator efficiency {:.4} each, no auxiliary \
+                 load, air flow {:.2} kg/s, pressure losses {:.1} % inlet, {:.1} % exhaust, {:.1} % \
+                 combustor, combustion efficiency {:.3}; assumptions: {}",
+                c.id,
+                fit.fitted.join(", "),
+                c.pressure_ratio,
+                c.turbine_inlet_temperature_k,
+                c.compressor_efficiency,
+                c.turbine_efficiency,
+                c.turbine_cooling * 100.0,
+                c.mechanical_efficiency,
+                fit.air_flow_kg_per_s,
+                c.inlet_pressure_loss * 100.0,
+                c.exhaust_pressure_loss * 100.0,
+                c.combustor_pressure_loss * 100.0,
+                c.combustion_efficiency,
+                fit.assumptions.join("; ")
+            ))
+        })
+        .collect()
 }

@@ -627,6 +627,7 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
                 .collect();
             let mut notes = information_notes(scenario);
             notes.extend(super::site::pricing_notes(scenario, &sites));
+            notes.extend(super::implied::fitted_notes(scenario));
             notes
         },
         method: MethodView {

@@ -2,6 +2,7 @@
 //! declaration of every candidate key except those of `costs` (see
 //! `candidate_costs.rs`). The reader is `candidate_reader.rs`.
 
+use super::candidate_fit::refuse_fitted;
 use super::declare::{money_from_f64, money_to_f64, Key, Presence, SetResult, Shape};
 use super::ranges::{
     Range, AMBIENT_P_KPA, AMBIENT_P_REASON, AMBIENT_T_K, AMBIENT_T_REASON, AMOUNT_HIGH,
@@ -137,6 +138,7 @@ impl RatingFigures {
 /// no datasheet (a `--vary` or `[[uncertainty]]` of a figure the file does
 /// not give).
 fn set_figure(c: &mut Candidate, v: f64, set: impl FnOnce(&mut RatingFigures, f64)) -> SetResult {
+    refuse_fitted(c, "machine (fitted to these figures)")?;
     match c.rating.datasheet.as_mut() {
         Some(d) => {
             set(d, v);
@@ -242,6 +244,10 @@ pub struct Candidate {
     /// at ratios 1; empty when the bid states none (the machine's physics
     /// price the site's ambient).
     pub ambient_correction: Vec<super::candidate_curves::AmbientCorrectionSpec>,
+    /// Set when the bid states no components: its machine is fitted to its
+    /// datasheet when the file is read (`candidate_fit.rs`), and this holds
+    /// what was fitted and the fit's assumptions.
+    pub fitted: Option<super::candidate_fit::FittedMachine>,
     /// O&M, overhaul, degradation, residual value, construction schedule.
     pub costs: CandidateCosts,
     /// Performance guarantee with damages (`[candidate.guarantee]`, keys
@@ -356,6 +362,7 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         "overall compressor pressure ratio",
         |c| Some(c.pressure_ratio),
         |c, v| {
+            refuse_fitted(c, "pressure ratio")?;
             c.pressure_ratio = v;
             Ok(())
         },
@@ -369,6 +376,7 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         "combustor exit temperature; above ambient",
         |c| Some(c.turbine_inlet_temperature_k),
         |c, v| {
+            refuse_fitted(c, "firing temperature")?;
             c.turbine_inlet_temperature_k = v;
             Ok(())
         },
@@ -382,6 +390,7 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         "compressor efficiency on `efficiency_basis`",
         |c| Some(c.compressor_efficiency),
         |c, v| {
+            refuse_fitted(c, "compressor efficiency")?;
             c.compressor_efficiency = v;
             Ok(())
         },
@@ -395,6 +404,7 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         "turbine efficiency on `efficiency_basis`",
         |c| Some(c.turbine_efficiency),
         |c, v| {
+            refuse_fitted(c, "turbine efficiency")?;
             c.turbine_efficiency = v;
             Ok(())
         },
@@ -461,6 +471,7 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         "efficiency of the shaft train (bearings, gearbox)",
         |c| Some(c.mechanical_efficiency),
         |c, v| {
+            refuse_fitted(c, "mechanical efficiency")?;
             c.mechanical_efficiency = v;
             Ok(())
         },
@@ -474,6 +485,7 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         "generator efficiency",
         |c| Some(c.generator_efficiency),
         |c, v| {
+            refuse_fitted(c, "generator efficiency")?;
             c.generator_efficiency = v;
             Ok(())
         },
@@ -487,6 +499,7 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         "auxiliary load, fraction of gross electrical output",
         |c| Some(c.auxiliary_load_fraction),
         |c, v| {
+            refuse_fitted(c, "auxiliary load")?;
             c.auxiliary_load_fraction = v;
             Ok(())
         },
@@ -500,6 +513,7 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         "fraction of compressor delivery air that bypasses the combustor and mixes in ahead of the turbine rotor (firing temperature = combustor exit)",
         |c| Some(c.turbine_cooling),
         |c, v| {
+            refuse_fitted(c, "turbine cooling")?;
             c.turbine_cooling = v;
             Ok(())
         },

@@ -103,6 +103,7 @@ pub(super) fn candidate(dst: &mut Candidate, src: &Candidate) {
         control,
         part_load,
         ambient_correction,
+        fitted,
         costs: src_costs,
         guarantee,
     } = src;
@@ -131,6 +132,7 @@ pub(super) fn candidate(dst: &mut Candidate, src: &Candidate) {
     dst.control = *control;
     dst.part_load.clone_from(part_load);
     dst.ambient_correction.clone_from(ambient_correction);
+    dst.fitted.clone_from(fitted);
     costs(&mut dst.costs, src_costs);
     dst.guarantee = *guarantee;
 }

@@ -241,8 +241,8 @@ fn without_vendor_curves_each_machine_prices_its_own_part_load() {
     assert!(ratios[2] < ratios[0] && ratios[2] < ratios[1], "{ratios:?}");
 }
 
-/// `check` says which source priced each bid: Bid A states both curves,
-/// Bid B none, Bid C a part-load curve only.
+/// `check` says which source priced each bid: Bid A states a part-load
+/// curve, Bid B none, Bid C both curves.
 #[test]
 fn check_says_what_priced_each_bid() {
     let assert = Command::cargo_bin("brayfin")
@@ -252,12 +252,12 @@ fn check_says_what_priced_each_bid() {
         .success();
     let out = String::from_utf8_lossy(&assert.get_output().stdout).to_string();
     for line in [
-        "candidate[standard]: priced with base load at the site from the vendor's \
-         ambient_correction (the site's pressure and humidity from its calibrated machine); \
+        "candidate[standard]: priced with base load at the site from its calibrated machine; \
          part load from the vendor's part_load curve",
         "candidate[premium]: priced with base load at the site from its calibrated machine; \
          part load from its calibrated machine",
-        "candidate[regenerated]: priced with base load at the site from its calibrated machine; \
+        "candidate[regenerated]: priced with base load at the site from the vendor's \
+         ambient_correction (the site's pressure and humidity from its calibrated machine); \
          part load from the vendor's part_load curve",
     ] {
         assert!(out.contains(line), "{line}\n{out}");

@@ -177,14 +177,14 @@ fn with_one_curve_the_other_factor_is_the_machines() {
     assert_eq!(point.part_load_source, Source::Vendor);
 }
 
-/// The demo's Bid A at a 35 °C sea-level site (101.325 kPa by ISO 2533,
+/// The demo's Bid C at a 35 °C sea-level site (101.325 kPa by ISO 2533,
 /// 60 % humidity: the rating's pressure and humidity) is priced by its
-/// vendor's curves: base output 50 000 × 0.842 = 42 100 kW exactly, heat
-/// rate HR_r × 1.051 with HR_r its machine's heat rate at the rating, and
+/// vendor's curves: base output 50 000 × 0.844 = 42 200 kW exactly, heat
+/// rate HR_r × 1.065 with HR_r its machine's heat rate at the rating, and
 /// each dispatch block on its part-load curve. Worked by hand for the
-/// 80 % block (1 100 h): 0.8 × 42 100 kW × 1 100 h = 37 048 000 kWh, ×
-/// HR_r × 1.051 × 1.045 kJ/kWh; the year adds 1 800 h at 100 % and 600 h
-/// at 60 % (ratio 1.12) the same way.
+/// 80 % block (1 100 h): 0.8 × 42 200 kW × 1 100 h = 37 136 000 kWh, ×
+/// HR_r × 1.065 × 1.015 kJ/kWh; the year adds 1 800 h at 100 % and 600 h
+/// at 60 % (ratio 1.05) the same way.
 #[test]
 fn a_bid_with_curves_is_priced_by_them() {
     let text = demo_text().replacen(
@@ -194,23 +194,23 @@ fn a_bid_with_curves_is_priced_by_them() {
     );
     let loaded = parse(&text, "hot.toml").expect("the hot demo loads");
     let study = run_study(&loaded).expect("the study runs");
-    let a = &study.outcomes[0].solved;
-    let hr_r = a.site.rated_heat_rate_kj_per_kwh;
-    close(a.site.net_output_kw, 42_100.0, "base output");
-    close(a.site.heat_rate_kj_per_kwh, hr_r * 1.051, "base heat rate");
-    let hr = hr_r * 1.051;
-    let block_80_gj = 0.8 * 42_100.0 * 1_100.0 * hr * 1.045 / 1e6;
+    let c = &study.outcomes[2].solved;
+    let hr_r = c.site.rated_heat_rate_kj_per_kwh;
+    close(c.site.net_output_kw, 42_200.0, "base output");
+    close(c.site.heat_rate_kj_per_kwh, hr_r * 1.065, "base heat rate");
+    let hr = hr_r * 1.065;
+    let block_80_gj = 0.8 * 42_200.0 * 1_100.0 * hr * 1.015 / 1e6;
     close(
         block_80_gj,
-        37_048_000.0 * hr * 1.045 / 1e6,
+        37_136_000.0 * hr * 1.015 / 1e6,
         "the 80 % block",
     );
     let year_gj =
-        (42_100.0 * 1_800.0 * hr) / 1e6 + block_80_gj + (0.6 * 42_100.0 * 600.0 * hr * 1.12) / 1e6;
+        (42_200.0 * 1_800.0 * hr) / 1e6 + block_80_gj + (0.6 * 42_200.0 * 600.0 * hr * 1.05) / 1e6;
     assert!(
-        (a.year.fuel_energy_gj_lhv / year_gj - 1.0).abs() < 1e-9,
+        (c.year.fuel_energy_gj_lhv / year_gj - 1.0).abs() < 1e-9,
         "{} GJ vs {year_gj} GJ by hand",
-        a.year.fuel_energy_gj_lhv
+        c.year.fuel_energy_gj_lhv
     );
     // Bid B states no curves: its machine prices it (below the rated
     // output on a hot day, by physics rather than a stated ratio).

@@ -272,6 +272,13 @@ fn cold_air(c: &mut Candidate) -> Result<(&mut f64, &mut f64), String> {
     }
 }
 
+/// A component value as a key path sees it: `None` on a candidate fitted
+/// to its datasheet (the fit set it; `candidate.<key>` for every candidate
+/// then passes over that one, as it does a candidate without the part).
+fn stated(c: &Candidate, value: f64) -> Option<f64> {
+    c.fitted.is_none().then_some(value)
+}
+
 /// Efficiencies of turbomachines: below this no gas turbine makes net work.
 const MACHINE_EFFICIENCY_LOW: f64 = 0.3;
 const MACHINE_EFFICIENCY_REASON: &str =
@@ -360,7 +367,7 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         Range::AboveOne,
         Presence::Required { example: "18" },
         "overall compressor pressure ratio",
-        |c| Some(c.pressure_ratio),
+        |c| stated(c, c.pressure_ratio),
         |c, v| {
             refuse_fitted(c, "pressure ratio")?;
             c.pressure_ratio = v;
@@ -374,7 +381,7 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         Range::Positive,
         Presence::Required { example: "\"1450 K\"" },
         "combustor exit temperature; above ambient",
-        |c| Some(c.turbine_inlet_temperature_k),
+        |c| stated(c, c.turbine_inlet_temperature_k),
         |c, v| {
             refuse_fitted(c, "firing temperature")?;
             c.turbine_inlet_temperature_k = v;
@@ -388,7 +395,7 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         Range::Efficiency,
         Presence::Required { example: "\"88 %\"" },
         "compressor efficiency on `efficiency_basis`",
-        |c| Some(c.compressor_efficiency),
+        |c| stated(c, c.compressor_efficiency),
         |c, v| {
             refuse_fitted(c, "compressor efficiency")?;
             c.compressor_efficiency = v;
@@ -402,7 +409,7 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         Range::Efficiency,
         Presence::Required { example: "\"90 %\"" },
         "turbine efficiency on `efficiency_basis`",
-        |c| Some(c.turbine_efficiency),
+        |c| stated(c, c.turbine_efficiency),
         |c, v| {
             refuse_fitted(c, "turbine efficiency")?;
             c.turbine_efficiency = v;
@@ -469,7 +476,7 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         Range::Efficiency,
         Presence::Default { text: "100 %", value: 1.0 },
         "efficiency of the shaft train (bearings, gearbox)",
-        |c| Some(c.mechanical_efficiency),
+        |c| stated(c, c.mechanical_efficiency),
         |c, v| {
             refuse_fitted(c, "mechanical efficiency")?;
             c.mechanical_efficiency = v;
@@ -483,7 +490,7 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         Range::Efficiency,
         Presence::Default { text: "100 %", value: 1.0 },
         "generator efficiency",
-        |c| Some(c.generator_efficiency),
+        |c| stated(c, c.generator_efficiency),
         |c, v| {
             refuse_fitted(c, "generator efficiency")?;
             c.generator_efficiency = v;
@@ -497,7 +504,7 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         Range::Loss,
         Presence::Default { text: "0 %", value: 0.0 },
         "auxiliary load, fraction of gross electrical output",
-        |c| Some(c.auxiliary_load_fraction),
+        |c| stated(c, c.auxiliary_load_fraction),
         |c, v| {
             refuse_fitted(c, "auxiliary load")?;
             c.auxiliary_load_fraction = v;
@@ -511,7 +518,7 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         Range::Loss,
         Presence::Default { text: "0 %", value: 0.0 },
         "fraction of compressor delivery air that bypasses the combustor and mixes in ahead of the turbine rotor (firing temperature = combustor exit)",
-        |c| Some(c.turbine_cooling),
+        |c| stated(c, c.turbine_cooling),
         |c, v| {
             refuse_fitted(c, "turbine cooling")?;
             c.turbine_cooling = v;

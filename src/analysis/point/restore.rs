@@ -153,7 +153,7 @@ mod tests {
             ("fuel.price", 9.0),
             ("operation.hours_per_year", 1234.0),
             ("site.ambient_temperature", 300.0),
-            ("candidate.turbine_efficiency", 0.8),
+            ("candidate[premium].turbine_efficiency", 0.8),
             ("candidate.costs.fixed_om", 20.0),
         ] {
             assert!(changed.set_numeric(key, value).is_ok(), "{key}");

@@ -292,3 +292,40 @@ fn a_curve_point_off_the_machine_is_a_warning_naming_the_point() {
     let shipped = String::from_utf8_lossy(&shipped.stdout);
     assert!(!shipped.contains("cross-check threshold"), "{shipped}");
 }
+
+/// The report says how each bid is priced, in the appendix after "What
+/// each bid implies": Bid C's curves and its machine fitted to its
+/// datasheet, with the fit's values.
+#[test]
+fn the_report_says_how_each_bid_is_priced() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let pdf = dir.path().join("r.pdf");
+    Command::cargo_bin("brayfin")
+        .expect("binary builds")
+        .args([
+            "report",
+            DEMO,
+            "-o",
+            pdf.to_str().expect("utf-8"),
+            "--samples",
+            "0",
+        ])
+        .assert()
+        .success();
+    let doc = lopdf::Document::load(&pdf).expect("a PDF");
+    let pages: Vec<u32> = doc.get_pages().keys().copied().collect();
+    let text = doc
+        .extract_text(&pages)
+        .expect("text")
+        .replace('\u{a0}', " ")
+        .split_whitespace()
+        .collect::<Vec<_>>()
+        .join(" ");
+    for want in [
+        "How each bid is priced",
+        "candidate[regenerated]: priced with base load at the site from the vendor's ambient_correction",
+        "candidate[regenerated]: states no components; its machine is fitted to its datasheet",
+    ] {
+        assert!(text.contains(want), "{want}");
+    }
+}

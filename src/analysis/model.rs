@@ -579,6 +579,14 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
     warnings.extend(cycle_warnings(loaded, &study));
     warnings.extend(implied.iter().filter_map(verdict_warning));
     warnings.extend(super::implied::curve_warnings(scenario, &study.fuel));
+    // What priced each bid (vendor curves or its machine; a fitted one).
+    let sites: Vec<_> = study
+        .outcomes
+        .iter()
+        .map(|o| o.solved.site.clone())
+        .collect();
+    let mut pricing = super::site::pricing_notes(scenario, &sites);
+    pricing.extend(super::implied::fitted_notes(scenario));
     let e = &scenario.economics;
     let mut gas_models: Vec<String> = candidates.iter().map(|c| c.gas_model.clone()).collect();
     gas_models.dedup();
@@ -618,18 +626,11 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
             })
             .collect(),
         warnings,
-        information: {
-            // What priced each bid (vendor curves or its machine).
-            let sites: Vec<_> = study
-                .outcomes
-                .iter()
-                .map(|o| o.solved.site.clone())
-                .collect();
-            let mut notes = information_notes(scenario);
-            notes.extend(super::site::pricing_notes(scenario, &sites));
-            notes.extend(super::implied::fitted_notes(scenario));
-            notes
-        },
+        information: information_notes(scenario)
+            .into_iter()
+            .chain(pricing.iter().cloned())
+            .collect(),
+        pricing,
         method: MethodView {
             gas_models,
             rate_basis: match e.rate_basis {

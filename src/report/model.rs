@@ -40,8 +40,14 @@ pub struct Model {
     /// Warnings an engineer would want to see (from `check`).
     pub warnings: Vec<String>,
     /// Information that is not a warning: routine conversions brayfin
-    /// made (e.g. pricing LHV fuel energy per unit of HHV).
+    /// made (e.g. pricing LHV fuel energy per unit of HHV), and the
+    /// [`Model::pricing`] lines.
     pub information: Vec<String>,
+    /// How each bid is priced: from its vendor's curves or its machine's
+    /// physics, and for a bid that states no components the machine fitted
+    /// to its datasheet with the fit's values and assumptions (one line
+    /// each; also in `information`).
+    pub pricing: Vec<String>,
     /// How the numbers were made.
     pub method: MethodView,
     /// Break-even premium of each non-baseline candidate against fuel price.

@@ -203,4 +203,5 @@ labels! {
     implied_air_flow,
     implied_remainder,
     implied_assumptions,
+    pricing,
 }

@@ -241,8 +241,8 @@ fn without_vendor_curves_each_machine_prices_its_own_part_load() {
     assert!(ratios[2] < ratios[0] && ratios[2] < ratios[1], "{ratios:?}");
 }
 
-/// `check` says which source priced each bid: Bid A states a part-load
-/// curve, Bid B none, Bid C both curves.
+/// `check` says which source priced each bid: Bids A and B state a
+/// part-load curve, Bid C both curves.
 #[test]
 fn check_says_what_priced_each_bid() {
     let assert = Command::cargo_bin("brayfin")
@@ -255,7 +255,7 @@ fn check_says_what_priced_each_bid() {
         "candidate[standard]: priced with base load at the site from its calibrated machine; \
          part load from the vendor's part_load curve",
         "candidate[premium]: priced with base load at the site from its calibrated machine; \
-         part load from its calibrated machine",
+         part load from the vendor's part_load curve",
         "candidate[regenerated]: priced with base load at the site from the vendor's \
          ambient_correction (the site's pressure and humidity from its calibrated machine); \
          part load from the vendor's part_load curve",

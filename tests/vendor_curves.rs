@@ -212,8 +212,8 @@ fn a_bid_with_curves_is_priced_by_them() {
         "{} GJ vs {year_gj} GJ by hand",
         c.year.fuel_energy_gj_lhv
     );
-    // Bid B states no curves: its machine prices it (below the rated
-    // output on a hot day, by physics rather than a stated ratio).
+    // Bid B states no ambient correction: its machine prices its base
+    // load (below the rated output on a hot day, by physics).
     let b = &study.outcomes[1].solved;
     assert!(b.site.net_output_kw < 50_000.0 * 0.9);
 }
@@ -328,4 +328,19 @@ fn the_report_says_how_each_bid_is_priced() {
     ] {
         assert!(text.contains(want), "{want}");
     }
+}
+
+/// A bid's ambient correction is relative to its rating temperature, so a
+/// key path that moves that temperature is refused for a bid with one
+/// (Bid C) and allowed for a bid without (Bid B).
+#[test]
+fn the_rating_temperature_of_a_bid_with_an_ambient_curve_is_not_varied() {
+    let mut s = parse(&demo_text(), "demo.toml").expect("loads").scenario;
+    let e = s
+        .set_numeric("candidate[regenerated].rating.temperature", 298.15)
+        .expect_err("refused")
+        .to_string();
+    assert!(e.contains("ambient_correction is stated relative"), "{e}");
+    s.set_numeric("candidate[premium].rating.temperature", 298.15)
+        .expect("allowed without a curve");
 }

@@ -674,6 +674,13 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         "compressor inlet air temperature of the rating",
         |c| Some(c.rating.temperature_k),
         |c, v| {
+            if !c.ambient_correction.is_empty() {
+                return Err(
+                    "this candidate's ambient_correction is stated relative to its rating \
+                     temperature (ratio 1 there); vary the site's temperature instead"
+                        .into(),
+                );
+            }
             c.rating.temperature_k = v;
             Ok(())
         },

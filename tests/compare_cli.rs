@@ -168,7 +168,7 @@ fn full_load_fuel_energy_is_output_times_hours_times_heat_rate() {
     let mut skipping = false;
     for line in text.lines() {
         let t = line.trim_start();
-        if t.starts_with("dispatch = [") || t.starts_with("part_load = [") {
+        if t.starts_with("dispatch = [") {
             skipping = true;
             continue;
         }

@@ -141,8 +141,7 @@ fn the_smaller_bid_buys_its_shortfall_every_year() {
 #[test]
 fn the_energy_shortfall_follows_the_dispatch_profile() {
     let operation =
-        "dispatch = [{ load = \"100 %\", hours = 3000 }, { load = \"60 %\", hours = 1000 }]\n\
-                     part_load = [{ load = \"60 %\", heat_rate_ratio = 1.15 }]";
+        "dispatch = [{ load = \"100 %\", hours = 3000 }, { load = \"60 %\", hours = 1000 }]";
     let loaded = scenario(VALUED, operation);
     let reference = reference_of(&loaded);
     assert!(near(reference.energy_mwh, 158_400.0), "{reference:?}");

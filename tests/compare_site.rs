@@ -1,7 +1,8 @@
 //! The money follows each bid's fixed machine at the site's ambient
 //! (`compare --format json` and the library study): hot days and altitude
 //! cut output, the rating condition reproduces rated pricing, and without a
-//! part-load table each machine's own part-load physics price the dispatch.
+//! vendor part-load curve each machine's own part-load physics price the
+//! dispatch.
 //!
 //! Sources, beside each check: the ISO 2533 standard atmosphere for the
 //! ambient pressure at elevation (from memory); Walsh and Fletcher, *Gas
@@ -11,7 +12,7 @@
 
 use assert_cmd::Command;
 use brayfin::analysis::compare::run_study;
-use brayfin::analysis::operation::annual_operation;
+use brayfin::analysis::operation::annual_operation_with_ratios;
 use brayfin::analysis::site::Basis;
 use brayfin::scenario::parse;
 use serde_json::Value;
@@ -137,7 +138,8 @@ fn elevation_cuts_output_in_proportion_to_pressure() {
 /// from memory; the demo's bids take the default rating) reproduces the
 /// rated pricing: output = rated net output and heat rate = the design
 /// solve's, each to 1e-6, and the year's fuel the same as pricing the
-/// rated figures with the scenario's part-load table.
+/// rated figures with each bid's part-load ratios (its vendor's curve where
+/// it states one).
 #[test]
 fn the_rating_condition_reproduces_rated_pricing() {
     let text = demo_at("ambient_temperature = \"15 degC\"\nelevation = \"0 m\"");
@@ -161,26 +163,77 @@ fn the_rating_condition_reproduces_rated_pricing() {
             candidate.id,
             site.heat_rate_kj_per_kwh
         );
-        let rated_year = annual_operation(&scenario.operation, candidate.net_output_kw, rated_hr);
+        // The demo's dispatch is 100 %, 80 %, 60 %: Bid A's and Bid C's
+        // vendor curves state those loads (1.045, 1.12; 1.015, 1.05 in the
+        // file), Bid B's machine gives its own.
+        let ratios = match candidate.id.as_str() {
+            "standard" => vec![1.0, 1.045, 1.12],
+            "regenerated" => vec![1.0, 1.015, 1.05],
+            _ => site.block_ratios.clone(),
+        };
+        for (got, want) in site.block_ratios.iter().zip(&ratios) {
+            assert!(
+                (got - want).abs() < 1e-12,
+                "{}: {got} vs {want}",
+                candidate.id
+            );
+        }
+        let rated_year = annual_operation_with_ratios(
+            &scenario.operation,
+            candidate.net_output_kw,
+            rated_hr,
+            &ratios,
+        );
         let year = &outcome.solved.year;
         assert!((year.energy_mwh / rated_year.energy_mwh - 1.0).abs() < 1e-6);
         assert!((year.fuel_energy_gj_lhv / rated_year.fuel_energy_gj_lhv - 1.0).abs() < 1e-6);
     }
 }
 
-/// Without `[operation] part_load` each machine prices its own part load:
+/// The demo without its bids' vendor curves (`part_load` and
+/// `ambient_correction` arrays on the candidates).
+fn without_vendor_curves(text: &str) -> String {
+    let mut out = String::new();
+    let mut skipping = false;
+    for line in text.lines() {
+        let t = line.trim_start();
+        if t.starts_with("part_load = [") || t.starts_with("ambient_correction = [") {
+            skipping = true;
+            continue;
+        }
+        if skipping {
+            skipping = !t.starts_with(']');
+            continue;
+        }
+        if t.starts_with("sources = {") {
+            // Drop the curves' own sources with them: `, key = "…"`.
+            let mut kept = line.to_string();
+            for key in [", part_load = \"", ", ambient_correction = \""] {
+                if let Some(start) = kept.find(key) {
+                    let value = start + key.len();
+                    let end = value + kept[value..].find('"').expect("a closing quote") + 1;
+                    kept.replace_range(start..end, "");
+                }
+            }
+            out.push_str(&kept);
+            out.push('\n');
+            continue;
+        }
+        out.push_str(line);
+        out.push('\n');
+    }
+    out
+}
+
+/// Without vendor part-load curves each machine prices its own part load:
 /// every dispatch-weighted heat-rate ratio is above 1, and the regenerated
 /// bid's is below the simple cycles' (a regenerator recovers more heat as
 /// the exhaust cools less at part load; Saravanamuttoo et al., *Gas
 /// Turbine Theory*, off-design chapters, from memory).
 #[test]
-fn without_a_part_load_table_each_machine_prices_its_own_part_load() {
-    let text = demo_text();
-    let start = text
-        .find("part_load = [")
-        .expect("the demo has a part-load table");
-    let end = start + text[start..].find("]\n").expect("the table closes") + 2;
-    let without = format!("{}{}", &text[..start], &text[end..]);
+fn without_vendor_curves_each_machine_prices_its_own_part_load() {
+    let without = without_vendor_curves(&demo_text());
+    assert!(!without.contains("part_load"), "every curve removed");
     let ratios: Vec<f64> = compared(&without).iter().map(|c| c.2).collect();
     for r in &ratios {
         assert!(*r > 1.0 && *r < 1.5, "{ratios:?}");
@@ -188,17 +241,27 @@ fn without_a_part_load_table_each_machine_prices_its_own_part_load() {
     assert!(ratios[2] < ratios[0] && ratios[2] < ratios[1], "{ratios:?}");
 }
 
-/// With the table, `check` says it is applied as a stated vendor curve.
+/// `check` says which source priced each bid: Bids A and B state a
+/// part-load curve, Bid C both curves.
 #[test]
-fn check_says_the_part_load_table_is_a_stated_curve() {
-    Command::cargo_bin("brayfin")
+fn check_says_what_priced_each_bid() {
+    let assert = Command::cargo_bin("brayfin")
         .expect("binary builds")
         .args(["check", DEMO])
         .assert()
-        .success()
-        .stdout(predicates::str::contains(
-            "operation.part_load is applied as a stated vendor curve",
-        ));
+        .success();
+    let out = String::from_utf8_lossy(&assert.get_output().stdout).to_string();
+    for line in [
+        "candidate[standard]: priced with base load at the site from its calibrated machine; \
+         part load from the vendor's part_load curve",
+        "candidate[premium]: priced with base load at the site from its calibrated machine; \
+         part load from the vendor's part_load curve",
+        "candidate[regenerated]: priced with base load at the site from the vendor's \
+         ambient_correction (the site's pressure and humidity from its calibrated machine); \
+         part load from the vendor's part_load curve",
+    ] {
+        assert!(out.contains(line), "{line}\n{out}");
+    }
 }
 
 /// An intercooled bid, which the fixed-machine model does not cover, keeps

@@ -1,8 +1,9 @@
 //! The inputs on the briefing page are those that move the recommended
 //! bid's net savings most, each with its largest one-sided change (the
 //! larger of the change at the low and at the high end of the range), on
-//! the Corvel Bay demo, where the bid recommended (B) is not the one whose
-//! swings are largest.
+//! the Corvel Bay demo with Bid C's price raised by 3 million (so that Bid
+//! B is recommended), where the bid recommended is not the one whose swings
+//! are largest.
 
 use brayfin::analysis::model::{build_model, ModelOptions};
 use brayfin::report::model::Units;
@@ -10,8 +11,12 @@ use std::path::Path;
 
 #[test]
 fn key_inputs_are_the_recommended_bids_largest_one_sided_changes() {
-    let loaded = brayfin::scenario::load(Path::new("scenarios/corvel-bay-peaker.toml"))
-        .expect("demo scenario loads");
+    let text = std::fs::read_to_string(Path::new("scenarios/corvel-bay-peaker.toml"))
+        .expect("demo scenario reads");
+    let from = "capital_cost = \"55900000 USD\"";
+    assert!(text.contains(from), "Bid C's price moved");
+    let text = text.replacen(from, "capital_cost = \"58900000 USD\"", 1);
+    let loaded = brayfin::scenario::parse(&text, "demo.toml").expect("demo scenario loads");
     let model = build_model(
         &loaded,
         &ModelOptions {
@@ -21,6 +26,7 @@ fn key_inputs_are_the_recommended_bids_largest_one_sided_changes() {
     )
     .expect("demo evaluates");
     let preferred = &model.decision.preferred_id;
+    assert_eq!(preferred, "premium");
     assert!(!model.decision.preferred_is_baseline);
     assert!(!model.key_assumptions.is_empty());
     for k in &model.key_assumptions {

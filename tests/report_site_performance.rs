@@ -133,7 +133,11 @@ fn the_year_and_the_temperature_bins_are_the_priced_year() {
         assert_eq!(c.energy_mwh, year.energy_mwh);
         assert_eq!(c.fuel_gj_lhv, year.fuel_energy_gj_lhv);
         assert_eq!(c.run_hours, year.operating_hours);
-        assert_eq!(c.starts_per_year, None);
+        // Starts are the scenario's `operation.starts_per_year`.
+        assert_eq!(
+            c.starts_per_year,
+            Some(loaded.scenario.operation.starts_per_year)
+        );
         let hours: f64 = c.hours_by_temperature.iter().map(|b| b.hours).sum();
         assert_eq!(hours, year.operating_hours);
         assert!(c

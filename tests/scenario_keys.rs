@@ -77,7 +77,13 @@ fn set_changes_one_or_every_candidate() {
         s.set_numeric("candidate.compressor_efficiency", 0.87),
         Ok(())
     );
-    assert!(s.candidates.iter().all(|c| c.compressor_efficiency == 0.87));
+    // Every candidate that states its components; Bid C's machine is
+    // fitted to its datasheet, and a generic key passes over it.
+    assert!(s.candidates[..2]
+        .iter()
+        .all(|c| c.compressor_efficiency == 0.87));
+    assert!(s.candidates[2].fitted.is_some());
+    assert_ne!(s.candidates[2].compressor_efficiency, 0.87);
     // Generic keys of optional parts reach only the candidates that have them.
     assert_eq!(
         s.set_numeric("candidate.regenerator.effectiveness", 0.8),

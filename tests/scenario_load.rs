@@ -189,21 +189,60 @@ fn composition_and_heating_values() {
 }
 
 #[test]
-fn dispatch_fills_hours_and_part_load_is_sorted_with_full_load_added() {
-    let text = MINIMAL.replace(
-        "hours_per_year = 4000",
-        "dispatch = [{ load = \"100 %\", hours = 3000 }, { load = \"60 %\", hours = 1000 }]\n\
-         part_load = [{ load = \"50 %\", heat_rate_ratio = 1.25 }, { load = \"75 %\", heat_rate_ratio = 1.08 }]",
-    );
+fn dispatch_fills_hours_and_a_bids_part_load_is_sorted_with_full_load_added() {
+    let text = MINIMAL
+        .replace(
+            "hours_per_year = 4000",
+            "dispatch = [{ load = \"100 %\", hours = 3000 }, { load = \"60 %\", hours = 1000 }]",
+        )
+        .replace(
+            "turbine_efficiency = \"89 %\"",
+            "turbine_efficiency = \"89 %\"\n\
+             part_load = [{ load = \"75 %\", heat_rate_ratio = 1.08 }, { load = \"50 %\", heat_rate_ratio = 1.25 }]",
+        );
     let loaded = load(&text);
     let op = &loaded.scenario.operation;
     assert_eq!(op.hours_per_year, 4000.0);
-    let loads: Vec<f64> = op.part_load.iter().map(|p| p.load_fraction).collect();
+    let loads: Vec<f64> = loaded.scenario.candidates[0]
+        .part_load
+        .iter()
+        .map(|p| p.load_fraction)
+        .collect();
     assert_eq!(loads, vec![0.5, 0.75, 1.0]);
     assert!(loaded
         .applied_defaults
         .iter()
         .any(|d| d.key == "operation.hours_per_year"));
+    assert!(loaded
+        .applied_defaults
+        .iter()
+        .any(|d| d.key == "candidate[a].part_load"));
+}
+
+/// An ambient-correction curve is sorted by temperature and passes through
+/// the rating temperature (15 °C by default, ISO 3977-2) at ratios 1.
+#[test]
+fn a_bids_ambient_correction_is_sorted_with_the_rating_point_added() {
+    let text = MINIMAL.replace(
+        "turbine_efficiency = \"89 %\"",
+        "turbine_efficiency = \"89 %\"\n\
+         ambient_correction = [{ temperature = \"35 degC\", output_ratio = 0.85, heat_rate_ratio = 1.05 }, \
+         { temperature = \"-5 degC\", output_ratio = 1.12, heat_rate_ratio = 0.97 }]",
+    );
+    let loaded = load(&text);
+    let curve = &loaded.scenario.candidates[0].ambient_correction;
+    let t: Vec<f64> = curve.iter().map(|p| p.temperature_k).collect();
+    assert_eq!(t.len(), 3);
+    assert!(
+        (t[0] - 268.15).abs() < 1e-9
+            && (t[1] - 288.15).abs() < 1e-9
+            && (t[2] - 308.15).abs() < 1e-9,
+        "{t:?}"
+    );
+    assert_eq!(
+        (curve[1].output_ratio, curve[1].heat_rate_ratio),
+        (1.0, 1.0)
+    );
 }
 
 #[test]

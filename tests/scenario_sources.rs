@@ -34,10 +34,17 @@ fn composition_and_dispatch_sources_reach_every_nested_input() {
     assert!(dispatch
         .iter()
         .all(|s| *s == Some("Production-cost model run PC-2025-02, mid-merit case")));
-    // No source is stated for the part-load table: none is invented.
-    let part_load = sources_of(&loaded, "operation.part_load");
-    assert!(!part_load.is_empty());
-    assert!(part_load.iter().all(Option::is_none), "{part_load:?}");
+    // Bid A's vendor curve carries the source its table states; Bid B
+    // states none, and none is invented.
+    let part_load = sources_of(&loaded, "candidate[standard].part_load");
+    assert_eq!(part_load.len(), 8, "four points of load and ratio");
+    assert!(part_load
+        .iter()
+        .all(|s| *s == Some("Bid A performance curves, sheet 3")));
+    let bid_b = sources_of(&loaded, "candidate[premium].compressor_efficiency");
+    assert_eq!(bid_b, vec![Some("Bid B performance guarantee")]);
+    let no_source = sources_of(&loaded, "candidate[premium].pressure_ratio");
+    assert!(no_source.iter().all(Option::is_none), "{no_source:?}");
 }
 
 #[test]

@@ -10,27 +10,15 @@ use crate::cycle::{
 };
 use crate::fuel::Fuel;
 use crate::scenario::{
-    Candidate, EfficiencyBasis as SpecBasis, FuelComposition, FuelSpec, GasModelSpec,
-    LoadedScenario, Site,
+    Candidate, EfficiencyBasis as SpecBasis, FuelSpec, GasModelSpec, LoadedScenario, Site,
 };
 use crate::Error;
 
-/// The fuel of a scenario as the solver's [`Fuel`].
+/// The fuel of a scenario as the solver's [`Fuel`]
+/// ([`crate::scenario::solver_fuel`], which the loader also uses to fit a
+/// candidate that states no components).
 pub fn fuel_of(spec: &FuelSpec) -> Result<Fuel, String> {
-    let fuel = match &spec.composition {
-        FuelComposition::HeatingValues {
-            lhv_kj_per_kg,
-            hhv_kj_per_kg,
-            co2_kg_per_gj_lhv,
-        } => Fuel::from_heating_values(*lhv_kj_per_kg, *hhv_kj_per_kg, *co2_kg_per_gj_lhv),
-        other => {
-            let fractions = other.mole_fractions().unwrap_or_default();
-            let borrowed: Vec<(&str, f64)> =
-                fractions.iter().map(|(s, x)| (s.as_str(), *x)).collect();
-            Fuel::from_composition(&borrowed)
-        }
-    };
-    fuel.map_err(|e| e.to_string())
+    crate::scenario::solver_fuel(spec)
 }
 
 /// The solver's gas model for a candidate.

@@ -14,8 +14,9 @@ use super::engine::{engine_config_of, gas_model_of};
 use super::machine::rating_of;
 use crate::cycle::Regenerator;
 use crate::datasheet::{
-    assess, Assessment, CalibrationOptions, ComponentData, Datasheet, DatasheetError,
-    HeatRateBasis, Verdict,
+    assess, check_ambient_correction, check_part_load, AmbientCorrectionPoint, Assessment,
+    CalibrationOptions, ComponentData, CurveDeviation, Datasheet, DatasheetError, HeatRateBasis,
+    PartLoadPoint, Verdict, CURVE_THRESHOLD,
 };
 use crate::fuel::Fuel;
 use crate::scenario::{Candidate, HeatRateBasisSpec, LoadedScenario, RatingFigures};
@@ -144,7 +145,12 @@ pub fn implied_bids(loaded: &LoadedScenario, fuel: &Fuel) -> crate::Result<Vec<I
             continue;
         }
         let located = |e: DatasheetError| datasheet_error(loaded, candidate, &e);
-        let components = stated_components(loaded, candidate, fuel).map_err(located)?;
+        // A candidate fitted to its datasheet states no components: its
+        // fit is not checked against itself.
+        let components = match candidate.fitted {
+            Some(_) => ComponentData::default(),
+            None => stated_components(loaded, candidate, fuel).map_err(located)?,
+        };
         let assessment = assess(&datasheet, &components, &options_of(candidate, &components))
             .map_err(located)?;
         bids.push(ImpliedBid {
@@ -211,6 +217,120 @@ pub fn unassessed_notes(scenario: &crate::scenario::Scenario) -> Vec<String> {
                  intercooled or reheat ones (yet)",
                 c.id
             )
+        })
+        .collect()
+}
+
+/// Warnings for each candidate's vendor curves that its calibrated machine
+/// (the one that prices it, [`super::machine::machine_of`]) does not bear
+/// out: a point whose vendor ratio differs from the machine's by more than
+/// [`CURVE_THRESHOLD`] (0.02, see there why), naming the candidate, the
+/// curve, the point and both values. A point the machine cannot run at
+/// (a load below its control's minimum, an ambient it refuses) is a
+/// warning too, and the rest of that curve goes unchecked. Intercooled and
+/// reheat candidates are not modelled as fixed machines and are passed
+/// over (their pricing note says so).
+pub fn curve_warnings(scenario: &crate::scenario::Scenario, fuel: &Fuel) -> Vec<String> {
+    let mut warnings = Vec::new();
+    for candidate in &scenario.candidates {
+        if candidate.part_load.is_empty() && candidate.ambient_correction.is_empty() {
+            continue;
+        }
+        let Ok(machine) = super::machine::machine_of(candidate, &scenario.site, fuel) else {
+            // A machine that cannot be built is refused by the comparison
+            // itself, or kept at its rating (intercooler, reheat).
+            continue;
+        };
+        let part_load: Vec<PartLoadPoint> = candidate
+            .part_load
+            .iter()
+            .filter(|p| p.load_fraction < 1.0)
+            .map(|p| PartLoadPoint {
+                load: p.load_fraction,
+                heat_rate_ratio: p.heat_rate_ratio,
+            })
+            .collect();
+        let rating_t = candidate.rating.temperature_k;
+        let ambient: Vec<AmbientCorrectionPoint> = candidate
+            .ambient_correction
+            .iter()
+            .filter(|p| (p.temperature_k - rating_t).abs() > 1e-9)
+            .map(|p| AmbientCorrectionPoint {
+                temperature_k: p.temperature_k,
+                output_ratio: p.output_ratio,
+                heat_rate_ratio: p.heat_rate_ratio,
+            })
+            .collect();
+        let checks = [
+            check_part_load(&machine, &part_load, CURVE_THRESHOLD),
+            check_ambient_correction(&machine, &ambient, CURVE_THRESHOLD),
+        ];
+        for outcome in checks {
+            match outcome {
+                Ok(deviations) => {
+                    warnings.extend(deviations.iter().map(|d| curve_warning(&candidate.id, d)))
+                }
+                Err(e) => warnings.push(format!(
+                    "candidate[{}]: a vendor curve point cannot be checked against its \
+                     calibrated machine: {e}",
+                    candidate.id
+                )),
+            }
+        }
+    }
+    warnings
+}
+
+/// One curve point the machine does not bear out, in words.
+fn curve_warning(candidate_id: &str, d: &CurveDeviation) -> String {
+    let at = if d.curve == "part_load" {
+        format!("load {:.1} %", d.at * 100.0)
+    } else {
+        format!("{:.2} K ({:.1} °C)", d.at, d.at - 273.15)
+    };
+    format!(
+        "candidate[{candidate_id}].{} at {at}: the vendor's {} is {:.4}, its calibrated machine \
+         gives {:.4} (a difference of {:.4}, above the {CURVE_THRESHOLD} cross-check threshold); \
+         the vendor's curve prices it: ask the vendor to confirm the point",
+        d.curve,
+        d.quantity,
+        d.vendor,
+        d.physics,
+        (d.vendor - d.physics).abs(),
+    )
+}
+
+/// Information lines for each candidate that states no components: its
+/// machine (what prices it) is the one fitted to its datasheet when the
+/// file was read; the fitted values and every assumption of the fit.
+pub fn fitted_notes(scenario: &crate::scenario::Scenario) -> Vec<String> {
+    scenario
+        .candidates
+        .iter()
+        .filter_map(|c| {
+            let fit = c.fitted.as_ref()?;
+            Some(format!(
+                "candidate[{}]: states no components; its machine is fitted to its datasheet \
+                 (fitted: {}): pressure ratio {:.2}, firing temperature {:.1} K, polytropic \
+                 efficiencies {:.4} (compressor) and {:.4} (turbine), turbine cooling {:.1} % of \
+                 compressor air, mechanical and generator efficiency {:.4} each, no auxiliary \
+                 load, air flow {:.2} kg/s, pressure losses {:.1} % inlet, {:.1} % exhaust, {:.1} % \
+                 combustor, combustion efficiency {:.3}; assumptions: {}",
+                c.id,
+                fit.fitted.join(", "),
+                c.pressure_ratio,
+                c.turbine_inlet_temperature_k,
+                c.compressor_efficiency,
+                c.turbine_efficiency,
+                c.turbine_cooling * 100.0,
+                c.mechanical_efficiency,
+                fit.air_flow_kg_per_s,
+                c.inlet_pressure_loss * 100.0,
+                c.exhaust_pressure_loss * 100.0,
+                c.combustor_pressure_loss * 100.0,
+                c.combustion_efficiency,
+                fit.assumptions.join("; ")
+            ))
         })
         .collect()
 }

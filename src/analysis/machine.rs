@@ -85,11 +85,20 @@ pub fn site_notes(scenario: &Scenario, study: &Study) -> Vec<String> {
         let output = site.net_output_kw / candidate.net_output_kw - 1.0;
         let heat_rate = site.heat_rate_kj_per_kwh / rated_hr - 1.0;
         if output.abs() > SITE_NOTE_FRACTION || heat_rate.abs() > SITE_NOTE_FRACTION {
+            let (source, priced) = match super::vendor::ambient_source(candidate) {
+                super::vendor::Source::Vendor => (
+                    "with its vendor's ambient correction",
+                    "these figures (its vendor's curve)",
+                ),
+                super::vendor::Source::Physics => {
+                    ("as a fixed machine", "the fixed machine's figures")
+                }
+            };
             notes.push(format!(
-                "candidate[{}]: as a fixed machine at the site ({:.2} K, {:.3} kPa, {:.0} % \
+                "candidate[{}]: {source} at the site ({:.2} K, {:.3} kPa, {:.0} % \
                  relative humidity) it makes {:.0} kW ({:+.1} %) at {:.0} kJ/kWh ({:+.1} %) \
                  against its rated {:.0} kW and the {:.0} kJ/kWh of its design point at the \
-                 site; compare, report, sweep and risk price the fixed machine's figures \
+                 site; compare, report, sweep and risk price {priced} \
                  (see `brayfin offdesign`)",
                 candidate.id,
                 point.ambient_temperature_k,

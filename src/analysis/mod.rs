@@ -13,6 +13,7 @@ pub mod operation;
 pub mod sensitivity;
 pub mod site;
 pub mod site_curves;
+pub mod vendor;
 pub mod warnings;
 
 pub use model::{build_model, ModelOptions};

@@ -678,6 +678,15 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
     let mut warnings = engineering_warnings(scenario);
     warnings.extend(cycle_warnings(loaded, &study));
     warnings.extend(implied.iter().filter_map(verdict_warning));
+    warnings.extend(super::implied::curve_warnings(scenario, &study.fuel));
+    // What priced each bid (vendor curves or its machine; a fitted one).
+    let sites: Vec<_> = study
+        .outcomes
+        .iter()
+        .map(|o| o.solved.site.clone())
+        .collect();
+    let mut pricing = super::site::pricing_notes(scenario, &sites);
+    pricing.extend(super::implied::fitted_notes(scenario));
     let e = &scenario.economics;
     let present_value_date = match e.present_value_date {
         crate::scenario::PresentValueDate::CommercialOperation => e.commercial_operation,
@@ -721,7 +730,11 @@ pub fn build_model(loaded: &LoadedScenario, options: &ModelOptions) -> crate::Re
             })
             .collect(),
         warnings,
-        information: information_notes(scenario),
+        information: information_notes(scenario)
+            .into_iter()
+            .chain(pricing.iter().cloned())
+            .collect(),
+        pricing,
         method: MethodView {
             gas_models,
             rate_basis: match e.rate_basis {

@@ -56,7 +56,9 @@ use super::site::{fixed_machine_site, rated_site, Basis, SitePerformance};
 use crate::cycle::{self, EngineConfig, GasModel};
 use crate::finance::{compare_summaries, summarize_ledger, LedgerInputs, LedgerSummary};
 use crate::fuel::Fuel;
-use crate::scenario::{Candidate, ControlSpec, PartLoadPoint, RatingCondition, Scenario};
+use crate::scenario::{
+    AmbientCorrectionSpec, Candidate, ControlSpec, PartLoadPoint, RatingCondition, Scenario,
+};
 use rust_decimal::prelude::ToPrimitive;
 
 /// What one candidate's figures are at one point.
@@ -213,6 +215,7 @@ struct CachedCycle {
     control: ControlSpec,
     dispatch_loads: Vec<f64>,
     part_load: Vec<PartLoadPoint>,
+    ambient_correction: Vec<AmbientCorrectionSpec>,
     site: SitePerformance,
 }
 
@@ -234,7 +237,8 @@ impl CachedCycle {
             && self.gas == *gas
             && self.rating == candidate.rating
             && self.control == candidate.control
-            && self.part_load == scenario.operation.part_load
+            && self.part_load == candidate.part_load
+            && self.ambient_correction == candidate.ambient_correction
             && self.dispatch_loads.iter().copied().eq(scenario
                 .operation
                 .dispatch
@@ -262,7 +266,8 @@ impl CachedCycle {
             && self.gas == *gas
             && self.rating == candidate.rating
             && self.control == candidate.control
-            && self.part_load == scenario.operation.part_load
+            && self.part_load == candidate.part_load
+            && self.ambient_correction == candidate.ambient_correction
             && self.dispatch_loads.iter().copied().eq(scenario
                 .operation
                 .dispatch
@@ -553,7 +558,8 @@ fn exact_cycle(
             .iter()
             .map(|b| b.load_fraction)
             .collect(),
-        part_load: scenario.operation.part_load.clone(),
+        part_load: candidate.part_load.clone(),
+        ambient_correction: candidate.ambient_correction.clone(),
         site,
     })
 }

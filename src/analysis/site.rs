@@ -6,20 +6,18 @@
 //! - Base load: `machine.solve(site_ambient, Load::BASE)` gives the net
 //!   output and heat rate at the site.
 //! - Dispatch blocks: each block's load is a fraction of that site output.
-//!   With the scenario's `[operation] part_load` table, the block's heat rate
-//!   is the table's ratio times the site base-load heat rate (a stated
-//!   vendor curve); without it, the machine's own part-load physics at that
-//!   load give the ratio.
+//! - A candidate's vendor curves (`ambient_correction`, `part_load`) price
+//!   base load and part load where it states them; the rule is
+//!   [`super::vendor`]'s.
 //! - Intercooled and reheat candidates, which the fixed-machine model does
 //!   not cover, keep their rated output and the design-point heat rate at
 //!   the site (the "rubber engine"), with an information note.
 
 use super::machine::{machine_of, site_ambient};
-use super::operation::heat_rate_ratio;
 use crate::cycle::CycleResult;
 use crate::fuel::Fuel;
-use crate::offdesign::{Load, OffDesignError, OffDesignPoint};
-use crate::scenario::{Candidate, Operation, Scenario};
+use crate::offdesign::{OffDesignError, OffDesignPoint};
+use crate::scenario::{Candidate, Scenario};
 
 /// How a candidate's site performance was found.
 #[derive(Debug, Clone, PartialEq)]
@@ -88,15 +86,6 @@ fn arrangement_refused(e: &OffDesignError) -> bool {
     )
 }
 
-/// The per-block heat-rate ratios from the scenario's part-load table.
-fn table_ratios(operation: &Operation) -> Vec<f64> {
-    operation
-        .dispatch
-        .iter()
-        .map(|b| heat_rate_ratio(&operation.part_load, b.load_fraction))
-        .collect()
-}
-
 /// A candidate's performance at the scenario's site. `rated` is its design
 /// solve at the site (sized to the rated output), used for the candidates
 /// the fixed-machine model refuses.
@@ -114,8 +103,8 @@ pub fn site_performance(
 
 /// The performance of a candidate the fixed-machine model refuses for its
 /// arrangement (`reason`): its rated output, the design-point heat rate at
-/// the site `rated_heat_rate_kj_per_kwh`, part load from the scenario's
-/// table.
+/// the site `rated_heat_rate_kj_per_kwh`, part load from its vendor's
+/// curve (none: its base-load heat rate).
 pub fn rated_site(
     scenario: &Scenario,
     candidate: &Candidate,
@@ -126,7 +115,7 @@ pub fn rated_site(
         net_output_kw: candidate.net_output_kw,
         heat_rate_kj_per_kwh: rated_heat_rate_kj_per_kwh,
         rated_heat_rate_kj_per_kwh,
-        block_ratios: table_ratios(&scenario.operation),
+        block_ratios: super::vendor::curve_block_ratios(candidate, &scenario.operation.dispatch),
         basis: Basis::Rated(reason),
     }
 }
@@ -152,54 +141,27 @@ pub fn fixed_machine_site(
         Err(e) => return Err(located(e, None)),
     };
     let ambient = site_ambient(candidate, &scenario.site);
-    let base = machine
-        .solve(ambient, Load::BASE)
-        .map_err(|e| located(e, None))?;
-    let operation = &scenario.operation;
-    let block_ratios = if operation.part_load.is_empty() {
-        operation
-            .dispatch
-            .iter()
-            .map(|b| {
-                if b.load_fraction >= 1.0 {
-                    return Ok(1.0);
-                }
-                machine
-                    .solve(ambient, Load(b.load_fraction))
-                    .map(|p| p.heat_rate_kj_per_kwh / base.heat_rate_kj_per_kwh)
-                    .map_err(|e| located(e, Some(b.load_fraction)))
-            })
-            .collect::<Result<Vec<_>, _>>()?
-    } else {
-        table_ratios(operation)
-    };
+    let priced =
+        super::vendor::site_pricing(candidate, &machine, ambient, &scenario.operation.dispatch)
+            .map_err(|(e, load)| located(e, load))?;
     Ok(Ok(SitePerformance {
-        net_output_kw: base.net_output_kw,
-        heat_rate_kj_per_kwh: base.heat_rate_kj_per_kwh,
+        net_output_kw: priced.base.net_output_kw,
+        heat_rate_kj_per_kwh: priced.base.heat_rate_kj_per_kwh,
         rated_heat_rate_kj_per_kwh: machine.rating_point().heat_rate_kj_per_kwh,
-        block_ratios,
-        basis: Basis::Machine(Box::new(base)),
+        block_ratios: priced.block_ratios,
+        basis: Basis::Machine(Box::new(priced.machine_base)),
     }))
 }
 
 /// Information lines for `check` and the report: how the site performance
-/// is priced (part-load table or machine physics; candidates kept at their
-/// rating).
+/// is priced (vendor curves or machine physics, [`super::vendor::pricing_notes`];
+/// candidates kept at their rating).
 pub fn pricing_notes(scenario: &Scenario, sites: &[SitePerformance]) -> Vec<String> {
-    let mut notes = Vec::new();
-    let has_part_load = scenario
-        .operation
-        .dispatch
+    let fixed: Vec<bool> = sites
         .iter()
-        .any(|b| b.load_fraction < 1.0);
-    if has_part_load && !scenario.operation.part_load.is_empty() {
-        notes.push(
-            "operation.part_load is applied as a stated vendor curve to each candidate's \
-             base-load heat rate at the site; remove it to price each candidate's part load \
-             from its own fixed machine (see `brayfin offdesign`)"
-                .to_string(),
-        );
-    }
+        .map(|s| matches!(s.basis, Basis::Machine(_)))
+        .collect();
+    let mut notes = super::vendor::pricing_notes(scenario, &fixed);
     for (candidate, site) in scenario.candidates.iter().zip(sites) {
         if let Basis::Rated(reason) = &site.basis {
             notes.push(format!(

@@ -62,7 +62,7 @@ pub fn operating_profile(scenario: &Scenario, year: &CandidateYear) -> Operating
             high_k: mean + BIN_K / 2.0,
             hours: year.year.operating_hours,
         }],
-        starts_per_year: None,
+        starts_per_year: Some(scenario.operation.starts_per_year),
     }
 }
 
@@ -148,7 +148,7 @@ pub fn site_performance_view(scenario: &Scenario, study: &Study) -> SitePerforma
         temperatures_k,
         site_temperature_k: scenario.site.ambient_temperature_k,
         loads: LOADS.to_vec(),
-        part_load_from_table: !scenario.operation.part_load.is_empty(),
+        part_load_from_table: scenario.candidates.iter().any(|c| !c.part_load.is_empty()),
         candidates,
     }
 }

@@ -17,8 +17,13 @@ pub fn run(args: &CheckArgs) -> Result<()> {
     let extra = crate::analysis::warnings::cycle_warnings(&loaded, &study);
     let mut information = crate::analysis::machine::site_notes(&loaded.scenario, &study);
     information.extend(crate::analysis::implied::unassessed_notes(&loaded.scenario));
+    information.extend(crate::analysis::implied::fitted_notes(&loaded.scenario));
     let implied = crate::analysis::implied::implied_bids(&loaded, &study.fuel)?;
     let mut extra = extra;
+    extra.extend(crate::analysis::implied::curve_warnings(
+        &loaded.scenario,
+        &study.fuel,
+    ));
     for bid in &implied {
         extra.extend(crate::analysis::implied::verdict_warning(bid));
     }

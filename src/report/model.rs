@@ -40,8 +40,14 @@ pub struct Model {
     /// Warnings an engineer would want to see (from `check`).
     pub warnings: Vec<String>,
     /// Information that is not a warning: routine conversions brayfin
-    /// made (e.g. pricing LHV fuel energy per unit of HHV).
+    /// made (e.g. pricing LHV fuel energy per unit of HHV), and the
+    /// [`Model::pricing`] lines.
     pub information: Vec<String>,
+    /// How each bid is priced: from its vendor's curves or its machine's
+    /// physics, and for a bid that states no components the machine fitted
+    /// to its datasheet with the fit's values and assumptions (one line
+    /// each; also in `information`).
+    pub pricing: Vec<String>,
     /// How the numbers were made.
     pub method: MethodView,
     /// Break-even premium of each non-baseline candidate against fuel price.
@@ -748,8 +754,8 @@ pub struct SitePerformanceView {
     /// Loads of the part-load curves, fractions of the site base load,
     /// descending.
     pub loads: Vec<f64>,
-    /// Whether the money prices part load from the scenario's
-    /// `[operation] part_load` table rather than each machine's curve.
+    /// Whether any candidate's part load is priced from its vendor
+    /// `part_load` curve rather than its machine's physics.
     pub part_load_from_table: bool,
     /// Every candidate, in scenario order.
     pub candidates: Vec<SiteCandidateView>,

@@ -2,6 +2,7 @@
 //! declaration of every candidate key except those of `costs` (see
 //! `candidate_costs.rs`). The reader is `candidate_reader.rs`.
 
+use super::candidate_fit::refuse_fitted;
 use super::declare::{money_from_f64, money_to_f64, Key, Presence, SetResult, Shape};
 use super::ranges::{
     Range, AMBIENT_P_KPA, AMBIENT_P_REASON, AMBIENT_T_K, AMBIENT_T_REASON, AMOUNT_HIGH,
@@ -137,6 +138,7 @@ impl RatingFigures {
 /// no datasheet (a `--vary` or `[[uncertainty]]` of a figure the file does
 /// not give).
 fn set_figure(c: &mut Candidate, v: f64, set: impl FnOnce(&mut RatingFigures, f64)) -> SetResult {
+    refuse_fitted(c, "machine (fitted to these figures)")?;
     match c.rating.datasheet.as_mut() {
         Some(d) => {
             set(d, v);
@@ -248,6 +250,20 @@ pub struct Candidate {
     pub rating: RatingCondition,
     /// Part-load control of the fixed machine (`[candidate.control]`).
     pub control: super::candidate_control::ControlSpec,
+    /// The vendor's part-load curve (`part_load`): heat rate over the
+    /// base-load heat rate against load, sorted by ascending load and ending
+    /// at load 1, ratio 1; empty when the bid states none (the machine's
+    /// physics price part load).
+    pub part_load: Vec<super::types::PartLoadPoint>,
+    /// The vendor's ambient-correction curve (`ambient_correction`), sorted
+    /// by ascending temperature and passing through the rating temperature
+    /// at ratios 1; empty when the bid states none (the machine's physics
+    /// price the site's ambient).
+    pub ambient_correction: Vec<super::candidate_curves::AmbientCorrectionSpec>,
+    /// Set when the bid states no components: its machine is fitted to its
+    /// datasheet when the file is read (`candidate_fit.rs`), and this holds
+    /// what was fitted and the fit's assumptions.
+    pub fitted: Option<super::candidate_fit::FittedMachine>,
     /// O&M, overhaul, degradation, residual value, construction schedule.
     pub costs: CandidateCosts,
     /// Performance guarantee with damages (`[candidate.guarantee]`, keys
@@ -270,6 +286,13 @@ fn cold_air(c: &mut Candidate) -> Result<(&mut f64, &mut f64), String> {
         GasModelSpec::ColdAir { cp_kj_per_kg_k, k } => Ok((cp_kj_per_kg_k, k)),
         _ => Err("this candidate's gas model is not cold-air".into()),
     }
+}
+
+/// A component value as a key path sees it: `None` on a candidate fitted
+/// to its datasheet (the fit set it; `candidate.<key>` for every candidate
+/// then passes over that one, as it does a candidate without the part).
+fn stated(c: &Candidate, value: f64) -> Option<f64> {
+    c.fitted.is_none().then_some(value)
 }
 
 /// Efficiencies of turbomachines: below this no gas turbine makes net work.
@@ -360,8 +383,9 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         Range::AboveOne,
         Presence::Required { example: "18" },
         "overall compressor pressure ratio",
-        |c| Some(c.pressure_ratio),
+        |c| stated(c, c.pressure_ratio),
         |c, v| {
+            refuse_fitted(c, "pressure ratio")?;
             c.pressure_ratio = v;
             Ok(())
         },
@@ -373,8 +397,9 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         Range::Positive,
         Presence::Required { example: "\"1450 K\"" },
         "combustor exit temperature; above ambient",
-        |c| Some(c.turbine_inlet_temperature_k),
+        |c| stated(c, c.turbine_inlet_temperature_k),
         |c, v| {
+            refuse_fitted(c, "firing temperature")?;
             c.turbine_inlet_temperature_k = v;
             Ok(())
         },
@@ -386,8 +411,9 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         Range::Efficiency,
         Presence::Required { example: "\"88 %\"" },
         "compressor efficiency on `efficiency_basis`",
-        |c| Some(c.compressor_efficiency),
+        |c| stated(c, c.compressor_efficiency),
         |c, v| {
+            refuse_fitted(c, "compressor efficiency")?;
             c.compressor_efficiency = v;
             Ok(())
         },
@@ -399,8 +425,9 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         Range::Efficiency,
         Presence::Required { example: "\"90 %\"" },
         "turbine efficiency on `efficiency_basis`",
-        |c| Some(c.turbine_efficiency),
+        |c| stated(c, c.turbine_efficiency),
         |c, v| {
+            refuse_fitted(c, "turbine efficiency")?;
             c.turbine_efficiency = v;
             Ok(())
         },
@@ -465,8 +492,9 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         Range::Efficiency,
         Presence::Default { text: "100 %", value: 1.0 },
         "efficiency of the shaft train (bearings, gearbox)",
-        |c| Some(c.mechanical_efficiency),
+        |c| stated(c, c.mechanical_efficiency),
         |c, v| {
+            refuse_fitted(c, "mechanical efficiency")?;
             c.mechanical_efficiency = v;
             Ok(())
         },
@@ -478,8 +506,9 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         Range::Efficiency,
         Presence::Default { text: "100 %", value: 1.0 },
         "generator efficiency",
-        |c| Some(c.generator_efficiency),
+        |c| stated(c, c.generator_efficiency),
         |c, v| {
+            refuse_fitted(c, "generator efficiency")?;
             c.generator_efficiency = v;
             Ok(())
         },
@@ -491,8 +520,9 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         Range::Loss,
         Presence::Default { text: "0 %", value: 0.0 },
         "auxiliary load, fraction of gross electrical output",
-        |c| Some(c.auxiliary_load_fraction),
+        |c| stated(c, c.auxiliary_load_fraction),
         |c, v| {
+            refuse_fitted(c, "auxiliary load")?;
             c.auxiliary_load_fraction = v;
             Ok(())
         },
@@ -504,8 +534,9 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         Range::Loss,
         Presence::Default { text: "0 %", value: 0.0 },
         "fraction of compressor delivery air that bypasses the combustor and mixes in ahead of the turbine rotor (firing temperature = combustor exit)",
-        |c| Some(c.turbine_cooling),
+        |c| stated(c, c.turbine_cooling),
         |c, v| {
+            refuse_fitted(c, "turbine cooling")?;
             c.turbine_cooling = v;
             Ok(())
         },
@@ -659,6 +690,13 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         "compressor inlet air temperature of the rating",
         |c| Some(c.rating.temperature_k),
         |c, v| {
+            if !c.ambient_correction.is_empty() {
+                return Err(
+                    "this candidate's ambient_correction is stated relative to its rating \
+                     temperature (ratio 1 there); vary the site's temperature instead"
+                        .into(),
+                );
+            }
             c.rating.temperature_k = v;
             Ok(())
         },
@@ -740,6 +778,8 @@ pub(crate) const KEYS: &[Key<Candidate>] = &[
         |c, v| set_figure(c, v, |d, v| d.firing_temperature_k = Some(v)),
     )
     .within(HOT_LOW, HOT_HIGH, "K", HOT_REASON),
-K::plain("control", Shape::Table, Presence::Optional { text: "guide vanes to 70 % airflow, 30 % minimum load" }, "how the fixed machine is held away from base load (`brayfin offdesign`)"),
+    K::plain("part_load", Shape::Array, Presence::Optional { text: "none: the fixed machine's own part-load physics" }, "the vendor's part-load curve, `[{ load = \"75 %\", heat_rate_ratio = 1.07 }, …]`: heat rate at that load ÷ base-load heat rate. Loads strictly ascending or descending; ratios from 1 to 3, not rising with load, exactly 1.0 at 100 % (added if absent). Prices this bid's part load (applied to its base-load heat rate at the site) and must reach down to the lowest dispatch load; `check` compares it with the calibrated machine"),
+    K::plain("ambient_correction", Shape::Array, Presence::Optional { text: "none: the fixed machine's own physics at the site" }, "the vendor's ambient correction at base load, `[{ temperature = \"35 degC\", output_ratio = 0.88, heat_rate_ratio = 1.04 }, …]`: output and heat rate at that compressor inlet temperature ÷ those at the rating (rating pressure and humidity). Temperatures strictly ascending or descending; ratios from 0.5 to 1.5, exactly 1.0 at the rating temperature (added if absent); output ratio not rising with temperature. Prices this bid's base load at the site temperature (linear between points; the site's pressure and humidity from physics); `check` compares it with the calibrated machine"),
+    K::plain("control", Shape::Table, Presence::Optional { text: "guide vanes to 70 % airflow, 30 % minimum load" }, "how the fixed machine is held away from base load (`brayfin offdesign`)"),
     K::plain("costs", Shape::Table, Presence::Optional { text: "all zero" }, "O&M, overhauls, degradation, residual value, construction schedule (below)"),
 ];

@@ -8,12 +8,15 @@ use super::candidate::{
 };
 use super::candidate_control::{read_control, ControlSpec};
 use super::candidate_costs::read_costs;
+use super::candidate_curves::{read_ambient_correction, read_part_load};
+use super::candidate_fit::{fit_unstated, COMPONENT_KEYS};
 use super::candidate_guarantee::read_guarantee;
 use super::context::Context;
 use super::declare::{find, keys_in, Key};
 use super::error::ScenarioError;
 use super::reader::{type_error, TableReader};
 use super::tree::{Node, NodeValue};
+use super::types::FuelSpec;
 use super::values::money;
 use crate::units;
 use chrono::NaiveDate;
@@ -40,6 +43,7 @@ pub(crate) fn read_candidates(
     ctx: &mut Context,
     node: Option<&Node>,
     commercial_operation: NaiveDate,
+    fuel: &FuelSpec,
 ) -> Read<Vec<Candidate>> {
     let valid = "expected at least one [[candidate]] table with an id, capital_cost, net_output, …";
     let Some(node) = node else {
@@ -63,7 +67,7 @@ pub(crate) fn read_candidates(
     }
     let mut candidates: Vec<Candidate> = Vec::with_capacity(items.len());
     for (i, item) in items.iter().enumerate() {
-        let candidate = read_candidate(ctx, item, i, commercial_operation)?;
+        let candidate = read_candidate(ctx, item, i, commercial_operation, fuel)?;
         if candidates.iter().any(|c| c.id == candidate.id) {
             return Err(ctx.error_for(
                 &format!("candidate[#{}].id", i + 1),
@@ -86,7 +90,13 @@ fn is_valid_id(id: &str) -> bool {
         && chars.all(|c| c.is_ascii_alphanumeric() || c == '-' || c == '_')
 }
 
-fn read_candidate(ctx: &mut Context, node: &Node, index: usize, cod: NaiveDate) -> Read<Candidate> {
+fn read_candidate(
+    ctx: &mut Context,
+    node: &Node,
+    index: usize,
+    cod: NaiveDate,
+    fuel: &FuelSpec,
+) -> Read<Candidate> {
     let provisional = format!("candidate[#{}]", index + 1);
     let NodeValue::Table(entries) = &node.value else {
         return Err(type_error(
@@ -160,23 +170,20 @@ fn read_candidate(ctx: &mut Context, node: &Node, index: usize, cod: NaiveDate) 
         "expected the rated net output, e.g. \"45 MW\"",
     )?;
     let gas_model = read_gas_model(ctx, &r)?;
-    let pressure_ratio = r.required_quantity(
-        ctx,
-        "pressure_ratio",
-        units::number,
-        "expected the compressor pressure ratio, e.g. 18",
-    )?;
-    let turbine_inlet_temperature_k = r.required_quantity(
-        ctx,
-        "turbine_inlet_temperature",
-        units::temperature_k,
-        "expected a temperature, e.g. \"1450 K\"",
-    )?;
-    let efficiency = "expected an efficiency such as \"88 %\" or 0.88";
-    let compressor_efficiency =
-        r.required_quantity(ctx, "compressor_efficiency", units::fraction, efficiency)?;
-    let turbine_efficiency =
-        r.required_quantity(ctx, "turbine_efficiency", units::fraction, efficiency)?;
+    // The four component keys: all given (the stated machine), or none
+    // with a datasheet in [candidate.rating] (the machine fitted to it,
+    // `candidate_fit.rs`); checked once the rating is read.
+    let pressure_ratio = r.quantity(ctx, "pressure_ratio", units::number)?;
+    let turbine_inlet_temperature_k =
+        r.quantity(ctx, "turbine_inlet_temperature", units::temperature_k)?;
+    let compressor_efficiency = r.quantity(ctx, "compressor_efficiency", units::fraction)?;
+    let turbine_efficiency = r.quantity(ctx, "turbine_efficiency", units::fraction)?;
+    let stated = [
+        pressure_ratio,
+        turbine_inlet_temperature_k,
+        compressor_efficiency,
+        turbine_efficiency,
+    ];
     let efficiency_basis = match r.choice(
         ctx,
         "efficiency_basis",
@@ -209,10 +216,10 @@ fn read_candidate(ctx: &mut Context, node: &Node, index: usize, cod: NaiveDate) 
         capital_cost,
         net_output_kw,
         gas_model,
-        pressure_ratio,
-        turbine_inlet_temperature_k,
-        compressor_efficiency,
-        turbine_efficiency,
+        pressure_ratio: pressure_ratio.unwrap_or(f64::NAN),
+        turbine_inlet_temperature_k: turbine_inlet_temperature_k.unwrap_or(f64::NAN),
+        compressor_efficiency: compressor_efficiency.unwrap_or(f64::NAN),
+        turbine_efficiency: turbine_efficiency.unwrap_or(f64::NAN),
         efficiency_basis,
         inlet_pressure_loss,
         exhaust_pressure_loss,
@@ -235,11 +242,37 @@ fn read_candidate(ctx: &mut Context, node: &Node, index: usize, cod: NaiveDate) 
             datasheet: None,
         },
         control: ControlSpec::default(),
+        part_load: Vec::new(),
+        ambient_correction: Vec::new(),
+        fitted: None,
         costs,
         guarantee,
     };
     read_rating(ctx, &r, &mut candidate)?;
     read_control(ctx, &r, &mut candidate)?;
+    candidate.part_load = read_part_load(ctx, &r)?;
+    candidate.ambient_correction =
+        read_ambient_correction(ctx, &r, candidate.rating.temperature_k)?;
+    if stated.iter().all(Option::is_none) && candidate.rating.datasheet.is_some() {
+        fit_unstated(ctx, &r, &mut candidate, fuel)?;
+    } else if let Some(i) = stated.iter().position(Option::is_none) {
+        let examples = [
+            "the compressor pressure ratio, e.g. 18",
+            "a temperature, e.g. \"1450 K\"",
+            "an efficiency such as \"88 %\" or 0.88",
+            "an efficiency such as \"88 %\" or 0.88",
+        ];
+        return Err(r.missing(
+            ctx,
+            COMPONENT_KEYS[i],
+            &format!(
+                "expected {}; the four component keys go together, or all four are left \
+                 out and the vendor's heat_rate, exhaust_flow and exhaust_temperature in \
+                 [candidate.rating] fit them",
+                examples[i]
+            ),
+        ));
+    }
     Ok(candidate)
 }
 

@@ -129,6 +129,7 @@ pub fn parse(text: &str, file_label: &str) -> Result<LoadedScenario, ScenarioErr
         &mut ctx,
         section("candidate"),
         economics.commercial_operation,
+        &fuel,
     )?;
     let mut scenario = Scenario {
         meta,

@@ -9,6 +9,8 @@
 mod candidate;
 mod candidate_control;
 mod candidate_costs;
+mod candidate_curves;
+mod candidate_fit;
 mod candidate_guarantee;
 mod candidate_reader;
 mod context;
@@ -35,6 +37,7 @@ mod values;
 mod warnings;
 
 pub use candidate_control::{ControlSpec, ControlStrategy};
+pub use candidate_fit::{solver_fuel, FittedMachine};
 pub use context::{AppliedDefault, InputLine};
 pub use correlation::{drawn_keys, target_of, RankPair};
 pub use declare::{

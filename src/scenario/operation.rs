@@ -1,5 +1,7 @@
-//! The `[operation]` section: hours per year, a dispatch profile and the
-//! part-load heat-rate curve.
+//! The `[operation]` section: hours per year and a dispatch profile. The
+//! part-load heat-rate curve is a bid's own (`part_load` on each
+//! `[[candidate]]`); the retired `[operation] part_load` is refused with a
+//! message saying where it moved.
 
 use super::context::Context;
 use super::declare::{keys_in, Key, Presence, SetResult, Shape};
@@ -7,7 +9,7 @@ use super::error::ScenarioError;
 use super::ranges::{Range, HOURS_PER_LEAP_YEAR};
 use super::reader::{type_error, TableReader};
 use super::tree::{Node, NodeValue};
-use super::types::{DispatchBlock, Operation, PartLoadPoint, Scenario};
+use super::types::{DispatchBlock, Operation, Scenario};
 use super::values::checked;
 use crate::units::{self, Kind};
 
@@ -40,7 +42,6 @@ pub(crate) const KEYS: &[Key<Scenario>] = &[
     )
     .within(0.0, HOURS_PER_LEAP_YEAR, "", "at most one start per hour of the year; a peaker starts a few hundred times a year (common practice)"),
     K::plain("operation.dispatch", Shape::Array, Presence::Optional { text: "every hour at full load" }, "`[{ load = \"100 %\", hours = 2000 }, { load = \"75 %\", hours = 1000 }]`; loads in (0, 100 %], hours ≥ 0, total ≤ 8784. With `hours_per_year` too, the total must equal it"),
-    K::plain("operation.part_load", Shape::Array, Presence::Optional { text: "none" }, "`[{ load = \"75 %\", heat_rate_ratio = 1.07 }, …]`: heat rate at that load ÷ full-load heat rate. Loads strictly ascending or descending; ratios ≥ 1 and not rising with load; exactly 1.0 at 100 % (added if absent). Optional: without it each candidate's own fixed machine gives its part-load heat rate (see `brayfin offdesign`); with it, the table is a stated vendor curve applied to each candidate's base-load heat rate at the site, and must reach down to the lowest dispatch load (no extrapolation)"),
 ];
 
 /// Scale every dispatch block so the hours sum to `hours`.
@@ -57,6 +58,7 @@ fn set_hours_per_year(s: &mut Scenario, hours: f64) -> SetResult {
 
 /// Read `[operation]`.
 pub(crate) fn read_operation(ctx: &mut Context, node: &Node) -> Read<Operation> {
+    refuse_retired_part_load(ctx, node)?;
     let r = TableReader::new(ctx, "operation", node, &keys_in(KEYS, "operation"))?;
     let hours = checked(
         ctx,
@@ -72,15 +74,7 @@ pub(crate) fn read_operation(ctx: &mut Context, node: &Node) -> Read<Operation> 
             hours,
         })
         .collect::<Vec<_>>();
-    let mut part_load = read_blocks(ctx, &r, "part_load", &["load", "heat_rate_ratio"])?
-        .into_iter()
-        .map(|(load_fraction, heat_rate_ratio)| PartLoadPoint {
-            load_fraction,
-            heat_rate_ratio,
-        })
-        .collect::<Vec<_>>();
     r.source_below(ctx, "dispatch");
-    r.source_below(ctx, "part_load");
     let total: f64 = dispatch.iter().map(|b| b.hours).sum();
     if total > HOURS_PER_LEAP_YEAR {
         return Err(r.error(
@@ -105,39 +99,14 @@ pub(crate) fn read_operation(ctx: &mut Context, node: &Node) -> Read<Operation> 
         }
     };
     let starts_per_year = r.declared_at(ctx, KEYS, "operation.starts_per_year")?;
-    check_part_load(ctx, &r, &mut part_load)?;
-    for (i, block) in dispatch.iter().enumerate() {
-        if block.load_fraction >= 1.0 {
-            continue;
-        }
-        let field = format!("operation.dispatch[{}].load", i + 1);
-        match part_load.first() {
-            // No table: each candidate's fixed machine gives its own part
-            // load (its control's minimum load is checked when solved).
-            None => {}
-            Some(lowest) if block.load_fraction < lowest.load_fraction => {
-                return Err(ctx.error_for(
-                    &field,
-                    format!(
-                        "{} is below the lowest part_load point ({}); brayfin does not extrapolate",
-                        block.load_fraction, lowest.load_fraction
-                    ),
-                    "expected a part_load table that reaches down to every dispatch load",
-                ))
-            }
-            _ => {}
-        }
-    }
     Ok(Operation {
         hours_per_year,
         starts_per_year,
         dispatch,
-        part_load,
     })
 }
 
-/// Read an array of small inline tables with a `load` and one other value
-/// (`hours` or `heat_rate_ratio`).
+/// Read an array of small inline tables with a `load` and its `hours`.
 fn read_blocks(
     ctx: &mut Context,
     r: &TableReader,
@@ -162,83 +131,30 @@ fn read_blocks(
         let b = TableReader::new(ctx, &path, item, keys)?;
         let load = checked(ctx, &b, "load", units::fraction, Range::Efficiency)?
             .ok_or_else(|| b.missing(ctx, "load", "expected a load fraction such as \"75 %\""))?;
-        let second = if keys[1] == "hours" {
-            checked(ctx, &b, "hours", units::duration_h, Range::NonNegative)?
-        } else {
-            checked(ctx, &b, keys[1], units::number, Range::Positive)?
-        }
-        .ok_or_else(|| b.missing(ctx, keys[1], "expected a value for each block"))?;
+        let second = checked(ctx, &b, "hours", units::duration_h, Range::NonNegative)?
+            .ok_or_else(|| b.missing(ctx, keys[1], "expected a value for each block"))?;
         blocks.push((load, second));
     }
     Ok(blocks)
 }
 
-/// The part-load curve: loads strictly monotone (either order), heat-rate
-/// ratio ≥ 1 and not rising with load, (1.0, 1.0) at full load. Sorted
-/// ascending on return; (1.0, 1.0) added (as a default) when absent.
-fn check_part_load(
-    ctx: &mut Context,
-    r: &TableReader,
-    points: &mut Vec<PartLoadPoint>,
-) -> Read<()> {
-    if points.is_empty() {
+/// `[operation] part_load` was the one part-load curve of every candidate;
+/// it is now each bid's own (`part_load` on its `[[candidate]]`, the
+/// vendor's curve). A file that still has it is refused at the key, saying
+/// what to move where.
+fn refuse_retired_part_load(ctx: &Context, node: &Node) -> Read<()> {
+    let NodeValue::Table(entries) = &node.value else {
         return Ok(());
-    }
-    let field = |i: usize, key: &str| format!("operation.part_load[{}].{key}", i + 1);
-    let ascending = points.len() < 2 || points[1].load_fraction > points[0].load_fraction;
-    for i in 1..points.len() {
-        let (a, b) = (points[i - 1].load_fraction, points[i].load_fraction);
-        if (ascending && b <= a) || (!ascending && b >= a) {
-            return Err(ctx.error_for(
-                &field(i, "load"),
-                format!("{b} breaks the order of the loads before it"),
-                "expected loads strictly ascending or strictly descending, each load once",
-            ));
-        }
-    }
-    for (i, p) in points.iter().enumerate() {
-        if p.heat_rate_ratio < 1.0 {
-            return Err(ctx.error_for(
-                &field(i, "heat_rate_ratio"),
-                format!(
-                    "{} is below 1: a heat rate better than at full load",
-                    p.heat_rate_ratio
-                ),
-                "expected heat-rate ratios of 1 or more (1.0 at full load)",
-            ));
-        }
-        if p.load_fraction == 1.0 && p.heat_rate_ratio != 1.0 {
-            return Err(ctx.error_for(
-                &field(i, "heat_rate_ratio"),
-                format!("{} at full load", p.heat_rate_ratio),
-                "expected exactly 1.0 at load 100 %: the ratio is relative to the full-load heat rate",
-            ));
-        }
-    }
-    if !ascending {
-        points.reverse();
-    }
-    if points.last().is_some_and(|p| p.load_fraction < 1.0) {
-        r.default(ctx, "part_load", "includes load 100 %, heat_rate_ratio 1.0");
-        points.push(PartLoadPoint {
-            load_fraction: 1.0,
-            heat_rate_ratio: 1.0,
-        });
-    }
-    for pair in points.windows(2) {
-        if pair[1].heat_rate_ratio > pair[0].heat_rate_ratio {
-            return Err(ctx.error_for(
-                "operation.part_load",
-                format!(
-                    "the heat-rate ratio rises from {} at load {} to {} at load {}",
-                    pair[0].heat_rate_ratio,
-                    pair[0].load_fraction,
-                    pair[1].heat_rate_ratio,
-                    pair[1].load_fraction
-                ),
-                "expected the heat-rate ratio to fall (or stay) as load rises",
-            ));
-        }
-    }
-    Ok(())
+    };
+    let Some(entry) = entries.iter().find(|e| e.key == "part_load") else {
+        return Ok(());
+    };
+    Err(ctx.error_at_offset(
+        entry.key_span.start,
+        "operation.part_load",
+        "is retired: a part-load curve is now each bid's own (the vendor's curve)",
+        "move the array, unchanged, to `part_load = [...]` in the [[candidate]] table of each \
+         bid whose vendor states it (as candidate.part_load) and delete it from [operation]; \
+         a bid without one is priced from its own machine's part-load physics",
+    ))
 }

@@ -11,6 +11,7 @@ pub use super::candidate::{
     Candidate, CandidateCosts, EfficiencyBasis, GasModelSpec, HeatRateBasisSpec, IntercoolerSpec,
     RatingCondition, RatingFigures, RegeneratorSpec, ReheatSpec, ResidualValue,
 };
+pub use super::candidate_curves::AmbientCorrectionSpec;
 pub use super::candidate_guarantee::{CandidateGuarantee, HeatRateDamages, ToleranceReading};
 pub use super::uncertainty::{Distribution, UncertainInput};
 use rust_decimal::Decimal;
@@ -235,12 +236,13 @@ pub struct DispatchBlock {
     pub hours: f64,
 }
 
-/// One point of the part-load heat-rate curve.
+/// One point of a vendor's part-load heat-rate curve (`part_load` on a
+/// `[[candidate]]`).
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct PartLoadPoint {
-    /// Load as a fraction of rated net output, in (0, 1].
+    /// Load as a fraction of base-load net output, in (0, 1].
     pub load_fraction: f64,
-    /// Heat rate at this load divided by the full-load heat rate (≥ 1).
+    /// Heat rate at this load divided by the base-load heat rate (≥ 1).
     pub heat_rate_ratio: f64,
 }
 
@@ -254,7 +256,4 @@ pub struct Operation {
     pub starts_per_year: f64,
     /// Dispatch profile; empty means every hour at full load.
     pub dispatch: Vec<DispatchBlock>,
-    /// Part-load curve sorted by ascending load, ending at (1.0, 1.0); empty
-    /// when every hour is at full load.
-    pub part_load: Vec<PartLoadPoint>,
 }

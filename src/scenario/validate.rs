@@ -91,6 +91,24 @@ pub(crate) fn cross_check(scenario: &Scenario) -> Result<(), Violation> {
     let ambient_k = scenario.site.ambient_temperature_k;
     for c in &scenario.candidates {
         let at = |key: &str| format!("candidate[{}].{key}", c.id);
+        if let Some(lowest) = c.part_load.first() {
+            if let Some(block) = operation
+                .dispatch
+                .iter()
+                .find(|b| b.load_fraction < lowest.load_fraction)
+            {
+                return Err(violation(
+                    at("part_load"),
+                    format!(
+                        "reaches down to load {}, but operation.dispatch has a block at load {}; \
+                         brayfin does not extrapolate a vendor's curve",
+                        lowest.load_fraction, block.load_fraction
+                    ),
+                    "expected a part_load curve that reaches down to every dispatch load (or no \
+                     part_load, to price part load from the machine's physics)",
+                ));
+            }
+        }
         if c.turbine_inlet_temperature_k <= ambient_k {
             return Err(violation(
                 at("turbine_inlet_temperature"),

@@ -163,7 +163,9 @@ fn candidate_warnings(scenario: &Scenario, c: &Candidate, w: &mut Vec<String>) {
     .into_iter()
     .filter_map(|(k, is_ideal)| is_ideal.then_some(k))
     .collect();
-    if !ideal.is_empty() {
+    // A machine fitted to its datasheet reproduces the vendor's heat rate
+    // whatever losses it assumes (its assumptions are stated with the fit).
+    if !ideal.is_empty() && c.fitted.is_none() {
         w.push(format!(
             "candidate[{}]: ideal (lossless) values for {}: the heat rate will be optimistic",
             c.id,

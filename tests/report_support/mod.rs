@@ -407,6 +407,7 @@ pub fn model(with_sensitivity: bool, with_risk: bool) -> Model {
         }],
         warnings: vec!["Turbine inlet temperature of Bid C is above 1600 K; check the vendor's cooling assumptions.".into()],
         information: Vec::new(),
+        pricing: Vec::new(),
         method: MethodView {
             gas_models: vec!["products".into()],
             rate_basis: "real".into(),

@@ -50,12 +50,10 @@ pub(super) fn operation(dst: &mut Operation, src: &Operation) {
         hours_per_year,
         starts_per_year,
         dispatch,
-        part_load,
     } = src;
     dst.hours_per_year = *hours_per_year;
     dst.starts_per_year = *starts_per_year;
     dst.dispatch.clone_from(dispatch);
-    dst.part_load.clone_from(part_load);
 }
 
 fn costs(dst: &mut CandidateCosts, src: &CandidateCosts) {
@@ -121,6 +119,9 @@ pub(super) fn candidate(dst: &mut Candidate, src: &Candidate) {
         turbine_cooling,
         rating,
         control,
+        part_load,
+        ambient_correction,
+        fitted,
         costs: src_costs,
         guarantee,
     } = src;
@@ -147,6 +148,9 @@ pub(super) fn candidate(dst: &mut Candidate, src: &Candidate) {
     dst.turbine_cooling = *turbine_cooling;
     dst.rating = *rating;
     dst.control = *control;
+    dst.part_load.clone_from(part_load);
+    dst.ambient_correction.clone_from(ambient_correction);
+    dst.fitted.clone_from(fitted);
     costs(&mut dst.costs, src_costs);
     dst.guarantee = *guarantee;
 }
@@ -167,7 +171,7 @@ mod tests {
             ("fuel.price", 9.0),
             ("operation.hours_per_year", 1234.0),
             ("site.ambient_temperature", 300.0),
-            ("candidate.turbine_efficiency", 0.8),
+            ("candidate[premium].turbine_efficiency", 0.8),
             ("candidate.costs.fixed_om", 20.0),
         ] {
             assert!(changed.set_numeric(key, value).is_ok(), "{key}");

@@ -224,4 +224,5 @@ labels! {
     site_profile_note,
     site_part_load_table_note,
     site_not_fixed,
+    pricing,
 }

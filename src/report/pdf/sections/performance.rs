@@ -302,4 +302,10 @@ pub fn performance(ctx: &Ctx, composer: &mut Composer) {
         );
     }
     implied_table(ctx, composer);
+    if !ctx.model.pricing.is_empty() {
+        composer.heading(&ctx.labels.pricing, 2, 30.0);
+        for line in &ctx.model.pricing {
+            composer.bullet(&pdf_units(line.clone()), 8.0);
+        }
+    }
 }

@@ -140,7 +140,9 @@ struct CachedCycle {
     fuel_is_base: bool,
     rating: RatingCondition,
     control: ControlSpec,
-    dispatch_loads: Vec<f64>,
+    /// The year's conditions (temperature, humidity, load) and the
+    /// capacity temperature the site performance was solved for.
+    year_key: (Vec<(f64, f64, f64)>, Option<f64>),
     part_load: Vec<PartLoadPoint>,
     site: SitePerformance,
 }
@@ -164,12 +166,20 @@ impl CachedCycle {
             && self.rating == candidate.rating
             && self.control == candidate.control
             && self.part_load == scenario.operation.part_load
-            && self.dispatch_loads.iter().copied().eq(scenario
-                .operation
-                .dispatch
-                .iter()
-                .map(|b| b.load_fraction))
+            && self.year_key == year_key(scenario)
     }
+}
+
+/// What a site performance depends on beyond the candidate's physics: the
+/// year's conditions and the capacity temperature.
+fn year_key(scenario: &Scenario) -> (Vec<(f64, f64, f64)>, Option<f64>) {
+    (
+        super::operation::conditions(scenario)
+            .iter()
+            .map(|c| (c.temperature_k, c.relative_humidity, c.load_fraction))
+            .collect(),
+        scenario.economics.capacity_temperature_k,
+    )
 }
 
 /// One worker's scratch copy of the scenario and its cycle cache.
@@ -310,12 +320,7 @@ impl<'s> PointModel<'s> {
                 fuel_is_base,
                 rating: candidate.rating,
                 control: candidate.control,
-                dispatch_loads: scenario
-                    .operation
-                    .dispatch
-                    .iter()
-                    .map(|b| b.load_fraction)
-                    .collect(),
+                year_key: year_key(scenario),
                 part_load: scenario.operation.part_load.clone(),
                 site,
             });
@@ -324,7 +329,7 @@ impl<'s> PointModel<'s> {
             scenario,
             ws.cycles
                 .iter()
-                .map(|c| c.as_ref().map_or(0.0, |c| c.site.net_output_kw)),
+                .map(|c| c.as_ref().map(|c| &c.site)),
         );
         for (i, candidate) in scenario.candidates.iter().enumerate() {
             if !self.evaluated[i] {
@@ -345,7 +350,7 @@ impl<'s> PointModel<'s> {
                 candidate,
                 fuel,
                 site.rated_heat_rate_kj_per_kwh,
-                (&year, site.net_output_kw),
+                (&year, site.capacity_output_kw),
                 &reference,
             )
             .map_err(ledger_error)?;

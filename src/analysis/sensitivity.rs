@@ -147,14 +147,14 @@ pub fn net_savings(scenario: &Scenario, baseline: &str) -> Option<Vec<(String, D
         .iter()
         .map(|c| solve(scenario, c, &fuel).ok())
         .collect::<Option<Vec<_>>>()?;
-    let reference = output_reference_of(scenario, solved_all.iter().map(|s| s.site.net_output_kw));
+    let reference = output_reference_of(scenario, solved_all.iter().map(|s| Some(&s.site)));
     let mut summaries = Vec::with_capacity(scenario.candidates.len());
     for (candidate, solved) in scenario.candidates.iter().zip(&solved_all) {
         let inputs = ledger_inputs(
             scenario,
             candidate,
             &fuel,
-            (&solved.year, solved.site.net_output_kw),
+            (&solved.year, solved.site.capacity_output_kw),
             &reference,
         )
         .ok()?;

@@ -1,25 +1,53 @@
-//! What each candidate makes at the site: its fixed machine
-//! ([`super::machine::machine_of`]) solved at the site's ambient, base load
-//! and every dispatch load. This is what `compare`, `report`, `sweep` and
-//! `risk` price.
+//! What each candidate makes at the site over its year: its fixed machine
+//! ([`super::machine::machine_of`]) solved at the site's reference ambient
+//! (base load: the site figures), at the capacity temperature, and at
+//! every operating condition of the year ([`super::operation::conditions`]).
+//! This is what `compare`, `report`, `sweep` and `risk` price.
 //!
-//! - Base load: `machine.solve(site_ambient, Load::BASE)` gives the net
-//!   output and heat rate at the site.
-//! - Dispatch blocks: each block's load is a fraction of that site output.
-//!   With the scenario's `[operation] part_load` table, the block's heat rate
-//!   is the table's ratio times the site base-load heat rate (a stated
-//!   vendor curve); without it, the machine's own part-load physics at that
-//!   load give the ratio.
+//! - One function gives a candidate's performance at any ambient and load:
+//!   [`SiteModel::performance_at`] (base-load output available there and
+//!   the heat rate at that load). Vendor curves slot in as another
+//!   [`SiteModel`] variant.
+//! - Part load: with the scenario's `[operation] part_load` table, the heat
+//!   rate is the table's ratio times the base-load heat rate at that
+//!   ambient (a stated vendor curve); without it, the machine's own
+//!   part-load physics.
+//! - The year: when the conditions hold at most [`EXACT_CONDITIONS`]
+//!   distinct (temperature, humidity, load) triples (dispatch blocks,
+//!   monthly bins) each is solved exactly. Otherwise (an hourly year) the
+//!   machine is solved on a grid and interpolated ([`YearGrid`]):
+//!   temperatures every [`GRID_STEP_K`] K over the year's range, humidity
+//!   at the year's lowest and highest, base load bilinear in (temperature,
+//!   humidity); the part-load heat-rate ratio bilinear in (temperature,
+//!   load) at the part-load hours' mean humidity. The error against exact
+//!   solves is measured in `tests/site_year.rs`.
 //! - Intercooled and reheat candidates, which the fixed-machine model does
 //!   not cover, keep their rated output and the design-point heat rate at
-//!   the site (the "rubber engine"), with an information note.
+//!   the site at every ambient (the "rubber engine"), with an information
+//!   note.
 
-use super::machine::{machine_of, site_ambient};
-use super::operation::heat_rate_ratio;
+use super::machine::{humidity_for, machine_of, site_ambient};
+use super::operation::{conditions, heat_rate_ratio, Condition, ConditionPerformance};
 use crate::cycle::CycleResult;
 use crate::fuel::Fuel;
-use crate::offdesign::{Load, OffDesignError, OffDesignPoint};
-use crate::scenario::{Candidate, Operation, Scenario};
+use crate::offdesign::{Ambient, Load, Machine, OffDesignError, OffDesignPoint};
+use crate::scenario::{Candidate, PartLoadPoint, Scenario};
+use std::sync::Arc;
+
+/// At most this many distinct conditions are each solved exactly; more
+/// (an hourly year) go through [`YearGrid`].
+pub const EXACT_CONDITIONS: usize = 64;
+
+/// Temperature spacing of the year grid, K (at most; the range is split
+/// evenly).
+pub const GRID_STEP_K: f64 = 2.5;
+
+/// Load spacing of the year grid when the year has more than
+/// [`GRID_EXACT_LOADS`] distinct part loads (fraction).
+pub const GRID_LOAD_STEP: f64 = 0.05;
+
+/// Up to this many distinct part loads are grid nodes themselves.
+pub const GRID_EXACT_LOADS: usize = 12;
 
 /// How a candidate's site performance was found.
 #[derive(Debug, Clone, PartialEq)]
@@ -41,9 +69,14 @@ pub struct SitePerformance {
     /// Net heat rate at the rating condition, kJ (LHV) per kWh: what a
     /// guarantee defaults to (the acceptance test corrects to the rating).
     pub rated_heat_rate_kj_per_kwh: f64,
-    /// Heat rate of each dispatch block over the base-load heat rate, in
-    /// the order of `[operation] dispatch` (empty without a profile).
-    pub block_ratios: Vec<f64>,
+    /// Base-load net output at the capacity temperature
+    /// (`economics.capacity_temperature`; without it, `net_output_kw`), kW:
+    /// the capacity credited.
+    pub capacity_output_kw: f64,
+    /// Performance in each operating condition of the year, in the order
+    /// of [`super::operation::conditions`] of the scenario it was solved
+    /// for.
+    pub points: Arc<Vec<ConditionPerformance>>,
     /// Where the figures come from.
     pub basis: Basis,
 }
@@ -88,13 +121,323 @@ fn arrangement_refused(e: &OffDesignError) -> bool {
     )
 }
 
-/// The per-block heat-rate ratios from the scenario's part-load table.
-fn table_ratios(operation: &Operation) -> Vec<f64> {
-    operation
-        .dispatch
-        .iter()
-        .map(|b| heat_rate_ratio(&operation.part_load, b.load_fraction))
+/// A candidate's performance at any ambient and load: the one function
+/// the year is built from.
+#[derive(Debug)]
+pub enum SiteModel<'a> {
+    /// Its fixed machine; part load from its physics, or from the
+    /// scenario's part-load table when given (ratio × base-load heat rate
+    /// at that ambient).
+    Machine {
+        /// The calibrated machine.
+        machine: Box<Machine>,
+        /// The scenario's part-load table (empty: the machine's physics).
+        part_load: &'a [PartLoadPoint],
+    },
+    /// Its rated output and design-point heat rate at every ambient, part
+    /// load from the scenario's table.
+    Rated {
+        /// Rated net output, kW.
+        net_output_kw: f64,
+        /// Design-point heat rate at the site, kJ/kWh.
+        heat_rate_kj_per_kwh: f64,
+        /// The scenario's part-load table.
+        part_load: &'a [PartLoadPoint],
+    },
+}
+
+impl SiteModel<'_> {
+    /// Base-load net output (kW) and heat rate (kJ/kWh) at `ambient`.
+    pub fn base_at(&self, ambient: Ambient) -> Result<(f64, f64), OffDesignError> {
+        match self {
+            SiteModel::Machine { machine, .. } => machine
+                .solve(ambient, Load::BASE)
+                .map(|p| (p.net_output_kw, p.heat_rate_kj_per_kwh)),
+            SiteModel::Rated {
+                net_output_kw,
+                heat_rate_kj_per_kwh,
+                ..
+            } => Ok((*net_output_kw, *heat_rate_kj_per_kwh)),
+        }
+    }
+
+    /// Heat rate at `load` over the base-load heat rate `base_heat_rate`,
+    /// both at `ambient`.
+    pub fn heat_rate_ratio_at(
+        &self,
+        ambient: Ambient,
+        load: f64,
+        base_heat_rate: f64,
+    ) -> Result<f64, OffDesignError> {
+        if load >= 1.0 {
+            return Ok(1.0);
+        }
+        match self {
+            SiteModel::Machine { machine, part_load } if part_load.is_empty() => machine
+                .solve(ambient, Load(load))
+                .map(|p| p.heat_rate_kj_per_kwh / base_heat_rate),
+            SiteModel::Machine { part_load, .. } | SiteModel::Rated { part_load, .. } => {
+                Ok(heat_rate_ratio(part_load, load))
+            }
+        }
+    }
+
+    /// Performance at `ambient` and `load` (fraction of the base load
+    /// there): the base-load output available and the heat rate at that
+    /// load.
+    pub fn performance_at(
+        &self,
+        ambient: Ambient,
+        load: f64,
+    ) -> Result<ConditionPerformance, OffDesignError> {
+        let (available_kw, base_hr) = self.base_at(ambient)?;
+        let ratio = self.heat_rate_ratio_at(ambient, load, base_hr)?;
+        Ok(ConditionPerformance {
+            available_kw,
+            heat_rate_kj_per_kwh: base_hr * ratio,
+        })
+    }
+
+    /// Whether a point costs no solve (no grid needed).
+    fn is_closed_form(&self) -> bool {
+        match self {
+            SiteModel::Rated { .. } => true,
+            SiteModel::Machine { .. } => false,
+        }
+    }
+}
+
+/// A refusal in one condition: the off-design error and the load.
+type PointError = (OffDesignError, Option<f64>);
+
+/// The ambient of a condition for `candidate` (dry for a cold-air one).
+fn ambient_of(candidate: &Candidate, pressure_kpa: f64, c: &Condition) -> Ambient {
+    Ambient {
+        temperature_k: c.temperature_k,
+        pressure_kpa,
+        relative_humidity: humidity_for(candidate, c.relative_humidity),
+    }
+}
+
+/// Each condition solved exactly (equal conditions once).
+pub fn exact_points(
+    model: &SiteModel,
+    candidate: &Candidate,
+    pressure_kpa: f64,
+    conditions: &[Condition],
+) -> Result<Vec<ConditionPerformance>, PointError> {
+    let mut done: Vec<((u64, u64, u64), ConditionPerformance)> = Vec::new();
+    let mut out = Vec::with_capacity(conditions.len());
+    for c in conditions {
+        let key = (
+            c.temperature_k.to_bits(),
+            c.relative_humidity.to_bits(),
+            c.load_fraction.to_bits(),
+        );
+        if let Some((_, p)) = done.iter().find(|(k, _)| *k == key) {
+            out.push(*p);
+            continue;
+        }
+        let load = (c.load_fraction < 1.0).then_some(c.load_fraction);
+        let p = model
+            .performance_at(ambient_of(candidate, pressure_kpa, c), c.load_fraction)
+            .map_err(|e| (e, load))?;
+        done.push((key, p));
+        out.push(p);
+    }
+    Ok(out)
+}
+
+/// Evenly spaced nodes from `low` to `high`, at most `step` apart (one
+/// node when the range is empty).
+fn nodes(low: f64, high: f64, step: f64) -> Vec<f64> {
+    if high - low <= 1e-9 {
+        return vec![low];
+    }
+    let n = ((high - low) / step).ceil().max(1.0) as usize;
+    (0..=n)
+        .map(|i| low + (high - low) * i as f64 / n as f64)
         .collect()
+}
+
+/// Index of the cell holding `x` in sorted `nodes` and the fraction across
+/// it (clamped to the ends).
+fn cell(nodes: &[f64], x: f64) -> (usize, f64) {
+    if nodes.len() < 2 {
+        return (0, 0.0);
+    }
+    let i = nodes
+        .partition_point(|&n| n <= x)
+        .saturating_sub(1)
+        .min(nodes.len() - 2);
+    let t = ((x - nodes[i]) / (nodes[i + 1] - nodes[i])).clamp(0.0, 1.0);
+    (i, t)
+}
+
+/// Bilinear interpolation in a row-major table `values[i * cols + j]`.
+fn bilinear(values: &[f64], cols: usize, (i, ti): (usize, f64), (j, tj): (usize, f64)) -> f64 {
+    let at = |a: usize, b: usize| {
+        let a = a.min(values.len() / cols.max(1) - 1);
+        let b = b.min(cols - 1);
+        values[a * cols + b]
+    };
+    let (i1, j1) = (if ti > 0.0 { i + 1 } else { i }, if tj > 0.0 { j + 1 } else { j });
+    let top = at(i, j) * (1.0 - tj) + at(i, j1) * tj;
+    let bottom = at(i1, j) * (1.0 - tj) + at(i1, j1) * tj;
+    top * (1.0 - ti) + bottom * ti
+}
+
+/// A candidate solved on a grid over the year's conditions: base-load
+/// output and heat rate on temperature × humidity, the part-load
+/// heat-rate ratio on temperature × load.
+#[derive(Debug, Clone, PartialEq)]
+pub struct YearGrid {
+    /// Temperature nodes, K.
+    pub temperatures_k: Vec<f64>,
+    /// Humidity nodes (fraction).
+    pub humidities: Vec<f64>,
+    /// Load nodes (fraction, ascending, ending at 1).
+    pub loads: Vec<f64>,
+    base_kw: Vec<f64>,
+    base_hr: Vec<f64>,
+    ratio: Vec<f64>,
+    /// Machine solves the grid took.
+    pub solves: usize,
+}
+
+impl YearGrid {
+    /// Solve `model` on the grid spanning `conditions`.
+    pub fn build(
+        model: &SiteModel,
+        candidate: &Candidate,
+        pressure_kpa: f64,
+        conditions: &[Condition],
+    ) -> Result<YearGrid, PointError> {
+        let fold = |f: fn(f64, f64) -> f64, init: f64, g: fn(&Condition) -> f64| {
+            conditions.iter().map(g).fold(init, f)
+        };
+        let t_nodes = nodes(
+            fold(f64::min, f64::INFINITY, |c| c.temperature_k),
+            fold(f64::max, f64::NEG_INFINITY, |c| c.temperature_k),
+            GRID_STEP_K,
+        );
+        let rh_low = fold(f64::min, f64::INFINITY, |c| c.relative_humidity);
+        let rh_high = fold(f64::max, f64::NEG_INFINITY, |c| c.relative_humidity);
+        let rh_nodes = nodes(rh_low, rh_high, f64::INFINITY);
+        let mut part: Vec<f64> = conditions
+            .iter()
+            .map(|c| c.load_fraction)
+            .filter(|&l| l < 1.0)
+            .collect();
+        part.sort_by(f64::total_cmp);
+        part.dedup();
+        let mut loads = if part.len() <= GRID_EXACT_LOADS {
+            part.clone()
+        } else {
+            nodes(part[0], 1.0, GRID_LOAD_STEP)
+        };
+        if loads.last().is_none_or(|&l| l < 1.0) {
+            loads.push(1.0);
+        }
+        let (hours, rh_sum) = conditions
+            .iter()
+            .filter(|c| c.load_fraction < 1.0)
+            .fold((0.0, 0.0), |(h, s), c| (h + c.hours, s + c.hours * c.relative_humidity));
+        let rh_part = if hours > 0.0 { rh_sum / hours } else { rh_low };
+        let mut solves = 0;
+        let mut base_kw = Vec::with_capacity(t_nodes.len() * rh_nodes.len());
+        let mut base_hr = Vec::with_capacity(base_kw.capacity());
+        let ambient = |t: f64, rh: f64| Ambient {
+            temperature_k: t,
+            pressure_kpa,
+            relative_humidity: humidity_for(candidate, rh),
+        };
+        for &t in &t_nodes {
+            for &rh in &rh_nodes {
+                let (kw, hr) = model.base_at(ambient(t, rh)).map_err(|e| (e, None))?;
+                solves += 1;
+                base_kw.push(kw);
+                base_hr.push(hr);
+            }
+        }
+        let mut ratio = Vec::with_capacity(t_nodes.len() * loads.len());
+        for &t in &t_nodes {
+            let a = ambient(t, rh_part);
+            let needs_base = loads.iter().any(|&l| l < 1.0);
+            let base = if needs_base {
+                solves += 1;
+                model.base_at(a).map_err(|e| (e, None))?.1
+            } else {
+                f64::NAN
+            };
+            for &l in &loads {
+                if l < 1.0 {
+                    solves += 1;
+                }
+                ratio.push(model.heat_rate_ratio_at(a, l, base).map_err(|e| (e, Some(l)))?);
+            }
+        }
+        Ok(YearGrid {
+            temperatures_k: t_nodes,
+            humidities: rh_nodes,
+            loads,
+            base_kw,
+            base_hr,
+            ratio,
+            solves,
+        })
+    }
+
+    /// The interpolated performance in condition `c`.
+    pub fn at(&self, c: &Condition) -> ConditionPerformance {
+        let ct = cell(&self.temperatures_k, c.temperature_k);
+        let ch = cell(&self.humidities, c.relative_humidity);
+        let cl = cell(&self.loads, c.load_fraction);
+        let cols = self.humidities.len();
+        let kw = bilinear(&self.base_kw, cols, ct, ch);
+        let hr = bilinear(&self.base_hr, cols, ct, ch);
+        let ratio = if c.load_fraction >= 1.0 {
+            1.0
+        } else {
+            bilinear(&self.ratio, self.loads.len(), ct, cl)
+        };
+        ConditionPerformance {
+            available_kw: kw,
+            heat_rate_kj_per_kwh: hr * ratio,
+        }
+    }
+}
+
+/// How many distinct (temperature, humidity, load) conditions there are.
+fn distinct(conditions: &[Condition]) -> usize {
+    let mut keys: Vec<(u64, u64, u64)> = conditions
+        .iter()
+        .map(|c| {
+            (
+                c.temperature_k.to_bits(),
+                c.relative_humidity.to_bits(),
+                c.load_fraction.to_bits(),
+            )
+        })
+        .collect();
+    keys.sort_unstable();
+    keys.dedup();
+    keys.len()
+}
+
+/// The performance of `model` in every condition: exact solves for few
+/// distinct conditions (or a model without solves), the grid otherwise.
+pub fn year_points(
+    model: &SiteModel,
+    candidate: &Candidate,
+    pressure_kpa: f64,
+    conditions: &[Condition],
+) -> Result<Vec<ConditionPerformance>, PointError> {
+    if model.is_closed_form() || distinct(conditions) <= EXACT_CONDITIONS {
+        return exact_points(model, candidate, pressure_kpa, conditions);
+    }
+    let grid = YearGrid::build(model, candidate, pressure_kpa, conditions)?;
+    Ok(conditions.iter().map(|c| grid.at(c)).collect())
 }
 
 /// A candidate's performance at the scenario's site. `rated` is its design
@@ -112,36 +455,81 @@ pub fn site_performance(
     })
 }
 
+/// The site figures, capacity and year of `model`.
+fn perform(
+    scenario: &Scenario,
+    candidate: &Candidate,
+    model: &SiteModel,
+    rated_heat_rate_kj_per_kwh: f64,
+    base_point: OffDesignPoint,
+) -> Result<SitePerformance, PointError> {
+    let site = &scenario.site;
+    let ambient = site_ambient(candidate, site);
+    let base = (base_point.net_output_kw, base_point.heat_rate_kj_per_kwh);
+    let capacity_output_kw = match scenario.economics.capacity_temperature_k {
+        Some(t) => {
+            model
+                .base_at(Ambient {
+                    temperature_k: t,
+                    ..ambient
+                })
+                .map_err(|e| (e, None))?
+                .0
+        }
+        None => base.0,
+    };
+    let points = year_points(model, candidate, site.ambient_pressure_kpa, &conditions(scenario))?;
+    Ok(SitePerformance {
+        net_output_kw: base.0,
+        heat_rate_kj_per_kwh: base.1,
+        rated_heat_rate_kj_per_kwh,
+        capacity_output_kw,
+        points: Arc::new(points),
+        basis: Basis::Machine(Box::new(base_point)),
+    })
+}
+
 /// The performance of a candidate the fixed-machine model refuses for its
 /// arrangement (`reason`): its rated output, the design-point heat rate at
 /// the site `rated_heat_rate_kj_per_kwh`, part load from the scenario's
-/// table.
+/// table, at every ambient of the year.
 pub fn rated_site(
     scenario: &Scenario,
     candidate: &Candidate,
     rated_heat_rate_kj_per_kwh: f64,
     reason: String,
 ) -> SitePerformance {
+    let points: Vec<ConditionPerformance> = conditions(scenario)
+        .iter()
+        .map(|c| ConditionPerformance {
+            available_kw: candidate.net_output_kw,
+            heat_rate_kj_per_kwh: rated_heat_rate_kj_per_kwh
+                * heat_rate_ratio(&scenario.operation.part_load, c.load_fraction),
+        })
+        .collect();
     SitePerformance {
         net_output_kw: candidate.net_output_kw,
         heat_rate_kj_per_kwh: rated_heat_rate_kj_per_kwh,
         rated_heat_rate_kj_per_kwh,
-        block_ratios: table_ratios(&scenario.operation),
+        capacity_output_kw: candidate.net_output_kw,
+        points: Arc::new(points),
         basis: Basis::Rated(reason),
     }
 }
 
-/// A candidate's fixed machine at the site: `Ok(Ok(site))`; `Ok(Err(reason))`
-/// when the model refuses the candidate's arrangement (intercooler, reheat:
-/// price it with [`rated_site`]); `Err` when the machine cannot be built or
-/// cannot run at the site or a dispatch load. Needs no design solve at the
-/// site: the calibration at the rating is the machine's own.
+/// A candidate's fixed machine at the site and over its year:
+/// `Ok(Ok(site))`; `Ok(Err(reason))` when the model refuses the
+/// candidate's arrangement (intercooler, reheat: price it with
+/// [`rated_site`]); `Err` when the machine cannot be built or cannot run
+/// at the site, the capacity temperature or a condition of the year.
+/// Needs no design solve at the site: the calibration at the rating is the
+/// machine's own.
 pub fn fixed_machine_site(
     scenario: &Scenario,
     candidate: &Candidate,
     fuel: &Fuel,
 ) -> Result<Result<SitePerformance, String>, SiteError> {
-    let located = |error: OffDesignError, load: Option<f64>| SiteError {
+    let located = |(error, load): PointError| SiteError {
         candidate: candidate.id.clone(),
         error: Box::new(error),
         load,
@@ -149,37 +537,19 @@ pub fn fixed_machine_site(
     let machine = match machine_of(candidate, &scenario.site, fuel) {
         Ok(m) => m,
         Err(e) if arrangement_refused(&e) => return Ok(Err(e.to_string())),
-        Err(e) => return Err(located(e, None)),
+        Err(e) => return Err(located((e, None))),
     };
-    let ambient = site_ambient(candidate, &scenario.site);
+    let rated = machine.rating_point().heat_rate_kj_per_kwh;
     let base = machine
-        .solve(ambient, Load::BASE)
-        .map_err(|e| located(e, None))?;
-    let operation = &scenario.operation;
-    let block_ratios = if operation.part_load.is_empty() {
-        operation
-            .dispatch
-            .iter()
-            .map(|b| {
-                if b.load_fraction >= 1.0 {
-                    return Ok(1.0);
-                }
-                machine
-                    .solve(ambient, Load(b.load_fraction))
-                    .map(|p| p.heat_rate_kj_per_kwh / base.heat_rate_kj_per_kwh)
-                    .map_err(|e| located(e, Some(b.load_fraction)))
-            })
-            .collect::<Result<Vec<_>, _>>()?
-    } else {
-        table_ratios(operation)
+        .solve(site_ambient(candidate, &scenario.site), Load::BASE)
+        .map_err(|e| located((e, None)))?;
+    let model = SiteModel::Machine {
+        machine: Box::new(machine),
+        part_load: &scenario.operation.part_load,
     };
-    Ok(Ok(SitePerformance {
-        net_output_kw: base.net_output_kw,
-        heat_rate_kj_per_kwh: base.heat_rate_kj_per_kwh,
-        rated_heat_rate_kj_per_kwh: machine.rating_point().heat_rate_kj_per_kwh,
-        block_ratios,
-        basis: Basis::Machine(Box::new(base)),
-    }))
+    perform(scenario, candidate, &model, rated, base)
+        .map(Ok)
+        .map_err(located)
 }
 
 /// Information lines for `check` and the report: how the site performance
@@ -187,11 +557,9 @@ pub fn fixed_machine_site(
 /// rating).
 pub fn pricing_notes(scenario: &Scenario, sites: &[SitePerformance]) -> Vec<String> {
     let mut notes = Vec::new();
-    let has_part_load = scenario
-        .operation
-        .dispatch
-        .iter()
-        .any(|b| b.load_fraction < 1.0);
+    let conditions = conditions(scenario);
+    let has_part_load = conditions.iter().any(|c| c.load_fraction < 1.0);
+    notes.extend(year_notes(scenario, &conditions));
     if has_part_load && !scenario.operation.part_load.is_empty() {
         notes.push(
             "operation.part_load is applied as a stated vendor curve to each candidate's \
@@ -208,6 +576,75 @@ pub fn pricing_notes(scenario: &Scenario, sites: &[SitePerformance]) -> Vec<Stri
                 candidate.id, candidate.net_output_kw
             ));
         }
+    }
+    notes
+}
+
+/// How the year is built, for `check`: the weather and profile records and
+/// how they scale to a year, how dispatch blocks spread over the weather,
+/// whether the year is solved exactly or on the grid, and where capacity
+/// is credited.
+pub fn year_notes(scenario: &Scenario, conditions: &[Condition]) -> Vec<String> {
+    let mut notes = Vec::new();
+    let op = &scenario.operation;
+    let weather = scenario.site.weather.as_deref();
+    if let Some(w) = weather {
+        let hours: f64 = w.records.iter().map(|r| r.hours).sum();
+        let what = match &w.source {
+            crate::scenario::WeatherSource::Hourly(file) => format!(
+                "site.weather: {} hourly rows from {file}, each counted as 8760 / {} = {:.4} h",
+                w.records.len(),
+                w.records.len(),
+                crate::scenario::HOURS_PER_YEAR / w.records.len().max(1) as f64
+            ),
+            crate::scenario::WeatherSource::Bins => {
+                format!("site.weather: {} bins, {hours} h in all", w.records.len())
+            }
+        };
+        notes.push(format!(
+            "{what}; hour-weighted mean dry bulb {:.1} K",
+            w.mean_temperature_k()
+        ));
+    }
+    if let Some(p) = &op.profile {
+        notes.push(format!(
+            "operation.profile: {} rows from {}, {} with load above 0; each row counts 8760 / {} h, \
+             so {:.1} run hours a year (energy and fuel scale alike){}",
+            p.hours.len(),
+            p.file,
+            p.hours.iter().filter(|h| h.load_fraction > 0.0).count(),
+            p.hours.len(),
+            op.hours_per_year,
+            if weather.is_some() {
+                "; each hour at the weather of the same timestamp"
+            } else {
+                "; every hour at the site's ambient (no site.weather)"
+            }
+        ));
+    } else if weather.is_some() {
+        let spread = op.dispatch.iter().any(|b| b.ambient_temperature_k.is_none());
+        if op.dispatch.is_empty() || spread {
+            notes.push(
+                "dispatch hours without their own ambient_temperature (or hours_per_year at full \
+                 load) are spread over the weather's records in proportion to each record's hours"
+                    .to_string(),
+            );
+        }
+    }
+    let distinct = distinct(conditions);
+    if distinct > EXACT_CONDITIONS {
+        notes.push(format!(
+            "the year has {distinct} distinct operating conditions: each fixed machine is solved \
+             on a grid (temperature every {GRID_STEP_K} K or less, humidity at the year's lowest \
+             and highest, part loads as listed or every {GRID_LOAD_STEP}) and interpolated"
+        ));
+    }
+    if let Some(t) = scenario.economics.capacity_temperature_k {
+        notes.push(format!(
+            "economics.capacity_temperature: capacity credited at each candidate's base-load \
+             output at {t:.2} K ({:.1} degC)",
+            t - 273.15
+        ));
     }
     notes
 }

@@ -14,12 +14,14 @@ pub(super) fn site(dst: &mut Site, src: &Site) {
         ambient_pressure_kpa,
         elevation_m,
         relative_humidity,
+        weather,
     } = src;
     dst.name.clone_from(name);
     dst.ambient_temperature_k = *ambient_temperature_k;
     dst.ambient_pressure_kpa = *ambient_pressure_kpa;
     dst.relative_humidity = *relative_humidity;
     dst.elevation_m = *elevation_m;
+    dst.weather.clone_from(weather);
 }
 
 /// `dst` becomes equal to `src`.
@@ -50,10 +52,12 @@ pub(super) fn operation(dst: &mut Operation, src: &Operation) {
         hours_per_year,
         dispatch,
         part_load,
+        profile,
     } = src;
     dst.hours_per_year = *hours_per_year;
     dst.dispatch.clone_from(dispatch);
     dst.part_load.clone_from(part_load);
+    dst.profile.clone_from(profile);
 }
 
 fn costs(dst: &mut CandidateCosts, src: &CandidateCosts) {

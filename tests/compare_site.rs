@@ -16,7 +16,7 @@ use brayfin::analysis::site::Basis;
 use brayfin::scenario::parse;
 use serde_json::Value;
 
-const DEMO: &str = "scenarios/corvel-bay-peaker.toml";
+const DEMO: &str = "tests/fixtures/corvel-bay-blocks.toml";
 
 fn demo_text() -> String {
     std::fs::read_to_string(DEMO).expect("the demo scenario is readable")

@@ -10,7 +10,7 @@ use std::path::Path;
 
 #[test]
 fn key_inputs_are_the_recommended_bids_largest_one_sided_changes() {
-    let loaded = brayfin::scenario::load(Path::new("scenarios/corvel-bay-peaker.toml"))
+    let loaded = brayfin::scenario::load(Path::new("tests/fixtures/corvel-bay-blocks.toml"))
         .expect("demo scenario loads");
     let model = build_model(
         &loaded,

@@ -569,6 +569,26 @@ pub fn pricing_notes(scenario: &Scenario, sites: &[SitePerformance]) -> Vec<Stri
         );
     }
     for (candidate, site) in scenario.candidates.iter().zip(sites) {
+        let year = super::operation::year_from(&conditions, &site.points);
+        let capacity_at = match scenario.economics.capacity_temperature_k {
+            Some(t) => format!("{t:.2} K"),
+            None => "the site's ambient".to_string(),
+        };
+        notes.push(format!(
+            "candidate[{}]: its year at the site, new and clean: {:.1} run hours, {:.0} MWh, \
+             {:.0} GJ fuel (LHV), mean heat rate {:.0} kJ/kWh; capacity credited {:.0} kW \
+             (base load at {capacity_at})",
+            candidate.id,
+            year.operating_hours,
+            year.energy_mwh,
+            year.fuel_energy_gj_lhv,
+            if year.energy_mwh > 0.0 {
+                year.fuel_energy_gj_lhv * 1000.0 / year.energy_mwh
+            } else {
+                0.0
+            },
+            site.capacity_output_kw,
+        ));
         if let Basis::Rated(reason) = &site.basis {
             notes.push(format!(
                 "candidate[{}]: priced at its rated output ({:.0} kW) and its design-point heat \

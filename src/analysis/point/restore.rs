@@ -143,7 +143,7 @@ mod tests {
 
     #[test]
     fn restored_sections_equal_the_base() {
-        let text = include_str!("../../../scenarios/corvel-bay-peaker.toml");
+        let text = include_str!("../../../tests/fixtures/corvel-bay-blocks.toml");
         let Ok(loaded) = parse(text, "demo.toml") else {
             panic!("the demo must load");
         };

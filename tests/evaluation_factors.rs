@@ -74,7 +74,9 @@ fn full_load_heat_rate_factor_is_the_weighted_one_times_the_mean_part_load_ratio
         let e = &c["economics"];
         let ratio = e["dispatch_heat_rate_ratio"].as_f64().unwrap();
         let p = &c["performance"];
-        let mean = p["site_year"]["mean_heat_rate_kj_per_kwh"].as_f64().unwrap();
+        let mean = p["site_year"]["mean_heat_rate_kj_per_kwh"]
+            .as_f64()
+            .unwrap();
         let site = p["heat_rate_kj_per_kwh"].as_f64().unwrap();
         assert!((ratio - mean / site).abs() < 1e-9, "{}: {ratio}", c["id"]);
         assert!((ratio - 1.0).abs() < 0.01, "{}: {ratio}", c["id"]);

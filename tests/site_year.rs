@@ -124,7 +124,13 @@ fn binned_and_hourly_weather_agree() {
     let hourly_site = "weather = \"data/corvel-bay-weather.csv\"";
     let operation = "hours_per_year = \"8760 h\"";
     let hourly = load_in(&kestrel_with(hourly_site, operation), &data);
-    let records = &hourly.scenario.site.weather.as_ref().expect("weather").records;
+    let records = &hourly
+        .scenario
+        .site
+        .weather
+        .as_ref()
+        .expect("weather")
+        .records;
     // Group by 1 K classes: hour-weighted mean temperature and humidity.
     let mut classes: std::collections::BTreeMap<i64, (f64, f64, f64)> = Default::default();
     for r in records {
@@ -152,7 +158,10 @@ fn binned_and_hourly_weather_agree() {
     for (x, y) in a.outcomes.iter().zip(&b.outcomes) {
         let de = x.solved.year.energy_mwh / y.solved.year.energy_mwh - 1.0;
         let df = x.solved.year.fuel_energy_gj_lhv / y.solved.year.fuel_energy_gj_lhv - 1.0;
-        println!("hourly vs {} bins: energy {de:+.2e}, fuel {df:+.2e}", bins.len());
+        println!(
+            "hourly vs {} bins: energy {de:+.2e}, fuel {df:+.2e}",
+            bins.len()
+        );
         assert!(de.abs() < 1e-3 && df.abs() < 1e-3, "energy {de}, fuel {df}");
         assert!((x.solved.year.operating_hours - 8760.0).abs() < 1e-6);
     }
@@ -188,7 +197,11 @@ fn the_year_grid_matches_exact_solves() {
             "{}: grid vs exact energy {de:+.2e}, fuel {df:+.2e}, worst hour heat rate {worst_hr:.2e}",
             candidate.id
         );
-        assert!(de.abs() < 5e-4 && df.abs() < 5e-4, "{}: {de} {df}", candidate.id);
+        assert!(
+            de.abs() < 5e-4 && df.abs() < 5e-4,
+            "{}: {de} {df}",
+            candidate.id
+        );
         assert!(worst_hr < 5e-3, "{}: {worst_hr}", candidate.id);
     }
 }
@@ -242,7 +255,8 @@ fn capacity_is_credited_at_the_capacity_temperature() {
     {
         let cap = o.solved.site.capacity_output_kw;
         assert!(cap < cool.solved.site.capacity_output_kw, "{}", c.id);
-        let machine = machine_of(c, &loaded_hot.scenario.site, &fuel_of(&loaded_hot)).expect("machine");
+        let machine =
+            machine_of(c, &loaded_hot.scenario.site, &fuel_of(&loaded_hot)).expect("machine");
         let own = machine
             .solve(
                 Ambient {

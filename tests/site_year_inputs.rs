@@ -102,7 +102,10 @@ fn refused(files: &[(&str, &str)], site: &str, op: &str, located: &str, says: &s
 #[test]
 fn a_good_weather_and_profile_pass_check() {
     let (code, err, _dir) = check(
-        &[("w.csv", &weather_rows(48)), ("p.csv", &profile_rows(48, false))],
+        &[
+            ("w.csv", &weather_rows(48)),
+            ("p.csv", &profile_rows(48, false)),
+        ],
         &kestrel_with(WEATHER_SITE, PROFILE_OP),
     );
     assert_eq!(code, 0, "{err}");
@@ -111,7 +114,13 @@ fn a_good_weather_and_profile_pass_check() {
 #[test]
 fn a_missing_column_is_located_at_the_header() {
     let text = weather_rows(24).replace(",rh_pct", ",humidity");
-    refused(&[("w.csv", &text)], WEATHER_SITE, "hours_per_year = \"1000 h\"", "w.csv:1:", "no `rh_pct` column");
+    refused(
+        &[("w.csv", &text)],
+        WEATHER_SITE,
+        "hours_per_year = \"1000 h\"",
+        "w.csv:1:",
+        "no `rh_pct` column",
+    );
 }
 
 #[test]
@@ -119,7 +128,13 @@ fn two_temperature_columns_are_refused() {
     let text = weather_rows(3)
         .replace("rh_pct\n", "rh_pct,dry_bulb_degF\n")
         .replace(",55\n", ",55,70\n");
-    refused(&[("w.csv", &text)], WEATHER_SITE, "hours_per_year = \"1000 h\"", "w.csv:1:4", "more than one temperature column");
+    refused(
+        &[("w.csv", &text)],
+        WEATHER_SITE,
+        "hours_per_year = \"1000 h\"",
+        "w.csv:1:4",
+        "more than one temperature column",
+    );
 }
 
 #[test]
@@ -127,38 +142,77 @@ fn an_unparsable_value_is_located_at_its_line_and_column() {
     let mut lines: Vec<String> = weather_rows(24).lines().map(str::to_string).collect();
     lines[3] = "2025-06-01T02:00,warm,55".into();
     let text = lines.join("\n") + "\n";
-    refused(&[("w.csv", &text)], WEATHER_SITE, "hours_per_year = \"1000 h\"", "w.csv:4:2", "\"warm\" is not a number");
+    refused(
+        &[("w.csv", &text)],
+        WEATHER_SITE,
+        "hours_per_year = \"1000 h\"",
+        "w.csv:4:2",
+        "\"warm\" is not a number",
+    );
 }
 
 #[test]
 fn a_bad_timestamp_and_a_gap_are_located() {
     let mut lines: Vec<String> = weather_rows(24).lines().map(str::to_string).collect();
     lines[5] = lines[5].replacen("2025-06-01T04:00", "June 1st", 1);
-    refused(&[("w.csv", &(lines.join("\n") + "\n"))], WEATHER_SITE, "hours_per_year = \"1000 h\"", "w.csv:6:1", "not a timestamp");
+    refused(
+        &[("w.csv", &(lines.join("\n") + "\n"))],
+        WEATHER_SITE,
+        "hours_per_year = \"1000 h\"",
+        "w.csv:6:1",
+        "not a timestamp",
+    );
     let mut lines: Vec<String> = weather_rows(24).lines().map(str::to_string).collect();
     lines.remove(7);
-    refused(&[("w.csv", &(lines.join("\n") + "\n"))], WEATHER_SITE, "hours_per_year = \"1000 h\"", "w.csv:8:1", "by one hour");
+    refused(
+        &[("w.csv", &(lines.join("\n") + "\n"))],
+        WEATHER_SITE,
+        "hours_per_year = \"1000 h\"",
+        "w.csv:8:1",
+        "by one hour",
+    );
 }
 
 #[test]
 fn a_malformed_row_is_located() {
     let mut lines: Vec<String> = weather_rows(24).lines().map(str::to_string).collect();
     lines[4].push_str(",7");
-    refused(&[("w.csv", &(lines.join("\n") + "\n"))], WEATHER_SITE, "hours_per_year = \"1000 h\"", "w.csv:5:", "the row has 4 fields, the header 3");
+    refused(
+        &[("w.csv", &(lines.join("\n") + "\n"))],
+        WEATHER_SITE,
+        "hours_per_year = \"1000 h\"",
+        "w.csv:5:",
+        "the row has 4 fields, the header 3",
+    );
 }
 
 #[test]
 fn out_of_range_values_are_refused() {
     let text = weather_rows(24).replacen(",55\n", ",140\n", 1);
-    refused(&[("w.csv", &text)], WEATHER_SITE, "hours_per_year = \"1000 h\"", "w.csv:2:3", "not a relative humidity");
+    refused(
+        &[("w.csv", &text)],
+        WEATHER_SITE,
+        "hours_per_year = \"1000 h\"",
+        "w.csv:2:3",
+        "not a relative humidity",
+    );
     let profile = profile_rows(24, false).replacen("T12:00,100", "T12:00,130", 1);
-    refused(&[("w.csv", &weather_rows(24)), ("p.csv", &profile)], WEATHER_SITE, PROFILE_OP, "p.csv:14:2", "not a load");
+    refused(
+        &[("w.csv", &weather_rows(24)), ("p.csv", &profile)],
+        WEATHER_SITE,
+        PROFILE_OP,
+        "p.csv:14:2",
+        "not a load",
+    );
 }
 
 #[test]
 fn a_profile_longer_than_the_weather_is_refused_at_its_first_hour_without_weather() {
     refused(
-        &[("w.csv", &weather_rows(48)), ("p.csv", &profile_rows(72, false))],
+        &[
+            ("w.csv", &weather_rows(48)),
+            ("p.csv", &profile_rows(72, false)),
+        ],
         WEATHER_SITE,
         PROFILE_OP,
         "p.csv:50:1",
@@ -182,7 +236,13 @@ fn a_profile_cannot_go_with_bins_or_dispatch_and_a_missing_file_is_located() {
         "operation.dispatch",
         "together with profile",
     );
-    refused(&[], WEATHER_SITE, "hours_per_year = \"1000 h\"", "site.weather", "cannot read w.csv");
+    refused(
+        &[],
+        WEATHER_SITE,
+        "hours_per_year = \"1000 h\"",
+        "site.weather",
+        "cannot read w.csv",
+    );
 }
 
 /// Two days: the profile's 20 run hours a day count 8760 / 48 h each; the
@@ -225,7 +285,12 @@ fn an_hourly_profile_scales_to_a_year_and_prices_the_shortfall_by_the_hour() {
             value += gap * c.energy_price_per_mwh.expect("priced");
         }
         let expected = value / short;
-        let price: f64 = replacement.energy_price.price.to_string().parse().expect("price");
+        let price: f64 = replacement
+            .energy_price
+            .price
+            .to_string()
+            .parse()
+            .expect("price");
         assert!((price - expected).abs() < 1e-5, "{price} vs {expected}");
         // Prices run from 40 to 85 per MWh over the run hours.
         assert!((40.0..=85.0).contains(&price));

@@ -463,7 +463,12 @@ fn a_huge_vary_key_or_value_is_quoted_short() {
     ] {
         let out = assert_cmd::Command::cargo_bin("brayfin")
             .unwrap()
-            .args(["sweep", "tests/fixtures/corvel-bay-blocks.toml", "--vary", &vary])
+            .args([
+                "sweep",
+                "tests/fixtures/corvel-bay-blocks.toml",
+                "--vary",
+                &vary,
+            ])
             .output()
             .unwrap();
         assert_eq!(out.status.code(), Some(1));

@@ -153,7 +153,11 @@ pub fn output_reference_of<'a>(
         reference.energy_mwh = reference.energy_mwh.max(energy);
         reference.net_output_kw = reference.net_output_kw.max(site.capacity_output_kw);
     }
-    let priced = scenario.operation.profile.as_ref().is_some_and(|p| p.has_prices());
+    let priced = scenario
+        .operation
+        .profile
+        .as_ref()
+        .is_some_and(|p| p.has_prices());
     let top = most.and_then(|(i, _)| sites[i]);
     if let (true, Some(top)) = (priced, top) {
         let top_energy = condition_energy_mwh(&conditions, &top.points);

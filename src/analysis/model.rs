@@ -320,7 +320,10 @@ fn candidate_view(
         gas_model: cycle.gas_model.to_string(),
         performance: PerformanceView {
             implied: implied.iter().find(|b| b.index == index).map(implied_view),
-            ..performance_view(&outcome.solved, loaded.scenario.economics.capacity_temperature_k)
+            ..performance_view(
+                &outcome.solved,
+                loaded.scenario.economics.capacity_temperature_k,
+            )
         },
         cycle: CycleView {
             states: cycle

@@ -100,7 +100,11 @@ pub fn conditions(scenario: &Scenario) -> Vec<Condition> {
     let site = &scenario.site;
     let mut out = Vec::new();
     if let Some(profile) = &operation.profile {
-        let run = profile.hours.iter().filter(|h| h.load_fraction > 0.0).count();
+        let run = profile
+            .hours
+            .iter()
+            .filter(|h| h.load_fraction > 0.0)
+            .count();
         if run == 0 {
             return out;
         }
@@ -169,10 +173,7 @@ pub fn year_from(conditions: &[Condition], points: &[ConditionPerformance]) -> A
 }
 
 /// Net energy of each condition, MWh per year (load · P_avail · h / 1000).
-pub fn condition_energy_mwh(
-    conditions: &[Condition],
-    points: &[ConditionPerformance],
-) -> Vec<f64> {
+pub fn condition_energy_mwh(conditions: &[Condition], points: &[ConditionPerformance]) -> Vec<f64> {
     conditions
         .iter()
         .zip(points)

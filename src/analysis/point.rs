@@ -142,7 +142,7 @@ struct CachedCycle {
     control: ControlSpec,
     /// The year's conditions (temperature, humidity, load) and the
     /// capacity temperature the site performance was solved for.
-    year_key: (Vec<(f64, f64, f64)>, Option<f64>),
+    year_key: YearKey,
     part_load: Vec<PartLoadPoint>,
     site: SitePerformance,
 }
@@ -156,6 +156,7 @@ impl CachedCycle {
         candidate: &Candidate,
         (config, detail, gas): (&EngineConfig, &cycle::Detail, &GasModel),
         fuel_is_base: bool,
+        year: &YearKey,
     ) -> bool {
         // Only solves with the scenario's own fuel are reused.
         fuel_is_base
@@ -166,13 +167,16 @@ impl CachedCycle {
             && self.rating == candidate.rating
             && self.control == candidate.control
             && self.part_load == scenario.operation.part_load
-            && self.year_key == year_key(scenario)
+            && self.year_key == *year
     }
 }
 
 /// What a site performance depends on beyond the candidate's physics: the
 /// year's conditions and the capacity temperature.
-fn year_key(scenario: &Scenario) -> (Vec<(f64, f64, f64)>, Option<f64>) {
+type YearKey = (Vec<(f64, f64, f64)>, Option<f64>);
+
+/// The [`YearKey`] of `scenario`.
+fn year_key(scenario: &Scenario) -> YearKey {
     (
         super::operation::conditions(scenario)
             .iter()
@@ -286,12 +290,19 @@ impl<'s> PointModel<'s> {
         };
         // Every candidate's site output sets the output reference, so each
         // is solved (or found in the cache), evaluated or not.
+        let year = year_key(scenario);
         for (i, candidate) in scenario.candidates.iter().enumerate() {
             let config = engine_config_of(candidate, &scenario.site);
             let detail = detail_of(candidate, &scenario.site);
             let gas = gas_model_of(&candidate.gas_model);
             let hit = ws.cycles[i].as_ref().is_some_and(|c| {
-                c.holds(scenario, candidate, (&config, &detail, &gas), fuel_is_base)
+                c.holds(
+                    scenario,
+                    candidate,
+                    (&config, &detail, &gas),
+                    fuel_is_base,
+                    &year,
+                )
             });
             if hit {
                 continue;
@@ -320,16 +331,14 @@ impl<'s> PointModel<'s> {
                 fuel_is_base,
                 rating: candidate.rating,
                 control: candidate.control,
-                year_key: year_key(scenario),
+                year_key: year.clone(),
                 part_load: scenario.operation.part_load.clone(),
                 site,
             });
         }
         let reference = output_reference_of(
             scenario,
-            ws.cycles
-                .iter()
-                .map(|c| c.as_ref().map(|c| &c.site)),
+            ws.cycles.iter().map(|c| c.as_ref().map(|c| &c.site)),
         );
         for (i, candidate) in scenario.candidates.iter().enumerate() {
             if !self.evaluated[i] {

@@ -173,7 +173,10 @@ impl SiteModel<'_> {
             return Ok(1.0);
         }
         match self {
-            SiteModel::Machine { machine, part_load } if part_load.is_empty() => machine
+            SiteModel::Machine {
+                machine,
+                part_load: [],
+            } => machine
                 .solve(ambient, Load(load))
                 .map(|p| p.heat_rate_kj_per_kwh / base_heat_rate),
             SiteModel::Machine { part_load, .. } | SiteModel::Rated { part_load, .. } => {
@@ -281,7 +284,10 @@ fn bilinear(values: &[f64], cols: usize, (i, ti): (usize, f64), (j, tj): (usize,
         let b = b.min(cols - 1);
         values[a * cols + b]
     };
-    let (i1, j1) = (if ti > 0.0 { i + 1 } else { i }, if tj > 0.0 { j + 1 } else { j });
+    let (i1, j1) = (
+        if ti > 0.0 { i + 1 } else { i },
+        if tj > 0.0 { j + 1 } else { j },
+    );
     let top = at(i, j) * (1.0 - tj) + at(i, j1) * tj;
     let bottom = at(i1, j) * (1.0 - tj) + at(i1, j1) * tj;
     top * (1.0 - ti) + bottom * ti
@@ -342,7 +348,9 @@ impl YearGrid {
         let (hours, rh_sum) = conditions
             .iter()
             .filter(|c| c.load_fraction < 1.0)
-            .fold((0.0, 0.0), |(h, s), c| (h + c.hours, s + c.hours * c.relative_humidity));
+            .fold((0.0, 0.0), |(h, s), c| {
+                (h + c.hours, s + c.hours * c.relative_humidity)
+            });
         let rh_part = if hours > 0.0 { rh_sum / hours } else { rh_low };
         let mut solves = 0;
         let mut base_kw = Vec::with_capacity(t_nodes.len() * rh_nodes.len());
@@ -374,7 +382,11 @@ impl YearGrid {
                 if l < 1.0 {
                     solves += 1;
                 }
-                ratio.push(model.heat_rate_ratio_at(a, l, base).map_err(|e| (e, Some(l)))?);
+                ratio.push(
+                    model
+                        .heat_rate_ratio_at(a, l, base)
+                        .map_err(|e| (e, Some(l)))?,
+                );
             }
         }
         Ok(YearGrid {
@@ -478,7 +490,12 @@ fn perform(
         }
         None => base.0,
     };
-    let points = year_points(model, candidate, site.ambient_pressure_kpa, &conditions(scenario))?;
+    let points = year_points(
+        model,
+        candidate,
+        site.ambient_pressure_kpa,
+        &conditions(scenario),
+    )?;
     Ok(SitePerformance {
         net_output_kw: base.0,
         heat_rate_kj_per_kwh: base.1,
@@ -642,7 +659,10 @@ pub fn year_notes(scenario: &Scenario, conditions: &[Condition]) -> Vec<String> 
             }
         ));
     } else if weather.is_some() {
-        let spread = op.dispatch.iter().any(|b| b.ambient_temperature_k.is_none());
+        let spread = op
+            .dispatch
+            .iter()
+            .any(|b| b.ambient_temperature_k.is_none());
         if op.dispatch.is_empty() || spread {
             notes.push(
                 "dispatch hours without their own ambient_temperature (or hours_per_year at full \

@@ -5,7 +5,8 @@ use super::context::Context;
 use super::declare::{keys_in, money_from_f64, money_to_f64, Key, Presence, Shape};
 use super::error::ScenarioError;
 use super::ranges::{
-    Range, AMBIENT_T_K, AMBIENT_T_REASON, PRICE_HIGH, PRICE_REASON, RATE_HIGH, RATE_LOW, RATE_REASON,
+    Range, AMBIENT_T_K, AMBIENT_T_REASON, PRICE_HIGH, PRICE_REASON, RATE_HIGH, RATE_LOW,
+    RATE_REASON,
 };
 use super::reader::TableReader;
 use super::tree::Node;

@@ -190,8 +190,13 @@ fn read_dispatch(ctx: &mut Context, r: &TableReader) -> Read<Vec<DispatchBlock>>
                 ));
             }
         }
-        let relative_humidity =
-            checked(ctx, &b, "relative_humidity", units::fraction, Range::Fraction)?;
+        let relative_humidity = checked(
+            ctx,
+            &b,
+            "relative_humidity",
+            units::fraction,
+            Range::Fraction,
+        )?;
         blocks.push(DispatchBlock {
             load_fraction,
             hours,

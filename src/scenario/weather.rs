@@ -181,9 +181,26 @@ fn read_bins(
     let mut records = Vec::with_capacity(items.len());
     for (i, item) in items.iter().enumerate() {
         let path = format!("{field}[{}]", i + 1);
-        let b = TableReader::new(ctx, &path, item, &["temperature", "relative_humidity", "hours"])?;
-        let temperature_k = checked(ctx, &b, "temperature", units::temperature_k, Range::Positive)?
-            .ok_or_else(|| b.missing(ctx, "temperature", "expected the bin's dry-bulb temperature, e.g. \"5 degC\""))?;
+        let b = TableReader::new(
+            ctx,
+            &path,
+            item,
+            &["temperature", "relative_humidity", "hours"],
+        )?;
+        let temperature_k = checked(
+            ctx,
+            &b,
+            "temperature",
+            units::temperature_k,
+            Range::Positive,
+        )?
+        .ok_or_else(|| {
+            b.missing(
+                ctx,
+                "temperature",
+                "expected the bin's dry-bulb temperature, e.g. \"5 degC\"",
+            )
+        })?;
         if !(AMBIENT_T_K.0..=AMBIENT_T_K.1).contains(&temperature_k) {
             return Err(b.error(
                 ctx,
@@ -192,11 +209,18 @@ fn read_bins(
                 format!("expected {} K to {} K", AMBIENT_T_K.0, AMBIENT_T_K.1),
             ));
         }
-        let relative_humidity =
-            checked(ctx, &b, "relative_humidity", units::fraction, Range::Fraction)?
-                .unwrap_or(default_rh);
-        let hours = checked(ctx, &b, "hours", units::duration_h, Range::NonNegative)?
-            .ok_or_else(|| b.missing(ctx, "hours", "expected the bin's hours per year, e.g. 744"))?;
+        let relative_humidity = checked(
+            ctx,
+            &b,
+            "relative_humidity",
+            units::fraction,
+            Range::Fraction,
+        )?
+        .unwrap_or(default_rh);
+        let hours =
+            checked(ctx, &b, "hours", units::duration_h, Range::NonNegative)?.ok_or_else(|| {
+                b.missing(ctx, "hours", "expected the bin's hours per year, e.g. 744")
+            })?;
         records.push(AmbientRecord {
             timestamp: None,
             temperature_k,
@@ -314,7 +338,9 @@ fn read_csv(ctx: &Context, key: &str, node: &Node, name: &str) -> Read<Table> {
 fn record_error(label: &str, e: csv::Error) -> ScenarioError {
     let line = e.position().map_or(1, |p| p.line());
     let (problem, valid) = match e.kind() {
-        csv::ErrorKind::UnequalLengths { expected_len, len, .. } => (
+        csv::ErrorKind::UnequalLengths {
+            expected_len, len, ..
+        } => (
             format!("the row has {len} fields, the header {expected_len}"),
             "expected every row to have one field per header column".to_string(),
         ),
@@ -322,7 +348,10 @@ fn record_error(label: &str, e: csv::Error) -> ScenarioError {
             format!("field {} is not UTF-8 text", err.field() + 1),
             "expected a CSV file saved as UTF-8".to_string(),
         ),
-        _ => (e.to_string(), "expected a comma-separated file with a header row".to_string()),
+        _ => (
+            e.to_string(),
+            "expected a comma-separated file with a header row".to_string(),
+        ),
     };
     let column = match e.kind() {
         csv::ErrorKind::Utf8 { err, .. } => err.field() + 1,
@@ -332,9 +361,14 @@ fn record_error(label: &str, e: csv::Error) -> ScenarioError {
 }
 
 fn parse_timestamp(text: &str) -> Option<NaiveDateTime> {
-    ["%Y-%m-%dT%H:%M", "%Y-%m-%d %H:%M", "%Y-%m-%dT%H:%M:%S", "%Y-%m-%d %H:%M:%S"]
-        .iter()
-        .find_map(|f| NaiveDateTime::parse_from_str(text, f).ok())
+    [
+        "%Y-%m-%dT%H:%M",
+        "%Y-%m-%d %H:%M",
+        "%Y-%m-%dT%H:%M:%S",
+        "%Y-%m-%d %H:%M:%S",
+    ]
+    .iter()
+    .find_map(|f| NaiveDateTime::parse_from_str(text, f).ok())
 }
 
 /// A column that must be present.
@@ -345,10 +379,7 @@ fn require(t: &Table, name: &str, expected: &str) -> Read<usize> {
             1,
             t.header.len() + 1,
             "CSV header",
-            format!(
-                "has no `{name}` column (columns: {})",
-                t.header.join(", ")
-            ),
+            format!("has no `{name}` column (columns: {})", t.header.join(", ")),
             expected.to_string(),
         )
     })
@@ -420,7 +451,10 @@ fn read_weather_csv(ctx: &mut Context, field: &str, node: &Node, name: &str) -> 
                 1,
                 t.header.len() + 1,
                 "CSV header",
-                format!("has no temperature column (columns: {})", t.header.join(", ")),
+                format!(
+                    "has no temperature column (columns: {})",
+                    t.header.join(", ")
+                ),
                 valid_header,
             ))
         }
@@ -488,7 +522,12 @@ pub(crate) fn read_profile(
     };
     let field = r.field("profile");
     let NodeValue::Str(name) = &node.value else {
-        return Err(type_error(ctx, &field, node, "a CSV file path, e.g. \"data/dispatch.csv\""));
+        return Err(type_error(
+            ctx,
+            &field,
+            node,
+            "a CSV file path, e.g. \"data/dispatch.csv\"",
+        ));
     };
     if let Some(Weather {
         source: WeatherSource::Bins,
@@ -503,7 +542,8 @@ pub(crate) fn read_profile(
         ));
     }
     let t = read_csv(ctx, &field, node, name)?;
-    let valid_header = "expected the columns timestamp and load_pct, and optionally energy_price_per_MWh";
+    let valid_header =
+        "expected the columns timestamp and load_pct, and optionally energy_price_per_MWh";
     let ts = require(&t, TIMESTAMP, valid_header)?;
     let lcol = require(&t, LOAD, valid_header)?;
     let pcol = t.column(PRICE);

@@ -16,10 +16,11 @@
 //!   distinct (temperature, humidity, load) triples (dispatch blocks,
 //!   monthly bins) each is solved exactly. Otherwise (an hourly year) the
 //!   machine is solved on a grid and interpolated ([`YearGrid`]):
-//!   temperatures every [`GRID_STEP_K`] K over the year's range, humidity
-//!   at the year's lowest and highest, base load bilinear in (temperature,
-//!   humidity); the part-load heat-rate ratio bilinear in (temperature,
-//!   load) at the part-load hours' mean humidity. The error against exact
+//!   base load on temperatures every [`GRID_STEP_K`] K (or less) over the
+//!   year's range × humidity at the year's lowest and highest, bilinear;
+//!   the part-load heat-rate ratio on temperatures every
+//!   [`GRID_RATIO_STEP_K`] K × loads, at the part-load hours' mean
+//!   humidity, bilinear in (temperature, load). The error against exact
 //!   solves is measured in `tests/site_year.rs`.
 //! - Intercooled and reheat candidates, which the fixed-machine model does
 //!   not cover, keep their rated output and the design-point heat rate at
@@ -40,7 +41,11 @@ pub const EXACT_CONDITIONS: usize = 64;
 
 /// Temperature spacing of the year grid, K (at most; the range is split
 /// evenly).
-pub const GRID_STEP_K: f64 = 2.5;
+pub const GRID_STEP_K: f64 = 5.0;
+
+/// Temperature spacing of the part-load ratio grid, K (at most): the
+/// ratio changes more slowly with ambient than the base load does.
+pub const GRID_RATIO_STEP_K: f64 = 10.0;
 
 /// Load spacing of the year grid when the year has more than
 /// [`GRID_EXACT_LOADS`] distinct part loads (fraction).
@@ -298,8 +303,10 @@ fn bilinear(values: &[f64], cols: usize, (i, ti): (usize, f64), (j, tj): (usize,
 /// heat-rate ratio on temperature × load.
 #[derive(Debug, Clone, PartialEq)]
 pub struct YearGrid {
-    /// Temperature nodes, K.
+    /// Temperature nodes of the base-load table, K.
     pub temperatures_k: Vec<f64>,
+    /// Temperature nodes of the part-load ratio table, K.
+    pub ratio_temperatures_k: Vec<f64>,
     /// Humidity nodes (fraction).
     pub humidities: Vec<f64>,
     /// Load nodes (fraction, ascending, ending at 1).
@@ -322,11 +329,10 @@ impl YearGrid {
         let fold = |f: fn(f64, f64) -> f64, init: f64, g: fn(&Condition) -> f64| {
             conditions.iter().map(g).fold(init, f)
         };
-        let t_nodes = nodes(
-            fold(f64::min, f64::INFINITY, |c| c.temperature_k),
-            fold(f64::max, f64::NEG_INFINITY, |c| c.temperature_k),
-            GRID_STEP_K,
-        );
+        let t_low = fold(f64::min, f64::INFINITY, |c| c.temperature_k);
+        let t_high = fold(f64::max, f64::NEG_INFINITY, |c| c.temperature_k);
+        let t_nodes = nodes(t_low, t_high, GRID_STEP_K);
+        let r_nodes = nodes(t_low, t_high, GRID_RATIO_STEP_K);
         let rh_low = fold(f64::min, f64::INFINITY, |c| c.relative_humidity);
         let rh_high = fold(f64::max, f64::NEG_INFINITY, |c| c.relative_humidity);
         let rh_nodes = nodes(rh_low, rh_high, f64::INFINITY);
@@ -368,8 +374,8 @@ impl YearGrid {
                 base_hr.push(hr);
             }
         }
-        let mut ratio = Vec::with_capacity(t_nodes.len() * loads.len());
-        for &t in &t_nodes {
+        let mut ratio = Vec::with_capacity(r_nodes.len() * loads.len());
+        for &t in &r_nodes {
             let a = ambient(t, rh_part);
             let needs_base = loads.iter().any(|&l| l < 1.0);
             let base = if needs_base {
@@ -391,6 +397,7 @@ impl YearGrid {
         }
         Ok(YearGrid {
             temperatures_k: t_nodes,
+            ratio_temperatures_k: r_nodes,
             humidities: rh_nodes,
             loads,
             base_kw,
@@ -411,7 +418,8 @@ impl YearGrid {
         let ratio = if c.load_fraction >= 1.0 {
             1.0
         } else {
-            bilinear(&self.ratio, self.loads.len(), ct, cl)
+            let cr = cell(&self.ratio_temperatures_k, c.temperature_k);
+            bilinear(&self.ratio, self.loads.len(), cr, cl)
         };
         ConditionPerformance {
             available_kw: kw,
@@ -675,8 +683,10 @@ pub fn year_notes(scenario: &Scenario, conditions: &[Condition]) -> Vec<String> 
     if distinct > EXACT_CONDITIONS {
         notes.push(format!(
             "the year has {distinct} distinct operating conditions: each fixed machine is solved \
-             on a grid (temperature every {GRID_STEP_K} K or less, humidity at the year's lowest \
-             and highest, part loads as listed or every {GRID_LOAD_STEP}) and interpolated"
+             on a grid (base load: temperature every {GRID_STEP_K} K or less × humidity at the \
+             year's lowest and highest; part-load heat-rate ratio: temperature every \
+             {GRID_RATIO_STEP_K} K or less × the part loads as listed, or every {GRID_LOAD_STEP}) \
+             and interpolated"
         ));
     }
     if let Some(t) = scenario.economics.capacity_temperature_k {

@@ -272,3 +272,56 @@ fn capacity_is_credited_at_the_capacity_temperature() {
         assert!((shortfall - (most - cap)).abs() < 1e-6, "{}", c.id);
     }
 }
+
+/// Sweep and risk points on the hourly demo (cached site years, the year's
+/// conditions built once per point) give the study's figures at the same
+/// inputs: the point cache must notice a changed capacity temperature,
+/// efficiency or hours, and reuse nothing stale.
+#[test]
+fn points_on_the_hourly_year_follow_the_study() {
+    use brayfin::analysis::point::{Figures, PointModel};
+    use brayfin::finance::Money;
+    let loaded = brayfin::scenario::load(&root().join(CORVEL)).expect("demo loads");
+    let base = run_study(&loaded).expect("study runs");
+    let keys = vec![
+        "economics.capacity_temperature".to_string(),
+        "candidate[premium].turbine_efficiency".to_string(),
+        "operation.hours_per_year".to_string(),
+        "fuel.price".to_string(),
+    ];
+    let model = PointModel::new(
+        &loaded.scenario,
+        base.fuel.clone(),
+        base.baseline_index,
+        keys.clone(),
+        vec![true; 3],
+    );
+    let mut workspace = model.workspace();
+    for values in [
+        [308.15, 0.90, 1354.0, 3.0],
+        [298.15, 0.90, 1354.0, 3.0],
+        [298.15, 0.91, 1354.0, 3.0],
+        [298.15, 0.91, 2000.0, 4.0],
+        [308.15, 0.90, 1354.0, 3.0],
+    ] {
+        let mut figures = vec![Figures::default(); 3];
+        if let Err(error) = model.evaluate(&mut workspace, &values, &mut figures) {
+            panic!("{values:?}: {error}");
+        }
+        let mut edited = loaded.clone();
+        for (key, value) in keys.iter().zip(values) {
+            if let Err(error) = edited.scenario.set_numeric(key, value) {
+                panic!("{key} = {value}: {error}");
+            }
+        }
+        let expected = run_study(&edited).expect("the edited study runs");
+        for (f, outcome) in figures.iter().zip(&expected.outcomes) {
+            let lcc = outcome.ledger.summary.lifecycle_cost.to_f64();
+            assert!(
+                (f.lifecycle_cost - lcc).abs() <= 0.01,
+                "{values:?}: {} vs {lcc}",
+                f.lifecycle_cost
+            );
+        }
+    }
+}

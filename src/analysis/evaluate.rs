@@ -136,7 +136,16 @@ pub fn output_reference_of<'a>(
     scenario: &Scenario,
     sites: impl IntoIterator<Item = Option<&'a SitePerformance>>,
 ) -> OutputReference {
-    let conditions = conditions(scenario);
+    output_reference_from(scenario, &conditions(scenario), sites)
+}
+
+/// [`output_reference_of`] with the scenario's year conditions already
+/// built ([`super::operation::conditions`]).
+pub fn output_reference_from<'a>(
+    scenario: &Scenario,
+    conditions: &[super::operation::Condition],
+    sites: impl IntoIterator<Item = Option<&'a SitePerformance>>,
+) -> OutputReference {
     let sites: Vec<_> = sites.into_iter().collect();
     let mut reference = OutputReference {
         energy_mwh: 0.0,
@@ -146,7 +155,7 @@ pub fn output_reference_of<'a>(
     let mut most: Option<(usize, f64)> = None;
     for (i, site) in sites.iter().enumerate() {
         let Some(site) = site else { continue };
-        let energy = year_from(&conditions, &site.points).energy_mwh;
+        let energy = year_from(conditions, &site.points).energy_mwh;
         if most.is_none_or(|(_, e)| energy > e) {
             most = Some((i, energy));
         }
@@ -160,10 +169,10 @@ pub fn output_reference_of<'a>(
         .is_some_and(|p| p.has_prices());
     let top = most.and_then(|(i, _)| sites[i]);
     if let (true, Some(top)) = (priced, top) {
-        let top_energy = condition_energy_mwh(&conditions, &top.points);
+        let top_energy = condition_energy_mwh(conditions, &top.points);
         for (candidate, site) in scenario.candidates.iter().zip(&sites) {
             let Some(site) = site else { continue };
-            let own = condition_energy_mwh(&conditions, &site.points);
+            let own = condition_energy_mwh(conditions, &site.points);
             let (mut short, mut value) = (0.0, 0.0);
             for ((c, r), e) in conditions.iter().zip(&top_energy).zip(&own) {
                 let gap = (r - e).max(0.0);

@@ -21,7 +21,7 @@ mod restore;
 
 use super::acceptance::contract_inputs;
 use super::engine::{detail_of, engine_config_of, fuel_of, gas_model_of};
-use super::evaluate::{output_reference_of, year_of};
+use super::evaluate::output_reference_from;
 use super::site::{fixed_machine_site, rated_site, SitePerformance};
 use crate::cycle::{self, EngineConfig, GasModel};
 use crate::finance::{compare_summaries, summarize_ledger, LedgerInputs, LedgerSummary};
@@ -173,15 +173,52 @@ impl CachedCycle {
 
 /// What a site performance depends on beyond the candidate's physics: the
 /// year's conditions and the capacity temperature.
-type YearKey = (Vec<(f64, f64, f64)>, Option<f64>);
+type YearKey = (
+    Vec<(f64, f64, f64, bool)>,
+    [usize; 2],
+    [f64; 3],
+    Option<f64>,
+);
 
-/// The [`YearKey`] of `scenario`.
+/// The [`YearKey`] of `scenario`, without building its conditions: the
+/// weather and profile (shared, so compared by address), the dispatch
+/// blocks (load, own ambient and humidity, whether they run), the site's
+/// ambient and humidity, and the capacity temperature. The hours do not
+/// move a condition's ambient or load.
 fn year_key(scenario: &Scenario) -> YearKey {
+    let site = &scenario.site;
+    let operation = &scenario.operation;
     (
-        super::operation::conditions(scenario)
+        operation
+            .dispatch
             .iter()
-            .map(|c| (c.temperature_k, c.relative_humidity, c.load_fraction))
+            .map(|b| {
+                (
+                    b.load_fraction,
+                    b.ambient_temperature_k.unwrap_or(f64::NAN),
+                    b.relative_humidity.unwrap_or(f64::NAN),
+                    b.hours > 0.0,
+                )
+            })
             .collect(),
+        [
+            site.weather
+                .as_ref()
+                .map_or(0, |w| std::sync::Arc::as_ptr(w) as usize),
+            operation
+                .profile
+                .as_ref()
+                .map_or(0, |p| std::sync::Arc::as_ptr(p) as usize),
+        ],
+        [
+            site.ambient_temperature_k,
+            site.relative_humidity,
+            if operation.dispatch.is_empty() && operation.hours_per_year > 0.0 {
+                1.0
+            } else {
+                0.0
+            },
+        ],
         scenario.economics.capacity_temperature_k,
     )
 }
@@ -336,8 +373,12 @@ impl<'s> PointModel<'s> {
                 site,
             });
         }
-        let reference = output_reference_of(
+        // The year's conditions once per point (an hourly year has
+        // thousands).
+        let conds = super::operation::conditions(scenario);
+        let reference = output_reference_from(
             scenario,
+            &conds,
             ws.cycles.iter().map(|c| c.as_ref().map(|c| &c.site)),
         );
         for (i, candidate) in scenario.candidates.iter().enumerate() {
@@ -349,7 +390,7 @@ impl<'s> PointModel<'s> {
             };
             let site = &cached.site;
             let heat_rate = site.heat_rate_kj_per_kwh;
-            let year = year_of(scenario, site);
+            let year = super::operation::year_from(&conds, &site.points);
             let ledger_error = |e: crate::finance::FinanceError| PointError::Ledger {
                 candidate: candidate.id.clone(),
                 message: e.to_string(),

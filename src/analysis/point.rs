@@ -174,7 +174,7 @@ impl CachedCycle {
 /// What a site performance depends on beyond the candidate's physics: the
 /// year's conditions and the capacity temperature.
 type YearKey = (
-    Vec<(f64, f64, f64, bool)>,
+    Vec<(f64, Option<f64>, Option<f64>, bool)>,
     [usize; 2],
     [f64; 3],
     Option<f64>,
@@ -195,8 +195,8 @@ fn year_key(scenario: &Scenario) -> YearKey {
             .map(|b| {
                 (
                     b.load_fraction,
-                    b.ambient_temperature_k.unwrap_or(f64::NAN),
-                    b.relative_humidity.unwrap_or(f64::NAN),
+                    b.ambient_temperature_k,
+                    b.relative_humidity,
                     b.hours > 0.0,
                 )
             })
@@ -230,6 +230,9 @@ pub struct Workspace {
     cycles: Vec<Option<CachedCycle>>,
     summaries: Vec<Option<LedgerSummary<f64>>>,
     ledgers: Vec<Option<(LedgerInputs<f64>, LedgerSummary<f64>)>>,
+    /// The year's conditions of the last point, with the key and the hours
+    /// per year they were built for.
+    conditions: Option<(YearKey, f64, Vec<super::operation::Condition>)>,
 }
 
 impl<'s> PointModel<'s> {
@@ -273,6 +276,7 @@ impl<'s> PointModel<'s> {
             cycles: vec![None; n],
             summaries: vec![None; n],
             ledgers: vec![None; n],
+            conditions: None,
         }
     }
 
@@ -373,9 +377,15 @@ impl<'s> PointModel<'s> {
                 site,
             });
         }
-        // The year's conditions once per point (an hourly year has
-        // thousands).
-        let conds = super::operation::conditions(scenario);
+        // The year's conditions (an hourly year has thousands), rebuilt only
+        // when the year or its hours change.
+        let hours = scenario.operation.hours_per_year;
+        let stale = !matches!(&ws.conditions, Some((k, h, _)) if *k == year && *h == hours);
+        if stale {
+            ws.conditions = Some((year, hours, super::operation::conditions(scenario)));
+        }
+        let conds: &[super::operation::Condition] =
+            ws.conditions.as_ref().map_or(&[], |c| c.2.as_slice());
         let reference = output_reference_from(
             scenario,
             &conds,

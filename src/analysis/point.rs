@@ -388,7 +388,7 @@ impl<'s> PointModel<'s> {
             ws.conditions.as_ref().map_or(&[], |c| c.2.as_slice());
         let reference = output_reference_from(
             scenario,
-            &conds,
+            conds,
             ws.cycles.iter().map(|c| c.as_ref().map(|c| &c.site)),
         );
         for (i, candidate) in scenario.candidates.iter().enumerate() {
@@ -400,7 +400,7 @@ impl<'s> PointModel<'s> {
             };
             let site = &cached.site;
             let heat_rate = site.heat_rate_kj_per_kwh;
-            let year = super::operation::year_from(&conds, &site.points);
+            let year = super::operation::year_from(conds, &site.points);
             let ledger_error = |e: crate::finance::FinanceError| PointError::Ledger {
                 candidate: candidate.id.clone(),
                 message: e.to_string(),

@@ -297,3 +297,15 @@ fn an_hourly_profile_scales_to_a_year_and_prices_the_shortfall_by_the_hour() {
         assert!((replacement.energy_mwh_per_year - (totals[top] - totals[i])).abs() < 1e-6);
     }
 }
+
+/// A spreadsheet export's byte-order mark before the header is not part of
+/// the first column's name.
+#[test]
+fn a_byte_order_mark_is_not_part_of_the_header() {
+    let text = format!("\u{feff}{}", weather_rows(24));
+    let (code, err, _dir) = check(
+        &[("w.csv", &text)],
+        &kestrel_with(WEATHER_SITE, "hours_per_year = \"1000 h\""),
+    );
+    assert_eq!(code, 0, "{err}");
+}

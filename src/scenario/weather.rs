@@ -305,7 +305,8 @@ fn read_csv(ctx: &Context, key: &str, node: &Node, name: &str) -> Read<Table> {
         .headers()
         .map_err(|e| record_error(&label, e))?
         .iter()
-        .map(str::to_string)
+        // A byte-order mark (spreadsheet exports) is not part of the name.
+        .map(|h| h.trim_start_matches('\u{feff}').to_string())
         .collect();
     let mut rows = Vec::new();
     for record in reader.records() {

@@ -11,7 +11,7 @@ use serde_json::Value;
 use std::str::FromStr;
 
 const DEMOS: [&str; 2] = [
-    "scenarios/corvel-bay-peaker.toml",
+    "tests/fixtures/corvel-bay-blocks.toml",
     "scenarios/kestrel-point-retrofit.toml",
 ];
 

@@ -17,7 +17,7 @@ use brayfin::analysis::site::Basis;
 use brayfin::scenario::parse;
 use serde_json::Value;
 
-const DEMO: &str = "scenarios/corvel-bay-peaker.toml";
+const DEMO: &str = "tests/fixtures/corvel-bay-blocks.toml";
 
 fn demo_text() -> String {
     std::fs::read_to_string(DEMO).expect("the demo scenario is readable")
@@ -166,12 +166,20 @@ fn the_rating_condition_reproduces_rated_pricing() {
         // The demo's dispatch is 100 %, 80 %, 60 %: Bid A's and Bid C's
         // vendor curves state those loads (1.045, 1.12; 1.015, 1.05 in the
         // file), Bid B's machine gives its own.
+        // One condition per dispatch block at the rating ambient: each
+        // block's heat rate over the site's base-load heat rate.
+        let got: Vec<f64> = site
+            .points
+            .iter()
+            .map(|p| p.heat_rate_kj_per_kwh / site.heat_rate_kj_per_kwh)
+            .collect();
+        assert_eq!(got.len(), 3, "{}", candidate.id);
         let ratios = match candidate.id.as_str() {
             "standard" => vec![1.0, 1.045, 1.12],
             "regenerated" => vec![1.0, 1.015, 1.05],
-            _ => site.block_ratios.clone(),
+            _ => got.clone(),
         };
-        for (got, want) in site.block_ratios.iter().zip(&ratios) {
+        for (got, want) in got.iter().zip(&ratios) {
             assert!(
                 (got - want).abs() < 1e-12,
                 "{}: {got} vs {want}",

@@ -389,7 +389,7 @@ fn cycle_flags_reproduce_a_scenario_heat_rate() {
     // its design point only at its rating condition: the demo's site is put
     // there (ISO 3977-2: 15 °C, sea level, 60 %, the demo bids' default
     // rating), where the machine reproduces the design solve.
-    let text = std::fs::read_to_string("scenarios/corvel-bay-peaker.toml").expect("demo");
+    let text = std::fs::read_to_string("tests/fixtures/corvel-bay-blocks.toml").expect("demo");
     let from = "ambient_temperature = \"59 degF\"\nelevation = \"120 ft\"";
     assert!(text.contains(from), "the demo's site lines moved");
     let dir = tempfile::tempdir().expect("temp dir");

@@ -389,7 +389,12 @@ fn scenario_keys_reach_the_ledger_inputs() {
     let text = std::fs::read_to_string("scenarios/corvel-bay-peaker.toml").expect("demo");
     let text = text
         .replacen("start_fuel = \"110 GJ\"", "start_fuel = \"100 MMBtu\"\noverhaul_outage_days = 12\noutput_degradation_per_year = \"0.4 %\"", 1);
-    let loaded = brayfin::scenario::parse(&text, "corvel.toml").expect("scenario");
+    let loaded = brayfin::scenario::parse_in(
+        &text,
+        "corvel.toml",
+        Some(std::path::Path::new("scenarios")),
+    )
+    .expect("scenario");
     let study = brayfin::analysis::compare::run_study(&loaded).expect("study");
     let standard = &study.outcomes[0].inputs;
     assert_eq!(standard.operation.starts_per_year, 120.0);
@@ -400,8 +405,11 @@ fn scenario_keys_reach_the_ledger_inputs() {
     assert_eq!(overhaul.hours_per_start, 10.0);
     assert_eq!(overhaul.interval_starts, None);
     assert_eq!(overhaul.outage_days, 12.0);
-    let site_kw = study.outcomes[0].solved.site.net_output_kw;
-    assert_eq!(overhaul.outage_capacity_kw, site_kw);
+    // The capacity lost in an outage is the capacity credited: the
+    // machine's base-load output at the capacity temperature (95 degF).
+    let capacity_kw = study.outcomes[0].solved.site.capacity_output_kw;
+    assert_eq!(overhaul.outage_capacity_kw, capacity_kw);
+    assert!(capacity_kw < study.outcomes[0].solved.site.net_output_kw);
     let premium = study.outcomes[1].inputs.overhaul.expect("overhauls");
     assert_eq!(premium.interval_starts, Some(1_000.0));
     assert_eq!(study.outcomes[1].inputs.service.per_start.price, dec("400"));

@@ -13,7 +13,7 @@ use rust_decimal::Decimal;
 use serde_json::Value;
 use std::str::FromStr;
 
-const CORVEL: &str = "scenarios/corvel-bay-peaker.toml";
+const CORVEL: &str = "tests/fixtures/corvel-bay-blocks.toml";
 const KESTREL: &str = "scenarios/kestrel-point-retrofit.toml";
 
 fn stdout(args: &[&str]) -> String {

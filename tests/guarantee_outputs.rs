@@ -28,7 +28,7 @@ use brayfin::report::wording::Wording;
 use rust_decimal::Decimal;
 use std::str::FromStr;
 
-const DEMO: &str = include_str!("../scenarios/corvel-bay-peaker.toml");
+const DEMO: &str = include_str!("fixtures/corvel-bay-blocks.toml");
 
 /// The hand settlement of the premium bid (see the module notes).
 const SETTLEMENT_USD: i64 = -1_100_000;

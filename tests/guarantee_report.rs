@@ -11,7 +11,7 @@ use rust_decimal::Decimal;
 use serde_json::Value;
 use std::str::FromStr;
 
-const DEMO: &str = include_str!("../scenarios/corvel-bay-peaker.toml");
+const DEMO: &str = include_str!("fixtures/corvel-bay-blocks.toml");
 
 /// The demo with a guarantee on the premium bid (1 % tolerance, 250 000
 /// per counted % of heat rate) and its as-built heat rate uniform on

@@ -16,7 +16,7 @@ use brayfin::scenario::{parse, LoadedScenario};
 use rust_decimal::prelude::ToPrimitive;
 use rust_decimal::Decimal;
 
-const DEMO: &str = include_str!("../scenarios/corvel-bay-peaker.toml");
+const DEMO: &str = include_str!("fixtures/corvel-bay-blocks.toml");
 const PREMIUM: usize = 1;
 
 /// The demo with `table` as the premium bid's `[candidate.guarantee]` and

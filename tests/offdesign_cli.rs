@@ -7,7 +7,7 @@ use assert_cmd::Command;
 use predicates::prelude::*;
 use serde_json::Value;
 
-const DEMO: &str = "scenarios/corvel-bay-peaker.toml";
+const DEMO: &str = "tests/fixtures/corvel-bay-blocks.toml";
 
 fn offdesign(args: &[&str]) -> assert_cmd::assert::Assert {
     Command::cargo_bin("brayfin")

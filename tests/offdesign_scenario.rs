@@ -8,7 +8,7 @@ use brayfin::offdesign::{Ambient, Load};
 use brayfin::scenario::{self, LoadedScenario};
 
 fn demo_text() -> String {
-    std::fs::read_to_string("scenarios/corvel-bay-peaker.toml").expect("demo scenario")
+    std::fs::read_to_string("tests/fixtures/corvel-bay-blocks.toml").expect("demo scenario")
 }
 
 fn parse(text: &str) -> LoadedScenario {

@@ -7,7 +7,7 @@ use assert_cmd::Command;
 use sha2::{Digest, Sha256};
 use std::path::Path;
 
-const SCENARIO: &str = "scenarios/corvel-bay-peaker.toml";
+const SCENARIO: &str = "tests/fixtures/corvel-bay-blocks.toml";
 
 #[test]
 fn report_writes_the_pdf_and_prints_its_path_and_page_count() {

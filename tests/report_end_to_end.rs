@@ -11,7 +11,7 @@ use rust_decimal::Decimal;
 use serde_json::Value;
 use std::str::FromStr;
 
-const DEMO: &str = "scenarios/corvel-bay-peaker.toml";
+const DEMO: &str = "tests/fixtures/corvel-bay-blocks.toml";
 
 fn compare_json() -> Value {
     let out = Command::cargo_bin("brayfin")

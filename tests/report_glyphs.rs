@@ -41,7 +41,7 @@ fn texts(scenario: &str, units: Units) -> Vec<String> {
 fn no_character_of_the_demo_briefings_is_substituted() {
     let mut scanned = 0;
     for scenario in [
-        "scenarios/corvel-bay-peaker.toml",
+        "tests/fixtures/corvel-bay-blocks.toml",
         "scenarios/kestrel-point-retrofit.toml",
     ] {
         for units in [Units::Si, Units::Us] {

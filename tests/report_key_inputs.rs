@@ -1,7 +1,7 @@
 //! The inputs on the briefing page are those that move the recommended
 //! bid's net savings most, each with its largest one-sided change (the
 //! larger of the change at the low and at the high end of the range), on
-//! the Corvel Bay demo with Bid C's price raised by 3 million (so that Bid
+//! the Corvel Bay demo (its dispatch-block fixture) with Bid C's price raised by 3 million (so that Bid
 //! B is recommended), where the bid recommended is not the one whose swings
 //! are largest.
 
@@ -11,7 +11,7 @@ use std::path::Path;
 
 #[test]
 fn key_inputs_are_the_recommended_bids_largest_one_sided_changes() {
-    let text = std::fs::read_to_string(Path::new("scenarios/corvel-bay-peaker.toml"))
+    let text = std::fs::read_to_string(Path::new("tests/fixtures/corvel-bay-blocks.toml"))
         .expect("demo scenario reads");
     let from = "capital_cost = \"55900000 USD\"";
     assert!(text.contains(from), "Bid C's price moved");

@@ -6,7 +6,7 @@
 use assert_cmd::Command;
 use serde_json::Value;
 
-const DEMO: &str = "scenarios/corvel-bay-peaker.toml";
+const DEMO: &str = "tests/fixtures/corvel-bay-blocks.toml";
 
 fn pdf_text(units: &str) -> String {
     let dir = tempfile::tempdir().unwrap();

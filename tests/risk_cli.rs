@@ -5,7 +5,7 @@
 use assert_cmd::Command;
 use serde_json::Value;
 
-const DEMO: &str = "scenarios/corvel-bay-peaker.toml";
+const DEMO: &str = "tests/fixtures/corvel-bay-blocks.toml";
 
 fn brayfin(args: &[&str], threads: Option<&str>) -> std::process::Output {
     let mut command = match Command::cargo_bin("brayfin") {
@@ -143,7 +143,7 @@ fn bad_input_is_refused_with_exit_code_1() {
     // A truncation 350 standard deviations from the mean keeps nothing in
     // double precision: the loader lets it through (the ranges overlap),
     // the sampler refuses it at the entry.
-    let text = include_str!("../scenarios/corvel-bay-peaker.toml");
+    let text = include_str!("fixtures/corvel-bay-blocks.toml");
     let cut = text.find("[[uncertainty]]").unwrap_or(text.len());
     let edited = format!(
         "{}[[uncertainty]]\nkey = \"candidate[premium].turbine_efficiency\"\n\

@@ -7,7 +7,7 @@ use brayfin::analysis::risk::{correlated_draws, draws_of, run_risk};
 use brayfin::analysis::sampling::iman_conover::spearman;
 use brayfin::scenario::{parse, LoadedScenario};
 
-const DEMO: &str = include_str!("../scenarios/corvel-bay-peaker.toml");
+const DEMO: &str = include_str!("fixtures/corvel-bay-blocks.toml");
 
 fn demo_with(correlations: &str) -> LoadedScenario {
     match parse(&format!("{DEMO}\n{correlations}"), "correlated.toml") {

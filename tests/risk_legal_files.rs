@@ -9,7 +9,7 @@ use assert_cmd::Command;
 use brayfin::analysis::risk::DEFAULT_SAMPLES;
 use clap::Parser;
 
-const DEMO: &str = include_str!("../scenarios/corvel-bay-peaker.toml");
+const DEMO: &str = include_str!("fixtures/corvel-bay-blocks.toml");
 
 fn brayfin(args: &[&str]) -> std::process::Output {
     let mut command = match Command::cargo_bin("brayfin") {

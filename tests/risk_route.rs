@@ -16,7 +16,7 @@ use brayfin::analysis::point::Route;
 use brayfin::analysis::risk::statistics::Statistics;
 use brayfin::analysis::risk::{run_risk_by, RiskRun};
 use brayfin::analysis::sweep::{plan, run_sweep_by};
-use brayfin::scenario::{parse, LoadedScenario};
+use brayfin::scenario::LoadedScenario;
 
 const CORVEL: &str = include_str!("../scenarios/corvel-bay-peaker.toml");
 const KESTREL: &str = include_str!("../scenarios/kestrel-point-retrofit.toml");
@@ -25,7 +25,8 @@ const KESTREL: &str = include_str!("../scenarios/kestrel-point-retrofit.toml");
 const TOLERANCE: f64 = 0.001;
 
 fn load(text: &str, name: &str) -> LoadedScenario {
-    match parse(text, name) {
+    let dir = std::path::Path::new(name).parent();
+    match brayfin::scenario::parse_in(text, name, dir) {
         Ok(loaded) => loaded,
         Err(e) => panic!("{name} must load: {e}"),
     }

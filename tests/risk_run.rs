@@ -7,7 +7,7 @@ use brayfin::analysis::risk::{risk_view, run_risk, RiskRun};
 use brayfin::scenario::{parse, LoadedScenario};
 use rust_decimal::prelude::ToPrimitive;
 
-const DEMO: &str = include_str!("../scenarios/corvel-bay-peaker.toml");
+const DEMO: &str = include_str!("fixtures/corvel-bay-blocks.toml");
 
 /// The demo with its `[[uncertainty]]` entries replaced by `entries`.
 fn demo_with(entries: &str) -> LoadedScenario {
@@ -20,7 +20,7 @@ fn demo_with(entries: &str) -> LoadedScenario {
 }
 
 fn demo() -> LoadedScenario {
-    match parse(DEMO, "scenarios/corvel-bay-peaker.toml") {
+    match parse(DEMO, "tests/fixtures/corvel-bay-blocks.toml") {
         Ok(loaded) => loaded,
         Err(e) => panic!("the demo must load: {e}"),
     }

@@ -5,7 +5,7 @@ use brayfin::scenario;
 use proptest::prelude::*;
 
 const SEEDS: [&str; 2] = [
-    include_str!("../scenarios/corvel-bay-peaker.toml"),
+    include_str!("fixtures/corvel-bay-blocks.toml"),
     include_str!("../scenarios/kestrel-point-retrofit.toml"),
 ];
 

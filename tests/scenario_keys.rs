@@ -6,7 +6,9 @@ use rust_decimal::Decimal;
 use std::str::FromStr;
 
 fn corvel() -> Scenario {
-    match scenario::load(std::path::Path::new("scenarios/corvel-bay-peaker.toml")) {
+    match scenario::load(std::path::Path::new(
+        "tests/fixtures/corvel-bay-blocks.toml",
+    )) {
         Ok(loaded) => loaded.scenario,
         Err(error) => panic!("demo does not load: {error}"),
     }

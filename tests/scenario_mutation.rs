@@ -27,7 +27,7 @@ use std::panic::{catch_unwind, AssertUnwindSafe};
 const SEEDS: [(&str, &str); 4] = [
     (
         "corvel-bay-peaker.toml",
-        include_str!("../scenarios/corvel-bay-peaker.toml"),
+        include_str!("fixtures/corvel-bay-blocks.toml"),
     ),
     (
         "kestrel-point-retrofit.toml",

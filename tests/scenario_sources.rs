@@ -20,7 +20,7 @@ fn sources_of<'a>(loaded: &'a LoadedScenario, prefix: &str) -> Vec<Option<&'a st
 
 #[test]
 fn composition_and_dispatch_sources_reach_every_nested_input() {
-    let loaded = load("scenarios/corvel-bay-peaker.toml");
+    let loaded = load("tests/fixtures/corvel-bay-blocks.toml");
     // The demo's [fuel] says: composition = "Pipeline tariff gas quality
     // sheet, 2024 average"; its [operation]: dispatch = "Production-cost
     // model run PC-2025-02, mid-merit case".
@@ -49,7 +49,7 @@ fn composition_and_dispatch_sources_reach_every_nested_input() {
 
 #[test]
 fn a_named_fuel_and_a_price_path_keep_their_sources() {
-    let text = std::fs::read_to_string("scenarios/corvel-bay-peaker.toml").expect("demo");
+    let text = std::fs::read_to_string("tests/fixtures/corvel-bay-blocks.toml").expect("demo");
     let fuel_start = text.find("[fuel]").expect("a [fuel] table");
     let fuel_end = fuel_start
         + text[fuel_start..]
@@ -80,7 +80,7 @@ fn the_assumptions_pages_print_them() {
         .expect("binary")
         .args([
             "report",
-            "scenarios/corvel-bay-peaker.toml",
+            "tests/fixtures/corvel-bay-blocks.toml",
             "--samples",
             "0",
             "-o",

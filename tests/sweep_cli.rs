@@ -8,8 +8,8 @@
 use assert_cmd::Command;
 use serde_json::Value;
 
-const DEMO: &str = "scenarios/corvel-bay-peaker.toml";
-const DEMO_TEXT: &str = include_str!("../scenarios/corvel-bay-peaker.toml");
+const DEMO: &str = "tests/fixtures/corvel-bay-blocks.toml";
+const DEMO_TEXT: &str = include_str!("fixtures/corvel-bay-blocks.toml");
 
 fn brayfin(args: &[&str]) -> std::process::Output {
     match Command::cargo_bin("brayfin") {
@@ -496,7 +496,12 @@ fn a_huge_vary_key_or_value_is_quoted_short() {
     ] {
         let out = assert_cmd::Command::cargo_bin("brayfin")
             .unwrap()
-            .args(["sweep", "scenarios/corvel-bay-peaker.toml", "--vary", &vary])
+            .args([
+                "sweep",
+                "tests/fixtures/corvel-bay-blocks.toml",
+                "--vary",
+                &vary,
+            ])
             .output()
             .unwrap();
         assert_eq!(out.status.code(), Some(1));

@@ -9,10 +9,10 @@ use brayfin::analysis::sweep::{parse_axis, plan, run_sweep_by};
 use brayfin::scenario::{parse, LoadedScenario};
 use rust_decimal::prelude::ToPrimitive;
 
-const DEMO: &str = include_str!("../scenarios/corvel-bay-peaker.toml");
+const DEMO: &str = include_str!("fixtures/corvel-bay-blocks.toml");
 
 fn demo() -> LoadedScenario {
-    match parse(DEMO, "scenarios/corvel-bay-peaker.toml") {
+    match parse(DEMO, "tests/fixtures/corvel-bay-blocks.toml") {
         Ok(l) => l,
         Err(e) => panic!("the demo must load: {e}"),
     }

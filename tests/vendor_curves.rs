@@ -16,7 +16,8 @@ use brayfin::analysis::vendor::{
 use brayfin::offdesign::{Ambient, OffDesignError};
 use brayfin::scenario::{parse, AmbientCorrectionSpec, Candidate, PartLoadPoint};
 
-const DEMO: &str = "scenarios/corvel-bay-peaker.toml";
+/// The Corvel Bay demo with dispatch blocks at its annual-mean ambient.
+const DEMO: &str = "tests/fixtures/corvel-bay-blocks.toml";
 
 fn demo_text() -> String {
     std::fs::read_to_string(DEMO).expect("the demo scenario is readable")

@@ -11,7 +11,8 @@
 use brayfin::analysis::compare::run_study;
 use brayfin::scenario::{parse, EfficiencyBasis, GasModelSpec, LoadedScenario};
 
-const DEMO: &str = "scenarios/corvel-bay-peaker.toml";
+/// The Corvel Bay demo with dispatch blocks at its annual-mean ambient.
+const DEMO: &str = "tests/fixtures/corvel-bay-blocks.toml";
 
 /// The component keys (and the keys the fit sets) of Bid A.
 const BID_A_COMPONENTS: [&str; 8] = [

@@ -6,7 +6,7 @@ mod workbook_support;
 
 use workbook_support::{check_ledgers, check_summary, compare_json, write_workbook};
 
-const DEMO: &str = include_str!("../scenarios/corvel-bay-peaker.toml");
+const DEMO: &str = include_str!("fixtures/corvel-bay-blocks.toml");
 
 #[test]
 fn cached_values_equal_compare_with_a_settled_guarantee() {

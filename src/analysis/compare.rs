@@ -81,7 +81,7 @@ fn lifecycle_cost(
         scenario,
         candidate,
         fuel,
-        (&solved.year, solved.site.net_output_kw),
+        (&solved.year, solved.site.capacity_output_kw),
         reference,
     )
     .ok()?;
@@ -180,7 +180,7 @@ pub fn run_study(loaded: &LoadedScenario) -> crate::Result<Study> {
     let solved_all = (0..scenario.candidates.len())
         .map(|index| solve_at(loaded, index, &fuel))
         .collect::<crate::Result<Vec<_>>>()?;
-    let reference = output_reference_of(scenario, solved_all.iter().map(|s| s.site.net_output_kw));
+    let reference = output_reference_of(scenario, solved_all.iter().map(|s| Some(&s.site)));
     let mut outcomes = Vec::with_capacity(scenario.candidates.len());
     for (candidate, solved) in scenario.candidates.iter().zip(solved_all) {
         // By the contract: the site year without a guarantee, else the
@@ -190,7 +190,7 @@ pub fn run_study(loaded: &LoadedScenario) -> crate::Result<Study> {
             candidate,
             &fuel,
             solved.site.rated_heat_rate_kj_per_kwh,
-            (&solved.year, solved.site.net_output_kw),
+            (&solved.year, solved.site.capacity_output_kw),
             &reference,
         )
         .map_err(|e| finance_error(loaded, candidate, e))?;

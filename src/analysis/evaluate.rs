@@ -4,7 +4,7 @@
 //! one.
 
 use super::engine::{detail_of, engine_config_of, gas_model_of, solve_error};
-use super::operation::{annual_operation, annual_operation_with_ratios, AnnualOperation};
+use super::operation::{condition_energy_mwh, conditions, year_from, AnnualOperation};
 use super::site::{site_performance, SiteError, SitePerformance};
 use crate::cycle::{self, CycleResult};
 use crate::finance::{
@@ -45,13 +45,10 @@ pub enum SolveError {
 }
 
 /// The year of a candidate whose site performance is `site`.
+/// ([`super::operation::conditions`] of the scenario, each at the
+/// candidate's performance there).
 pub fn year_of(scenario: &Scenario, site: &SitePerformance) -> AnnualOperation {
-    annual_operation_with_ratios(
-        &scenario.operation,
-        site.net_output_kw,
-        site.heat_rate_kj_per_kwh,
-        &site.block_ratios,
-    )
+    year_from(&conditions(scenario), &site.points)
 }
 
 /// Solve a candidate's cycle, its fixed machine at the site and its year of
@@ -86,11 +83,22 @@ pub fn solve_at(loaded: &LoadedScenario, index: usize, fuel: &Fuel) -> crate::Re
 
 /// Map a site refusal to an error at the right key.
 fn site_error(loaded: &LoadedScenario, index: usize, e: &SiteError) -> crate::Error {
+    let scenario = &loaded.scenario;
     if e.load.is_some() && e.error.is_input_error() {
-        return loaded.error_at("operation.dispatch", &e.to_string());
+        let key = if scenario.operation.profile.is_some() {
+            "operation.profile"
+        } else {
+            "operation.dispatch"
+        };
+        return loaded.error_at(key, &e.to_string());
     }
     if e.error.field().is_some_and(|f| f.starts_with("ambient")) && e.error.is_input_error() {
-        return loaded.error_at("site", &e.to_string());
+        let key = if scenario.site.weather.is_some() {
+            "site.weather"
+        } else {
+            "site"
+        };
+        return loaded.error_at(key, &e.to_string());
     }
     super::machine::calibration_error(loaded, index, &e.error)
 }
@@ -99,71 +107,142 @@ fn site_error(loaded: &LoadedScenario, index: usize, e: &SiteError) -> crate::Er
 /// candidate delivers. A candidate that delivers less buys the difference
 /// elsewhere (common practice in bid evaluation), so all are compared on
 /// equal deliveries.
-#[derive(Debug, Clone, Copy, PartialEq)]
+#[derive(Debug, Clone, PartialEq)]
 pub struct OutputReference {
     /// Largest net energy of a full year among the candidates, MWh.
     pub energy_mwh: f64,
-    /// Largest base-load net output at the site among the candidates, kW.
+    /// Largest capacity credited among the candidates (base-load output at
+    /// the capacity temperature, or at the site), kW.
     pub net_output_kw: f64,
+    /// With an hourly profile that prices every run hour: each candidate's
+    /// energy shortfall price, currency per MWh, by candidate id (see
+    /// [`output_reference_of`]). Empty otherwise: the shortfall is priced
+    /// at `economics.energy_value`.
+    pub shortfall_prices: Vec<(String, f64)>,
 }
 
-/// The output reference of candidates whose base-load outputs at the site
-/// are `outputs_kw`: a year's energy depends only on that output and the
-/// scenario's operation (hours or dispatch profile), not on the heat rate
-/// ([`annual_operation`]).
-pub fn output_reference_of(
+/// The output reference of a scenario's candidates whose site performance
+/// is `sites` (in candidate order; `None` for one not solved, which counts
+/// as delivering nothing). Each candidate's year comes from its own
+/// performance in every condition of the year, so energy differs by
+/// candidate.
+///
+/// Hourly prices (an `[operation] profile` with `energy_price_per_MWh` in
+/// every run hour): the shortfall of candidate c is priced at the hours'
+/// prices weighted by its hourly shortfall against the candidate r with
+/// the most annual energy, price_c = Σ_h p_h · max(0, E_r,h − E_c,h) /
+/// Σ_h max(0, E_r,h − E_c,h); hours where c makes more than r are not
+/// netted. Without such a shortfall (c is r) `economics.energy_value`.
+pub fn output_reference_of<'a>(
     scenario: &Scenario,
-    outputs_kw: impl IntoIterator<Item = f64>,
+    sites: impl IntoIterator<Item = Option<&'a SitePerformance>>,
 ) -> OutputReference {
-    outputs_kw.into_iter().fold(
-        OutputReference {
-            energy_mwh: 0.0,
-            net_output_kw: 0.0,
-        },
-        |most, kw| OutputReference {
-            energy_mwh: most
-                .energy_mwh
-                .max(annual_operation(&scenario.operation, kw, 0.0).energy_mwh),
-            net_output_kw: most.net_output_kw.max(kw),
-        },
-    )
+    let conditions = conditions(scenario);
+    let sites: Vec<_> = sites
+        .into_iter()
+        .map(|s| s.map(|s| (s, year_from(&conditions, &s.points).energy_mwh)))
+        .collect();
+    output_reference_from(scenario, &conditions, sites)
+}
+
+/// [`output_reference_of`] with the scenario's year conditions already
+/// built ([`super::operation::conditions`]) and each site's annual energy
+/// (MWh) already summed. The conditions are read only for hourly prices.
+pub fn output_reference_from<'a>(
+    scenario: &Scenario,
+    conditions: &[super::operation::Condition],
+    sites: impl IntoIterator<Item = Option<(&'a SitePerformance, f64)>>,
+) -> OutputReference {
+    let sites: Vec<_> = sites.into_iter().collect();
+    let mut reference = OutputReference {
+        energy_mwh: 0.0,
+        net_output_kw: 0.0,
+        shortfall_prices: Vec::new(),
+    };
+    let mut most: Option<(usize, f64)> = None;
+    for (i, site) in sites.iter().enumerate() {
+        let Some((site, energy)) = *site else {
+            continue;
+        };
+        if most.is_none_or(|(_, e)| energy > e) {
+            most = Some((i, energy));
+        }
+        reference.energy_mwh = reference.energy_mwh.max(energy);
+        reference.net_output_kw = reference.net_output_kw.max(site.capacity_output_kw);
+    }
+    let priced = scenario
+        .operation
+        .profile
+        .as_ref()
+        .is_some_and(|p| p.has_prices());
+    let top = most.and_then(|(i, _)| sites[i]).map(|(s, _)| s);
+    if let (true, Some(top)) = (priced, top) {
+        let top_energy = condition_energy_mwh(conditions, &top.points);
+        for (candidate, site) in scenario.candidates.iter().zip(&sites) {
+            let Some((site, _)) = site else { continue };
+            let own = condition_energy_mwh(conditions, &site.points);
+            let (mut short, mut value) = (0.0, 0.0);
+            for ((c, r), e) in conditions.iter().zip(&top_energy).zip(&own) {
+                let gap = (r - e).max(0.0);
+                short += gap;
+                value += gap * c.energy_price_per_mwh.unwrap_or(0.0);
+            }
+            if short > 0.0 {
+                reference
+                    .shortfall_prices
+                    .push((candidate.id.clone(), value / short));
+            }
+        }
+    }
+    reference
 }
 
 /// The scenario's output reference from each candidate's fixed machine at
 /// the site: every candidate is solved. The error is the first candidate's
 /// that cannot be.
 pub fn output_reference(scenario: &Scenario, fuel: &Fuel) -> Result<OutputReference, SolveError> {
-    let outputs = scenario
+    let sites = scenario
         .candidates
         .iter()
-        .map(|c| solve(scenario, c, fuel).map(|s| s.site.net_output_kw))
+        .map(|c| solve(scenario, c, fuel).map(|s| s.site))
         .collect::<Result<Vec<_>, _>>()?;
-    Ok(output_reference_of(scenario, outputs))
+    Ok(output_reference_of(scenario, sites.iter().map(Some)))
 }
 
-/// A candidate's shortfall against `reference`, priced at the scenario's
-/// `energy_value` and `capacity_value` (constant in the analysis basis's
-/// money, like the candidates' O&M prices). A candidate above the reference
-/// (one set apart from the scenario's list) has no shortfall.
+/// A candidate's shortfall against `reference`: energy priced at its
+/// hourly shortfall price when the reference has one, else at the
+/// scenario's `energy_value`; capacity at `capacity_value` (constant in the
+/// analysis basis's money, like the candidates' O&M prices). A candidate
+/// above the reference (one set apart from the scenario's list) has no
+/// shortfall.
 fn bought_in(
     scenario: &Scenario,
-    site_output_kw: f64,
+    candidate: &Candidate,
+    capacity_kw: f64,
     year: &AnnualOperation,
     reference: &OutputReference,
-) -> BoughtIn<Decimal> {
+) -> Result<BoughtIn<Decimal>, finance::FinanceError> {
     let e = &scenario.economics;
-    BoughtIn {
+    let energy_price = match reference
+        .shortfall_prices
+        .iter()
+        .find(|(id, _)| *id == candidate.id)
+    {
+        Some((_, price)) => finance::convert_physics_to_money(*price, "hourly energy price")?,
+        None => e.energy_value_per_mwh,
+    };
+    Ok(BoughtIn {
         energy_mwh_per_year: (reference.energy_mwh - year.energy_mwh).max(0.0),
         energy_price: EscalatingPrice {
-            price: e.energy_value_per_mwh,
+            price: energy_price,
             escalation: 0.0,
         },
-        capacity_kw: (reference.net_output_kw - site_output_kw).max(0.0),
+        capacity_kw: (reference.net_output_kw - capacity_kw).max(0.0),
         capacity_price: EscalatingPrice {
             price: e.capacity_value_per_kw_year,
             escalation: 0.0,
         },
-    }
+    })
 }
 
 /// A price constant in the analysis basis's money (like the candidates' O&M
@@ -176,7 +255,8 @@ fn constant(price: Decimal) -> EscalatingPrice<Decimal> {
 }
 
 /// The ledger inputs of a candidate whose year of operation is `year` and
-/// base-load output at the site `site_output_kw`, levelled on output to
+/// capacity credited `site_output_kw` (base-load output at the capacity
+/// temperature, [`SitePerformance::capacity_output_kw`]), levelled on output to
 /// `reference` (an energy and capacity bought in stream for its shortfall in energy
 /// and capacity). Fixed O&M stays on the rated net output: it is quoted per
 /// kW of rating (common practice) and does not fall on a hot day.
@@ -292,7 +372,7 @@ pub fn ledger_inputs(
             },
             escalation: 0.0,
         },
-        bought_in: bought_in(scenario, site_output_kw, year, reference),
+        bought_in: bought_in(scenario, candidate, site_output_kw, year, reference)?,
         acceptance_settlement: finance::AcceptanceSettlement::default(),
     })
 }

@@ -299,7 +299,7 @@ fn fuel_price_curves(loaded: &LoadedScenario, study: &Study) -> FuelPriceCurves 
 /// load (or its rated figures when the fixed-machine model refuses it).
 /// Heat rate in Btu/kWh and CO2 per MWh scale with the heat rate from the
 /// design cycle's own conversions (same fuel, same units).
-fn performance_view(solved: &Solved) -> PerformanceView {
+fn performance_view(solved: &Solved, capacity_temperature_k: Option<f64>) -> PerformanceView {
     let cycle = &solved.cycle;
     let site = &solved.site;
     let flows = cycle.flows.as_ref();
@@ -318,6 +318,18 @@ fn performance_view(solved: &Solved) -> PerformanceView {
         fuel_flow_kg_per_s: flows.map_or(0.0, |f| f.fuel_flow_kg_per_s),
         co2_kg_per_mwh: cycle.co2_kg_per_mwh.unwrap_or(0.0) * scale,
         implied: None,
+        site_year: SiteYearView {
+            run_hours: solved.year.operating_hours,
+            energy_mwh: solved.year.energy_mwh,
+            fuel_energy_gj_lhv: solved.year.fuel_energy_gj_lhv,
+            mean_heat_rate_kj_per_kwh: if solved.year.energy_mwh > 0.0 {
+                solved.year.fuel_energy_gj_lhv * 1000.0 / solved.year.energy_mwh
+            } else {
+                0.0
+            },
+            capacity_output_kw: site.capacity_output_kw,
+            capacity_temperature_k,
+        },
     };
     match &site.basis {
         Basis::Machine(point) => PerformanceView {
@@ -407,7 +419,10 @@ fn candidate_view(
         gas_model: cycle.gas_model.to_string(),
         performance: PerformanceView {
             implied: implied.iter().find(|b| b.index == index).map(implied_view),
-            ..performance_view(&outcome.solved)
+            ..performance_view(
+                &outcome.solved,
+                loaded.scenario.economics.capacity_temperature_k,
+            )
         },
         cycle: CycleView {
             states: cycle

@@ -50,8 +50,9 @@ mod restore;
 
 use super::acceptance::contract_inputs;
 use super::engine::{detail_of, engine_config_of, fuel_of, gas_model_of};
-use super::evaluate::{output_reference_of, year_of};
+use super::evaluate::output_reference_from;
 use super::machine::machine_of;
+use super::operation::{year_from, AnnualOperation, Condition};
 use super::site::{fixed_machine_site, rated_site, Basis, SitePerformance};
 use crate::cycle::{self, EngineConfig, GasModel};
 use crate::finance::{compare_summaries, summarize_ledger, LedgerInputs, LedgerSummary};
@@ -213,10 +214,19 @@ struct CachedCycle {
     fuel_is_base: bool,
     rating: RatingCondition,
     control: ControlSpec,
-    dispatch_loads: Vec<f64>,
+    /// The year's conditions (temperature, humidity, load) and the
+    /// capacity temperature the site performance was solved for.
+    year_key: YearKey,
     part_load: Vec<PartLoadPoint>,
     ambient_correction: Vec<AmbientCorrectionSpec>,
     site: SitePerformance,
+    /// The site's year at the hours per year it was summed for (the
+    /// conditions follow from `year_key` and those hours).
+    year: Option<(f64, AnnualOperation)>,
+    /// On the scaled route, the (output, heat-rate) ratios `site.points`
+    /// still await (they are the base's, shared): applied to the year in
+    /// O(1), and to the points only where hourly prices need them.
+    pending_scale: Option<(f64, f64)>,
 }
 
 impl CachedCycle {
@@ -224,10 +234,10 @@ impl CachedCycle {
     /// `config`, `detail`, `gas`, and the scenario's own fuel).
     fn holds(
         &self,
-        scenario: &Scenario,
         candidate: &Candidate,
         (config, detail, gas): (&EngineConfig, &cycle::Detail, &GasModel),
         fuel_is_base: bool,
+        year: &YearKey,
     ) -> bool {
         // Only solves with the scenario's own fuel are reused.
         fuel_is_base
@@ -239,11 +249,7 @@ impl CachedCycle {
             && self.control == candidate.control
             && self.part_load == candidate.part_load
             && self.ambient_correction == candidate.ambient_correction
-            && self.dispatch_loads.iter().copied().eq(scenario
-                .operation
-                .dispatch
-                .iter()
-                .map(|b| b.load_fraction))
+            && self.year_key == *year
     }
 }
 
@@ -253,10 +259,10 @@ impl CachedCycle {
     /// scaled route applies).
     fn same_but_engine(
         &self,
-        scenario: &Scenario,
         candidate: &Candidate,
         (config, detail, gas): (&EngineConfig, &cycle::Detail, &GasModel),
         fuel_is_base: bool,
+        year: &YearKey,
     ) -> bool {
         fuel_is_base
             && self.fuel_is_base
@@ -268,12 +274,60 @@ impl CachedCycle {
             && self.control == candidate.control
             && self.part_load == candidate.part_load
             && self.ambient_correction == candidate.ambient_correction
-            && self.dispatch_loads.iter().copied().eq(scenario
-                .operation
-                .dispatch
-                .iter()
-                .map(|b| b.load_fraction))
+            && self.year_key == *year
     }
+}
+
+/// What a site performance depends on beyond the candidate's physics: the
+/// year's conditions and the capacity temperature.
+type YearKey = (
+    Vec<(f64, Option<f64>, Option<f64>, bool)>,
+    [usize; 2],
+    [f64; 3],
+    Option<f64>,
+);
+
+/// The [`YearKey`] of `scenario`, without building its conditions: the
+/// weather and profile (shared, so compared by address), the dispatch
+/// blocks (load, own ambient and humidity, whether they run), the site's
+/// ambient and humidity, and the capacity temperature. The hours do not
+/// move a condition's ambient or load.
+fn year_key(scenario: &Scenario) -> YearKey {
+    let site = &scenario.site;
+    let operation = &scenario.operation;
+    (
+        operation
+            .dispatch
+            .iter()
+            .map(|b| {
+                (
+                    b.load_fraction,
+                    b.ambient_temperature_k,
+                    b.relative_humidity,
+                    b.hours > 0.0,
+                )
+            })
+            .collect(),
+        [
+            site.weather
+                .as_ref()
+                .map_or(0, |w| std::sync::Arc::as_ptr(w) as usize),
+            operation
+                .profile
+                .as_ref()
+                .map_or(0, |p| std::sync::Arc::as_ptr(p) as usize),
+        ],
+        [
+            site.ambient_temperature_k,
+            site.relative_humidity,
+            if operation.dispatch.is_empty() && operation.hours_per_year > 0.0 {
+                1.0
+            } else {
+                0.0
+            },
+        ],
+        scenario.economics.capacity_temperature_k,
+    )
 }
 
 /// One worker's scratch copy of the scenario and its cycle cache.
@@ -283,6 +337,9 @@ pub struct Workspace {
     cycles: Vec<Option<CachedCycle>>,
     summaries: Vec<Option<LedgerSummary<f64>>>,
     ledgers: Vec<Option<(LedgerInputs<f64>, LedgerSummary<f64>)>>,
+    /// The year's conditions of the last point, with the key and the hours
+    /// per year they were built for.
+    conditions: Option<(YearKey, f64, Vec<super::operation::Condition>)>,
 }
 
 impl<'s> PointModel<'s> {
@@ -352,6 +409,7 @@ impl<'s> PointModel<'s> {
             cycles: vec![None; n],
             summaries: vec![None; n],
             ledgers: vec![None; n],
+            conditions: None,
         }
     }
 
@@ -406,23 +464,24 @@ impl<'s> PointModel<'s> {
         };
         // Every candidate's site output sets the output reference, so each
         // is solved (or found in the cache), evaluated or not.
+        let year = year_key(scenario);
         for (i, candidate) in scenario.candidates.iter().enumerate() {
             let config = engine_config_of(candidate, &scenario.site);
             let detail = detail_of(candidate, &scenario.site);
             let gas = gas_model_of(&candidate.gas_model);
-            let hit = ws.cycles[i].as_ref().is_some_and(|c| {
-                c.holds(scenario, candidate, (&config, &detail, &gas), fuel_is_base)
-            });
+            let hit = ws.cycles[i]
+                .as_ref()
+                .is_some_and(|c| c.holds(candidate, (&config, &detail, &gas), fuel_is_base, &year));
             if hit {
                 continue;
             }
             let scaled = match (self.route, self.bases.get(i).and_then(Option::as_ref)) {
                 (Route::Scaled, Some(base))
                     if base.cached.same_but_engine(
-                        scenario,
                         candidate,
                         (&config, &detail, &gas),
                         fuel_is_base,
+                        &year,
                     ) =>
                 {
                     Some(base)
@@ -437,15 +496,69 @@ impl<'s> PointModel<'s> {
                     candidate,
                     fuel,
                     (config, detail, gas),
-                    fuel_is_base,
+                    (fuel_is_base, year.clone()),
                 )?,
             });
         }
-        let reference = output_reference_of(
-            scenario,
-            ws.cycles
+        // The year's conditions (an hourly year has thousands) are built
+        // only when a year must be summed or hourly prices need them.
+        let hours = scenario.operation.hours_per_year;
+        let priced = scenario
+            .operation
+            .profile
+            .as_ref()
+            .is_some_and(|p| p.has_prices());
+        let needs_conditions = priced
+            || ws
+                .cycles
                 .iter()
-                .map(|c| c.as_ref().map_or(0.0, |c| c.site.net_output_kw)),
+                .flatten()
+                .any(|c| c.year.is_none_or(|(h, _)| h != hours));
+        let current = |c: &(YearKey, f64, Vec<Condition>)| c.0 == year && c.1 == hours;
+        if needs_conditions && !ws.conditions.as_ref().is_some_and(current) {
+            ws.conditions = Some((year.clone(), hours, super::operation::conditions(scenario)));
+        }
+        let conds: &[Condition] = ws
+            .conditions
+            .as_ref()
+            .filter(|c| current(c))
+            .map_or(&[], |c| c.2.as_slice());
+        for cached in ws.cycles.iter_mut().flatten() {
+            if cached.year.is_none_or(|(h, _)| h != hours) {
+                let (o, r) = cached.pending_scale.unwrap_or((1.0, 1.0));
+                let y = year_from(conds, &cached.site.points);
+                cached.year = Some((
+                    hours,
+                    AnnualOperation {
+                        operating_hours: y.operating_hours,
+                        energy_mwh: y.energy_mwh * o,
+                        fuel_energy_gj_lhv: y.fuel_energy_gj_lhv * o * r,
+                    },
+                ));
+            }
+            if priced {
+                if let Some((o, r)) = cached.pending_scale.take() {
+                    cached.site.points = std::sync::Arc::new(
+                        cached
+                            .site
+                            .points
+                            .iter()
+                            .map(|p| super::operation::ConditionPerformance {
+                                available_kw: p.available_kw * o,
+                                heat_rate_kj_per_kwh: p.heat_rate_kj_per_kwh * r,
+                            })
+                            .collect(),
+                    );
+                }
+            }
+        }
+        let reference = output_reference_from(
+            scenario,
+            conds,
+            ws.cycles.iter().map(|c| {
+                c.as_ref()
+                    .map(|c| (&c.site, c.year.map_or(0.0, |(_, y)| y.energy_mwh)))
+            }),
         );
         for (i, candidate) in scenario.candidates.iter().enumerate() {
             if !self.evaluated[i] {
@@ -456,7 +569,9 @@ impl<'s> PointModel<'s> {
             };
             let site = &cached.site;
             let heat_rate = site.heat_rate_kj_per_kwh;
-            let year = year_of(scenario, site);
+            let Some((_, year)) = cached.year else {
+                continue;
+            };
             let ledger_error = |e: crate::finance::FinanceError| PointError::Ledger {
                 candidate: candidate.id.clone(),
                 message: e.to_string(),
@@ -466,7 +581,7 @@ impl<'s> PointModel<'s> {
                 candidate,
                 fuel,
                 site.rated_heat_rate_kj_per_kwh,
-                (&year, site.net_output_kw),
+                (&year, site.capacity_output_kw),
                 &reference,
             )
             .map_err(ledger_error)?;
@@ -530,7 +645,7 @@ fn exact_cycle(
     candidate: &Candidate,
     fuel: &Fuel,
     (config, detail, gas): (EngineConfig, cycle::Detail, GasModel),
-    fuel_is_base: bool,
+    (fuel_is_base, year_key): (bool, YearKey),
 ) -> Result<CachedCycle, PointError> {
     // The machine's calibration is its own design solve: the design
     // cycle at the site is solved only for a candidate kept at its
@@ -552,15 +667,12 @@ fn exact_cycle(
         fuel_is_base,
         rating: candidate.rating,
         control: candidate.control,
-        dispatch_loads: scenario
-            .operation
-            .dispatch
-            .iter()
-            .map(|b| b.load_fraction)
-            .collect(),
+        year_key,
         part_load: candidate.part_load.clone(),
         ambient_correction: candidate.ambient_correction.clone(),
         site,
+        year: None,
+        pending_scale: None,
     })
 }
 
@@ -573,10 +685,22 @@ fn base_site(scenario: &Scenario, candidate: &Candidate, fuel: &Fuel) -> Option<
         detail_of(candidate, &scenario.site),
         gas_model_of(&candidate.gas_model),
     );
-    let cached = exact_cycle(scenario, candidate, fuel, physics, true).ok()?;
+    let mut cached = exact_cycle(
+        scenario,
+        candidate,
+        fuel,
+        physics,
+        (true, year_key(scenario)),
+    )
+    .ok()?;
     if !matches!(cached.site.basis, Basis::Machine(_)) {
         return None;
     }
+    let hours = scenario.operation.hours_per_year;
+    cached.year = Some((
+        hours,
+        year_from(&super::operation::conditions(scenario), &cached.site.points),
+    ));
     let machine = machine_of(candidate, &scenario.site, fuel).ok()?;
     let rating = machine.rating_point();
     let rated_output_kw = rating.flows.map(|f| f.net_output_kw)?;
@@ -609,17 +733,36 @@ fn scaled_cycle(
         .map(|f| f.net_output_kw)
         .ok_or_else(|| cycle_error(candidate, "the rating point was not sized".into()))?;
     let base_site = &base.cached.site;
+    let (output_ratio, heat_rate_ratio) = (
+        rated_output_kw / base.rated_output_kw,
+        rating.heat_rate_kj_per_kwh / base.rated_heat_rate_kj_per_kwh,
+    );
     let site = SitePerformance {
-        net_output_kw: base_site.net_output_kw * rated_output_kw / base.rated_output_kw,
-        heat_rate_kj_per_kwh: base_site.heat_rate_kj_per_kwh * rating.heat_rate_kj_per_kwh
-            / base.rated_heat_rate_kj_per_kwh,
+        net_output_kw: base_site.net_output_kw * output_ratio,
+        heat_rate_kj_per_kwh: base_site.heat_rate_kj_per_kwh * heat_rate_ratio,
         rated_heat_rate_kj_per_kwh: rating.heat_rate_kj_per_kwh,
-        block_ratios: base_site.block_ratios.clone(),
+        capacity_output_kw: base_site.capacity_output_kw * output_ratio,
+        // The base's points, shared; the ratios wait in `pending_scale`.
+        points: base_site.points.clone(),
         basis: base_site.basis.clone(),
     };
+    // energy = Σ l·P·h scales with the output; fuel = Σ l·P·h·HR with
+    // output × heat rate; the hours stay.
+    let year = base.cached.year.map(|(hours, y)| {
+        (
+            hours,
+            AnnualOperation {
+                operating_hours: y.operating_hours,
+                energy_mwh: y.energy_mwh * output_ratio,
+                fuel_energy_gj_lhv: y.fuel_energy_gj_lhv * output_ratio * heat_rate_ratio,
+            },
+        )
+    });
     Ok(CachedCycle {
         config,
         site,
+        year,
+        pending_scale: Some((output_ratio, heat_rate_ratio)),
         ..base.cached.clone()
     })
 }

@@ -14,7 +14,8 @@
 
 use super::compare::Study;
 use super::engine::fuel_of;
-use super::evaluate::{ledger_inputs, output_reference_of, solve};
+use super::evaluate::{ledger_inputs, output_reference_of, solve, year_of, Solved};
+use super::operation::conditions;
 use crate::finance::{compare_summaries, summarize_ledger};
 use crate::scenario::{Distribution, LoadedScenario, Scenario, UncertainInput};
 use rust_decimal::Decimal;
@@ -141,20 +142,62 @@ fn range_of(input: &UncertainInput, base: f64) -> (f64, f64, RangeSource) {
 /// Net savings of every non-baseline candidate (id, savings), or `None` if
 /// any candidate cannot be solved or costed at these inputs.
 pub fn net_savings(scenario: &Scenario, baseline: &str) -> Option<Vec<(String, Decimal)>> {
+    net_savings_from(scenario, baseline, None)
+}
+
+/// Whether candidate `i` of `scenario` is, physically, the one of `base`:
+/// same candidate, site, fuel composition, part-load table, year
+/// conditions (ambient, humidity, load) and capacity temperature. Its
+/// cycle and site performance can then be reused; only the year's hours
+/// (and the money) may differ.
+fn same_physics(scenario: &Scenario, base: &Scenario, i: usize) -> bool {
+    let key = |s: &Scenario| {
+        conditions(s)
+            .iter()
+            .map(|c| (c.temperature_k, c.relative_humidity, c.load_fraction))
+            .collect::<Vec<_>>()
+    };
+    scenario.candidates.get(i) == base.candidates.get(i)
+        && scenario.site == base.site
+        && scenario.fuel.composition == base.fuel.composition
+        && scenario.economics.capacity_temperature_k == base.economics.capacity_temperature_k
+        && key(scenario) == key(base)
+}
+
+/// [`net_savings`], reusing the base study's solved candidates whose
+/// physics the swing leaves alone (a money key, the hours, another
+/// candidate's efficiency): the same numbers without re-solving each
+/// machine over the year.
+fn net_savings_from(
+    scenario: &Scenario,
+    baseline: &str,
+    base: Option<(&Scenario, &Study)>,
+) -> Option<Vec<(String, Decimal)>> {
     let fuel = fuel_of(&scenario.fuel).ok()?;
     let solved_all = scenario
         .candidates
         .iter()
-        .map(|c| solve(scenario, c, &fuel).ok())
+        .enumerate()
+        .map(|(i, c)| match base {
+            Some((b, study)) if same_physics(scenario, b, i) => {
+                let solved = &study.outcomes.get(i)?.solved;
+                Some(Solved {
+                    cycle: solved.cycle.clone(),
+                    site: solved.site.clone(),
+                    year: year_of(scenario, &solved.site),
+                })
+            }
+            _ => solve(scenario, c, &fuel).ok(),
+        })
         .collect::<Option<Vec<_>>>()?;
-    let reference = output_reference_of(scenario, solved_all.iter().map(|s| s.site.net_output_kw));
+    let reference = output_reference_of(scenario, solved_all.iter().map(|s| Some(&s.site)));
     let mut summaries = Vec::with_capacity(scenario.candidates.len());
     for (candidate, solved) in scenario.candidates.iter().zip(&solved_all) {
         let inputs = ledger_inputs(
             scenario,
             candidate,
             &fuel,
-            (&solved.year, solved.site.net_output_kw),
+            (&solved.year, solved.site.capacity_output_kw),
             &reference,
         )
         .ok()?;
@@ -168,12 +211,22 @@ pub fn net_savings(scenario: &Scenario, baseline: &str) -> Option<Vec<(String, D
         .collect()
 }
 
-fn swung(loaded: &LoadedScenario, key: &str, value: f64) -> crate::Result<Vec<(String, Decimal)>> {
+fn swung(
+    loaded: &LoadedScenario,
+    study: &Study,
+    key: &str,
+    value: f64,
+) -> crate::Result<Vec<(String, Decimal)>> {
     let mut scenario = loaded.scenario.clone();
     scenario
         .set_numeric(key, value)
         .map_err(|e| loaded.error_at("uncertainty", &format!("sensitivity of `{key}`: {e}")))?;
-    net_savings(&scenario, &loaded.scenario.meta.baseline).ok_or_else(|| {
+    net_savings_from(
+        &scenario,
+        &loaded.scenario.meta.baseline,
+        Some((&loaded.scenario, study)),
+    )
+    .ok_or_else(|| {
         loaded.error_at(
             "uncertainty",
             &format!(
@@ -219,8 +272,8 @@ pub fn rank(loaded: &LoadedScenario, study: &Study) -> crate::Result<Vec<Swing>>
         if source == RangeSource::DefaultTwentyPercent && base_value == 0.0 {
             continue;
         }
-        let at_low = swung(loaded, &input.key, low)?;
-        let at_high = swung(loaded, &input.key, high)?;
+        let at_low = swung(loaded, study, &input.key, low)?;
+        let at_high = swung(loaded, study, &input.key, high)?;
         let deltas = base
             .iter()
             .zip(at_low.iter().zip(at_high.iter()))

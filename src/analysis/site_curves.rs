@@ -4,9 +4,8 @@
 //! the comparison priced it.
 //!
 //! Run hours by temperature bin and starts per year come from
-//! [`operating_profile`], the one place the site's weather and starts are
-//! to be read when they are modelled; today every run hour is at the
-//! site's annual mean temperature and starts are not modelled.
+//! [`operating_profile`]: the year's operating conditions (weather and
+//! dispatch) and `operation.starts_per_year`.
 
 use super::compare::Study;
 use super::machine::{machine_of, site_ambient};
@@ -24,7 +23,7 @@ const STEP_K: f64 = 5.0;
 const TEMPERATURES: usize = 12;
 /// Loads of the part-load curves, fractions of the site base load.
 const LOADS: [f64; 7] = [1.0, 0.9, 0.8, 0.7, 0.6, 0.5, 0.4];
-/// Width of the single bin today's annual-mean site falls in, K.
+/// Width of a run-hours temperature bin, K.
 const BIN_K: f64 = 5.0;
 
 /// One candidate's year as priced: what [`operating_profile`] reads.
@@ -47,21 +46,38 @@ pub struct OperatingProfile {
 }
 
 /// Run hours by ambient temperature bin and starts per year of one
-/// candidate's year.
-///
-/// Extension point for the site's weather and starts (issue 12): when the
-/// year comes from hourly weather or temperature bins, bin its run hours
-/// here (the hours each candidate runs in each bin) and return its starts.
-/// Today the scenario has one annual-mean temperature, so every run hour
-/// falls in the one bin around it, and starts are not modelled (`None`).
+/// candidate's year: the year's operating conditions
+/// ([`super::operation::conditions`], the weather and dispatch as priced)
+/// in [`BIN_K`]-wide bins of dry-bulb temperature on whole multiples of
+/// 5 °C; with one annual-mean temperature every hour falls in one bin.
+/// Every candidate runs the same hours, so only the starts and hours of
+/// the scenario matter; `year` is the candidate's priced year, whose run
+/// hours the bins sum to.
 pub fn operating_profile(scenario: &Scenario, year: &CandidateYear) -> OperatingProfile {
-    let mean = scenario.site.ambient_temperature_k;
+    let mut bins: std::collections::BTreeMap<i64, f64> = std::collections::BTreeMap::new();
+    for c in super::operation::conditions(scenario) {
+        let index = ((c.temperature_k - 273.15) / BIN_K).floor() as i64;
+        *bins.entry(index).or_insert(0.0) += c.hours;
+    }
+    let total: f64 = bins.values().sum();
+    // The conditions' hours are the priced year's; guard rounding only.
+    let scale = if total > 0.0 {
+        year.year.operating_hours / total
+    } else {
+        0.0
+    };
     OperatingProfile {
-        hours_by_temperature: vec![TemperatureBinView {
-            low_k: mean - BIN_K / 2.0,
-            high_k: mean + BIN_K / 2.0,
-            hours: year.year.operating_hours,
-        }],
+        hours_by_temperature: bins
+            .into_iter()
+            .map(|(index, hours)| {
+                let low_k = 273.15 + BIN_K * index as f64;
+                TemperatureBinView {
+                    low_k,
+                    high_k: low_k + BIN_K,
+                    hours: hours * scale,
+                }
+            })
+            .collect(),
         starts_per_year: Some(scenario.operation.starts_per_year),
     }
 }

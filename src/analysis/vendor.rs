@@ -315,13 +315,13 @@ pub fn curve_block_ratios(candidate: &Candidate, dispatch: &[DispatchBlock]) -> 
 /// candidate's base load at the site and its part load, and where the site
 /// lies beyond a vendor curve (carried on by physics). `fixed_machine[i]`
 /// says whether candidate `i` is priced as a fixed machine (a candidate
-/// kept at its rating has its own note in `analysis::site`).
-pub fn pricing_notes(scenario: &Scenario, fixed_machine: &[bool]) -> Vec<String> {
-    let has_part_load = scenario
-        .operation
-        .dispatch
-        .iter()
-        .any(|b| b.load_fraction < 1.0);
+/// kept at its rating has its own note in `analysis::site`);
+/// `has_part_load` whether the year runs any hour below base load.
+pub fn pricing_notes(
+    scenario: &Scenario,
+    fixed_machine: &[bool],
+    has_part_load: bool,
+) -> Vec<String> {
     let mut notes = Vec::new();
     for (candidate, &machine) in scenario.candidates.iter().zip(fixed_machine) {
         let base = match (machine, ambient_source(candidate)) {

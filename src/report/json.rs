@@ -64,6 +64,14 @@ fn performance(p: &PerformanceView) -> Value {
             "air_flow_kg_per_s": p.air_flow_kg_per_s,
             "fuel_flow_kg_per_s": p.fuel_flow_kg_per_s,
             "co2_kg_per_mwh": p.co2_kg_per_mwh,
+            "site_year": {
+                "run_hours": p.site_year.run_hours,
+                "energy_mwh": p.site_year.energy_mwh,
+                "fuel_energy_gj_lhv": p.site_year.fuel_energy_gj_lhv,
+                "mean_heat_rate_kj_per_kwh": p.site_year.mean_heat_rate_kj_per_kwh,
+                "capacity_output_kw": p.site_year.capacity_output_kw,
+                "capacity_temperature_k": p.site_year.capacity_temperature_k,
+            },
     });
     if let (Some(implied), Value::Object(map)) = (&p.implied, &mut value) {
         map.insert(

@@ -243,6 +243,28 @@ pub struct PerformanceView {
     /// absent for a bid without one.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub implied: Option<ImpliedView>,
+    /// The candidate's own year at the site, new and clean.
+    pub site_year: SiteYearView,
+}
+
+/// A candidate's year at the site from its own performance in every
+/// operating condition (weather, dispatch or hourly profile), new and
+/// clean, before output levelling.
+#[derive(Debug, Clone, Serialize)]
+pub struct SiteYearView {
+    /// Run hours per year, h.
+    pub run_hours: f64,
+    /// Net energy per year, MWh.
+    pub energy_mwh: f64,
+    /// Fuel energy per year, GJ (LHV).
+    pub fuel_energy_gj_lhv: f64,
+    /// Mean net heat rate over the year (fuel ÷ energy), kJ/kWh (LHV).
+    pub mean_heat_rate_kj_per_kwh: f64,
+    /// Capacity credited: base-load net output at the capacity
+    /// temperature (or at the site), kW.
+    pub capacity_output_kw: f64,
+    /// The capacity temperature, K (`null`: the site's ambient).
+    pub capacity_temperature_k: Option<f64>,
 }
 
 /// What a bid's vendor figures imply about the engine inside, and whether

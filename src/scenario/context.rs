@@ -43,6 +43,9 @@ pub(crate) struct Context<'t> {
     pub inputs: Vec<InputLine>,
     /// Scenario currency code (from `[scenario]`), once read.
     pub currency: Option<String>,
+    /// Folder of the scenario file: files it names (weather, profile) are
+    /// relative to it; `None` reads them relative to the working folder.
+    pub dir: Option<std::path::PathBuf>,
 }
 
 impl<'t> Context<'t> {
@@ -55,6 +58,7 @@ impl<'t> Context<'t> {
             defaults: Vec::new(),
             inputs: Vec::new(),
             currency: None,
+            dir: None,
         }
     }
 

@@ -4,7 +4,10 @@
 use super::context::Context;
 use super::declare::{keys_in, money_from_f64, money_to_f64, Key, Presence, Shape};
 use super::error::ScenarioError;
-use super::ranges::{Range, PRICE_HIGH, PRICE_REASON, RATE_HIGH, RATE_LOW, RATE_REASON};
+use super::ranges::{
+    Range, AMBIENT_T_K, AMBIENT_T_REASON, PRICE_HIGH, PRICE_REASON, RATE_HIGH, RATE_LOW,
+    RATE_REASON,
+};
 use super::reader::TableReader;
 use super::tree::Node;
 use super::types::{Economics, PresentValueDate, RateBasis, Scenario, Timing};
@@ -111,6 +114,19 @@ pub(crate) const KEYS: &[Key<Scenario>] = &[
         },
     )
     .within(0.0, PRICE_HIGH, "", PRICE_REASON),
+    K::number(
+        "economics.capacity_temperature",
+        Kind::Temperature,
+        Range::Positive,
+        Presence::Optional { text: "the site's `ambient_temperature`" },
+        "ambient temperature at which capacity is credited (e.g. the summer peak, `\"35 degC\"`): each candidate's base-load output there, at the site's pressure and relative humidity, sets its capacity shortfall (see *Levelling on output*)",
+        |s| s.economics.capacity_temperature_k,
+        |s, v| {
+            s.economics.capacity_temperature_k = Some(v);
+            Ok(())
+        },
+    )
+    .within(AMBIENT_T_K.0, AMBIENT_T_K.1, "K", AMBIENT_T_REASON),
 ];
 
 /// Read `[economics]`.
@@ -167,6 +183,13 @@ pub(crate) fn read_economics(ctx: &mut Context, node: &Node) -> Read<Economics> 
     )?;
     let energy_value_per_mwh =
         money_or_zero(ctx, &r, "energy_value", units::price_per_mwh, "/MWh")?;
+    let capacity_temperature_k = match KEYS
+        .iter()
+        .find(|k| k.path == "economics.capacity_temperature")
+    {
+        Some(key) => r.declared(ctx, key)?,
+        None => None,
+    };
     Ok(Economics {
         commercial_operation,
         // Checked above as a whole number from 1 to 60.
@@ -180,5 +203,6 @@ pub(crate) fn read_economics(ctx: &mut Context, node: &Node) -> Read<Economics> 
         carbon_escalation,
         capacity_value_per_kw_year,
         energy_value_per_mwh,
+        capacity_temperature_k,
     })
 }

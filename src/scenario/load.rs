@@ -60,7 +60,7 @@ pub fn load(path: &Path) -> Result<LoadedScenario, ScenarioError> {
         source,
     })?;
     let text = utf8_text(bytes, &label)?;
-    parse(&text, &label)
+    parse_in(&text, &label, path.parent())
 }
 
 /// The file's bytes as text; a file that is not UTF-8 is bad input, placed
@@ -87,7 +87,19 @@ pub(crate) fn utf8_text(bytes: Vec<u8>, label: &str) -> Result<String, ScenarioE
 
 /// Load a scenario from its text; `file_label` names it in messages.
 pub fn parse(text: &str, file_label: &str) -> Result<LoadedScenario, ScenarioError> {
+    parse_in(text, file_label, None)
+}
+
+/// Load a scenario from its text; `file_label` names it in messages and
+/// `dir` is the folder files it names (weather, profile) are relative to
+/// (`None`: the working folder).
+pub fn parse_in(
+    text: &str,
+    file_label: &str,
+    dir: Option<&Path>,
+) -> Result<LoadedScenario, ScenarioError> {
     let mut ctx = Context::new(file_label, text);
+    ctx.dir = dir.map(Path::to_path_buf);
     let entries = parse_document(text).map_err(|e| {
         ctx.error_at_offset(
             e.offset,
@@ -124,7 +136,7 @@ pub fn parse(text: &str, file_label: &str) -> Result<LoadedScenario, ScenarioErr
     let node = required(&ctx, "fuel")?;
     let fuel = read_fuel(&mut ctx, node, economics.commercial_operation.year())?;
     let node = required(&ctx, "operation")?;
-    let operation = read_operation(&mut ctx, node)?;
+    let operation = read_operation(&mut ctx, node, site.weather.as_deref())?;
     let candidates = read_candidates(
         &mut ctx,
         section("candidate"),

@@ -35,6 +35,7 @@ mod uncertainty_section;
 mod validate;
 mod values;
 mod warnings;
+mod weather;
 
 pub use candidate_control::{ControlSpec, ControlStrategy};
 pub use candidate_fit::{solver_fuel, FittedMachine};
@@ -44,8 +45,9 @@ pub use declare::{
     check_candidate_value, check_flag_value, check_scenario_value, declared_key_paths, docs_tables,
 };
 pub use error::{clip, clip_long, KeyError, ScenarioError};
-pub use load::{load, parse, LoadedScenario};
+pub use load::{load, parse, parse_in, LoadedScenario};
 pub use ranges::HOURS_PER_LEAP_YEAR;
 pub use site::{iso_2533_pressure_kpa, ELEVATION_RANGE_M};
 pub use types::*;
 pub use warnings::{engineering_warnings, information_notes};
+pub use weather::{AmbientRecord, Profile, ProfileHour, Weather, WeatherSource, HOURS_PER_YEAR};

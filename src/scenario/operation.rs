@@ -1,16 +1,18 @@
-//! The `[operation]` section: hours per year and a dispatch profile. The
-//! part-load heat-rate curve is a bid's own (`part_load` on each
-//! `[[candidate]]`); the retired `[operation] part_load` is refused with a
-//! message saying where it moved.
+//! The `[operation]` section: hours per year, starts, dispatch blocks
+//! (each optionally at its own ambient) or an hourly profile
+//! ([`super::weather`]). The part-load heat-rate curve is a bid's own
+//! (`part_load` on each `[[candidate]]`); the retired `[operation]
+//! part_load` is refused with a message saying where it moved.
 
 use super::context::Context;
 use super::declare::{keys_in, Key, Presence, SetResult, Shape};
 use super::error::ScenarioError;
-use super::ranges::{Range, HOURS_PER_LEAP_YEAR};
+use super::ranges::{Range, AMBIENT_T_K, HOURS_PER_LEAP_YEAR};
 use super::reader::{type_error, TableReader};
 use super::tree::{Node, NodeValue};
 use super::types::{DispatchBlock, Operation, Scenario};
 use super::values::checked;
+use super::weather::{read_profile, Weather};
 use crate::units::{self, Kind};
 
 type Read<T> = Result<T, ScenarioError>;
@@ -23,8 +25,8 @@ pub(crate) const KEYS: &[Key<Scenario>] = &[
         "operation.hours_per_year",
         Kind::Duration,
         Range::HoursPerYear,
-        Presence::RequiredUnless { text: "`dispatch` (then the dispatch total)" },
-        "operating hours per year; setting it through a key path scales every dispatch block in proportion",
+        Presence::RequiredUnless { text: "`dispatch` (then the dispatch total) or `profile` (then its run hours × 8760 / rows)" },
+        "operating hours per year; setting it through a key path scales every dispatch block (or the profile's hours) in proportion",
         |s| Some(s.operation.hours_per_year),
         set_hours_per_year,
     ),
@@ -41,7 +43,8 @@ pub(crate) const KEYS: &[Key<Scenario>] = &[
         },
     )
     .within(0.0, HOURS_PER_LEAP_YEAR, "", "at most one start per hour of the year; a peaker starts a few hundred times a year (common practice)"),
-    K::plain("operation.dispatch", Shape::Array, Presence::Optional { text: "every hour at full load" }, "`[{ load = \"100 %\", hours = 2000 }, { load = \"75 %\", hours = 1000 }]`; loads in (0, 100 %], hours ≥ 0, total ≤ 8784. With `hours_per_year` too, the total must equal it"),
+    K::plain("operation.dispatch", Shape::Array, Presence::Optional { text: "every hour at full load" }, "`[{ load = \"100 %\", hours = 2000 }, { load = \"75 %\", hours = 1000, ambient_temperature = \"30 degC\", relative_humidity = \"40 %\" }]`; loads in (0, 100 %] of the output available at the block's ambient, hours ≥ 0, total ≤ 8784. With `hours_per_year` too, the total must equal it. A block without `ambient_temperature` spreads its hours over the site's weather in proportion to the weather's hours (or runs at the site's ambient); a block with it and without `relative_humidity` takes the site's"),
+    K::plain("operation.profile", Shape::Text, Presence::Optional { text: "none" }, "instead of `dispatch`: an hourly CSV file relative to the scenario, columns `timestamp` (as the weather's, hour by hour), `load_pct` (% of the output available in that hour, 0 = off) and optionally `energy_price_per_MWh` (prices the energy shortfall hour by hour, see *Levelling on output*). Each row counts 8760 / rows hours; without `site.weather` every hour is at the site's ambient; with weather bins it is refused"),
 ];
 
 /// Scale every dispatch block so the hours sum to `hours`.
@@ -57,7 +60,11 @@ fn set_hours_per_year(s: &mut Scenario, hours: f64) -> SetResult {
 }
 
 /// Read `[operation]`.
-pub(crate) fn read_operation(ctx: &mut Context, node: &Node) -> Read<Operation> {
+pub(crate) fn read_operation(
+    ctx: &mut Context,
+    node: &Node,
+    weather: Option<&Weather>,
+) -> Read<Operation> {
     refuse_retired_part_load(ctx, node)?;
     let r = TableReader::new(ctx, "operation", node, &keys_in(KEYS, "operation"))?;
     let hours = checked(
@@ -67,13 +74,20 @@ pub(crate) fn read_operation(ctx: &mut Context, node: &Node) -> Read<Operation> 
         units::duration_h,
         Range::HoursPerYear,
     )?;
-    let dispatch = read_blocks(ctx, &r, "dispatch", &["load", "hours"])?
-        .into_iter()
-        .map(|(load_fraction, hours)| DispatchBlock {
-            load_fraction,
-            hours,
-        })
-        .collect::<Vec<_>>();
+    let dispatch = read_dispatch(ctx, &r)?;
+    let profile = read_profile(ctx, &r, weather)?;
+    if profile.is_some() {
+        for other in ["dispatch", "hours_per_year"] {
+            if r.has(other) {
+                return Err(r.error(
+                    ctx,
+                    other,
+                    "is given together with profile",
+                    "expected either an hourly profile or dispatch blocks and hours_per_year, not both",
+                ));
+            }
+        }
+    }
     r.source_below(ctx, "dispatch");
     let total: f64 = dispatch.iter().map(|b| b.hours).sum();
     if total > HOURS_PER_LEAP_YEAR {
@@ -84,17 +98,26 @@ pub(crate) fn read_operation(ctx: &mut Context, node: &Node) -> Read<Operation> 
             "expected dispatch hours summing to at most 8784",
         ));
     }
-    let hours_per_year = match hours {
-        Some(h) => h,
-        None if !dispatch.is_empty() && total > 0.0 => {
+    let hours_per_year = match (hours, &profile) {
+        (_, Some(p)) => {
+            let h = p.run_hours_per_year();
+            r.default(
+                ctx,
+                "hours_per_year",
+                &format!("{h:.1} h (profile run hours × 8760 / rows)"),
+            );
+            h
+        }
+        (Some(h), None) => h,
+        (None, None) if !dispatch.is_empty() && total > 0.0 => {
             r.default(ctx, "hours_per_year", &format!("{total} h (sum of dispatch)"));
             total
         }
-        None => {
+        (None, None) => {
             return Err(r.missing(
                 ctx,
                 "hours_per_year",
-                "expected operating hours per year, e.g. hours_per_year = \"4000 h\", or a dispatch profile",
+                "expected operating hours per year, e.g. hours_per_year = \"4000 h\", dispatch blocks or an hourly profile",
             ))
         }
     };
@@ -103,37 +126,68 @@ pub(crate) fn read_operation(ctx: &mut Context, node: &Node) -> Read<Operation> 
         hours_per_year,
         starts_per_year,
         dispatch,
+        profile: profile.map(std::sync::Arc::new),
     })
 }
 
-/// Read an array of small inline tables with a `load` and its `hours`.
-fn read_blocks(
-    ctx: &mut Context,
-    r: &TableReader,
-    key: &str,
-    keys: &[&str; 2],
-) -> Read<Vec<(f64, f64)>> {
-    let Some(node) = r.node(ctx, key) else {
+/// Read the dispatch blocks: `load`, `hours`, and optionally the block's
+/// own `ambient_temperature` and `relative_humidity`.
+fn read_dispatch(ctx: &mut Context, r: &TableReader) -> Read<Vec<DispatchBlock>> {
+    let Some(node) = r.node(ctx, "dispatch") else {
         return Ok(Vec::new());
     };
-    let field = r.field(key);
+    let field = r.field("dispatch");
     let NodeValue::Array(items) = &node.value else {
         return Err(type_error(
             ctx,
             &field,
             node,
-            "an array of tables, e.g. [{ load = \"100 %\", … }]",
+            "an array of tables, e.g. [{ load = \"100 %\", hours = 2000 }]",
         ));
     };
     let mut blocks = Vec::with_capacity(items.len());
     for (i, item) in items.iter().enumerate() {
         let path = format!("{field}[{}]", i + 1);
-        let b = TableReader::new(ctx, &path, item, keys)?;
-        let load = checked(ctx, &b, "load", units::fraction, Range::Efficiency)?
+        let b = TableReader::new(
+            ctx,
+            &path,
+            item,
+            &["load", "hours", "ambient_temperature", "relative_humidity"],
+        )?;
+        let load_fraction = checked(ctx, &b, "load", units::fraction, Range::Efficiency)?
             .ok_or_else(|| b.missing(ctx, "load", "expected a load fraction such as \"75 %\""))?;
-        let second = checked(ctx, &b, "hours", units::duration_h, Range::NonNegative)?
-            .ok_or_else(|| b.missing(ctx, keys[1], "expected a value for each block"))?;
-        blocks.push((load, second));
+        let hours = checked(ctx, &b, "hours", units::duration_h, Range::NonNegative)?
+            .ok_or_else(|| b.missing(ctx, "hours", "expected a value for each block"))?;
+        let ambient_temperature_k = checked(
+            ctx,
+            &b,
+            "ambient_temperature",
+            units::temperature_k,
+            Range::Positive,
+        )?;
+        if let Some(t) = ambient_temperature_k {
+            if !(AMBIENT_T_K.0..=AMBIENT_T_K.1).contains(&t) {
+                return Err(b.error(
+                    ctx,
+                    "ambient_temperature",
+                    format!("{t:.2} K is outside the ambient range"),
+                    format!("expected {} K to {} K", AMBIENT_T_K.0, AMBIENT_T_K.1),
+                ));
+            }
+        }
+        let relative_humidity = checked(
+            ctx,
+            &b,
+            "relative_humidity",
+            units::fraction,
+            Range::Fraction,
+        )?;
+        blocks.push(DispatchBlock {
+            load_fraction,
+            hours,
+            ambient_temperature_k,
+            relative_humidity,
+        });
     }
     Ok(blocks)
 }

@@ -8,6 +8,7 @@ use super::ranges::{Range, AMBIENT_P_KPA, AMBIENT_P_REASON, AMBIENT_T_K, AMBIENT
 use super::reader::TableReader;
 use super::tree::Node;
 use super::types::{Scenario, Site};
+use super::weather::read_weather;
 use crate::units::{self, Kind};
 
 type Read<T> = Result<T, ScenarioError>;
@@ -69,6 +70,7 @@ pub(crate) const KEYS: &[Key<Scenario>] = &[
             Ok(())
         },
     ),
+    K::plain("site.weather", Shape::Array, Presence::Optional { text: "none: every hour at `ambient_temperature` and `relative_humidity`" }, "the year's weather: a CSV file relative to the scenario (hourly rows; columns `timestamp`, one of `dry_bulb_degC` / `dry_bulb_degF` / `dry_bulb_K`, `rh_pct`; each row counts 8760 / rows hours), or bins `[{ temperature = \"5 degC\", relative_humidity = \"70 %\", hours = 744 }, …]` (humidity defaults to `relative_humidity`; hours sum to at most 8784 and weigh the bins). Dispatch blocks without their own temperature, or `hours_per_year`, spread over the weather's hours in proportion; `ambient_temperature` stays the site's reference point (site figures, default capacity)"),
     K::plain("site.elevation", Shape::Quantity(Kind::Length), Presence::Optional { text: "none" }, "instead of `ambient_pressure` (not both): pressure by ISO 2533, p = 101.325 kPa · (1 − 2.25577e-5 · z/m)^5.25588, for −500 m to 11 000 m"),
 ];
 
@@ -111,11 +113,13 @@ pub(crate) fn read_site(ctx: &mut Context, node: &Node) -> Read<Site> {
         }
     };
     let relative_humidity = r.declared_at(ctx, KEYS, "site.relative_humidity")?;
+    let weather = read_weather(ctx, &r, relative_humidity)?.map(std::sync::Arc::new);
     Ok(Site {
         name,
         ambient_temperature_k,
         ambient_pressure_kpa,
         elevation_m,
         relative_humidity,
+        weather,
     })
 }

@@ -70,6 +70,10 @@ pub struct Site {
     pub elevation_m: Option<f64>,
     /// Ambient relative humidity, a fraction from 0 to 1.
     pub relative_humidity: f64,
+    /// The year's weather (`[site] weather`: hourly file or bins); `None`:
+    /// every hour at `ambient_temperature` and `relative_humidity`. Shared,
+    /// so copies of a scenario (sweep and risk points) do not copy it.
+    pub weather: Option<std::sync::Arc<super::weather::Weather>>,
 }
 
 /// How the fuel is described.
@@ -225,6 +229,11 @@ pub struct Economics {
     /// generates most is bought elsewhere; 0 when energy differences are
     /// not valued.
     pub energy_value_per_mwh: Decimal,
+    /// Ambient temperature at which capacity is credited, K
+    /// (`economics.capacity_temperature`): each candidate's base-load
+    /// output there. `None`: its base-load output at the site's
+    /// `ambient_temperature`.
+    pub capacity_temperature_k: Option<f64>,
 }
 
 /// Part of a year's operating hours at one load.
@@ -234,6 +243,12 @@ pub struct DispatchBlock {
     pub load_fraction: f64,
     /// Hours per year at this load, ≥ 0.
     pub hours: f64,
+    /// The block's own ambient temperature, K; `None`: its hours spread
+    /// over the site's weather (or the site's ambient).
+    pub ambient_temperature_k: Option<f64>,
+    /// The block's own relative humidity (fraction); `None`: the site's
+    /// (with `ambient_temperature_k`) or the weather's.
+    pub relative_humidity: Option<f64>,
 }
 
 /// One point of a vendor's part-load heat-rate curve (`part_load` on a
@@ -256,4 +271,7 @@ pub struct Operation {
     pub starts_per_year: f64,
     /// Dispatch profile; empty means every hour at full load.
     pub dispatch: Vec<DispatchBlock>,
+    /// An hourly dispatch profile (`[operation] profile`), instead of
+    /// dispatch blocks; shared like the weather.
+    pub profile: Option<std::sync::Arc<super::weather::Profile>>,
 }

@@ -152,6 +152,14 @@ fn candidate(
             fuel_flow_kg_per_s: 2.41,
             co2_kg_per_mwh: 512.3,
             implied: None,
+            site_year: SiteYearView {
+                run_hours: 3000.0,
+                energy_mwh: 126_000.0,
+                fuel_energy_gj_lhv: 126_000.0 * heat_rate / 1000.0,
+                mean_heat_rate_kj_per_kwh: heat_rate,
+                capacity_output_kw: 42_000.0,
+                capacity_temperature_k: None,
+            },
         },
         cycle: CycleView {
             states: states(1500.0, regenerator),

@@ -16,7 +16,7 @@ use std::path::Path;
 
 /// The two demo scenarios (invented places and organisations).
 pub const DEMOS: [&str; 2] = [
-    "scenarios/corvel-bay-peaker.toml",
+    "tests/fixtures/corvel-bay-blocks.toml",
     "scenarios/kestrel-point-retrofit.toml",
 ];
 

@@ -14,12 +14,14 @@ pub(super) fn site(dst: &mut Site, src: &Site) {
         ambient_pressure_kpa,
         elevation_m,
         relative_humidity,
+        weather,
     } = src;
     dst.name.clone_from(name);
     dst.ambient_temperature_k = *ambient_temperature_k;
     dst.ambient_pressure_kpa = *ambient_pressure_kpa;
     dst.relative_humidity = *relative_humidity;
     dst.elevation_m = *elevation_m;
+    dst.weather.clone_from(weather);
 }
 
 /// `dst` becomes equal to `src`.
@@ -50,10 +52,12 @@ pub(super) fn operation(dst: &mut Operation, src: &Operation) {
         hours_per_year,
         starts_per_year,
         dispatch,
+        profile,
     } = src;
     dst.hours_per_year = *hours_per_year;
     dst.starts_per_year = *starts_per_year;
     dst.dispatch.clone_from(dispatch);
+    dst.profile.clone_from(profile);
 }
 
 fn costs(dst: &mut CandidateCosts, src: &CandidateCosts) {
@@ -161,7 +165,7 @@ mod tests {
 
     #[test]
     fn restored_sections_equal_the_base() {
-        let text = include_str!("../../../scenarios/corvel-bay-peaker.toml");
+        let text = include_str!("../../../tests/fixtures/corvel-bay-blocks.toml");
         let Ok(loaded) = parse(text, "demo.toml") else {
             panic!("the demo must load");
         };

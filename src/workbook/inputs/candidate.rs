@@ -262,6 +262,14 @@ pub(super) fn write(
         Origin::Computed,
     )?;
     w.named(
+        "Capacity credited (base-load output at the capacity temperature)",
+        &n.name("CapacityKw"),
+        Shown::Number(site.capacity_output_kw),
+        "kW",
+        &format!("{COMPUTED_NOTE}; the fixed machine at economics.capacity_temperature (else at the site)"),
+        Origin::Computed,
+    )?;
+    w.named(
         "Base-load heat rate at the site (LHV)",
         &n.name("HeatRate"),
         Shown::Number(site.heat_rate_kj_per_kwh),
@@ -304,7 +312,7 @@ pub(super) fn write(
     )?;
     bins(w, scenario, site)?;
     let energies = names.all("AnnualEnergy");
-    let outputs = names.all("SiteOutputKw");
+    let outputs = names.all("CapacityKw");
     w.formula(
         "Energy shortfall bought elsewhere",
         &n.name("EnergyShortfall"),
@@ -316,38 +324,36 @@ pub(super) fn write(
     w.formula(
         "Capacity shortfall bought elsewhere",
         &n.name("CapacityShortfall"),
-        &format!("=MAX(0,MAX({outputs})-{})", n.name("SiteOutputKw")),
+        &format!("=MAX(0,MAX({outputs})-{})", n.name("CapacityKw")),
         inputs.bought_in.capacity_kw,
         "kW",
-        "levelling: the largest base-load output at the site, less this candidate's",
+        "levelling: the largest capacity credited, less this candidate's",
     )?;
     Ok(())
 }
 
-/// The candidate's operating points of the year (dispatch blocks, or all
-/// hours at full load): output and heat rate of its fixed machine at the
-/// site (part load from the machine or the scenario's part-load table), as
-/// computed constants.
+/// The candidate's operating conditions of the year (dispatch blocks,
+/// weather records or bins, profile hours): load, output and heat rate of
+/// its fixed machine there (part load from the machine or the scenario's
+/// part-load table) and hours, as computed constants.
 fn bins(
     w: &mut Writer,
     scenario: &crate::scenario::Scenario,
     site: &crate::analysis::site::SitePerformance,
 ) -> Result<()> {
-    let operation = &scenario.operation;
-    let (net_output_kw, heat_rate) = (site.net_output_kw, site.heat_rate_kj_per_kwh);
-    let points: Vec<(f64, f64, f64)> = if operation.dispatch.is_empty() {
-        vec![(1.0, operation.hours_per_year, 1.0)]
-    } else {
-        operation
-            .dispatch
-            .iter()
-            .enumerate()
-            .map(|(i, b)| {
-                let ratio = site.block_ratios.get(i).copied().unwrap_or(1.0);
-                (b.load_fraction, b.hours, ratio)
-            })
-            .collect()
-    };
+    let conditions = crate::analysis::operation::conditions(scenario);
+    let points: Vec<(f64, f64, f64, f64)> = conditions
+        .iter()
+        .zip(site.points.iter())
+        .map(|(c, p)| {
+            (
+                c.load_fraction,
+                c.load_fraction * p.available_kw,
+                p.heat_rate_kj_per_kwh,
+                c.hours,
+            )
+        })
+        .collect();
     let s = w.styles;
     let header = [
         "Load",
@@ -364,15 +370,11 @@ fn bins(
             .map_err(xlsx_error)?;
     }
     w.row += 1;
-    for (load, hours, ratio) in points {
+    for (load, output_kw, heat_rate, hours) in points {
         w.sheet
             .write_number_with_format(w.row, 1, load, &s.percent.computed)
-            .and_then(|x| {
-                x.write_number_with_format(w.row, 2, load * net_output_kw, &s.number.computed)
-            })
-            .and_then(|x| {
-                x.write_number_with_format(w.row, 3, heat_rate * ratio, &s.number.computed)
-            })
+            .and_then(|x| x.write_number_with_format(w.row, 2, output_kw, &s.number.computed))
+            .and_then(|x| x.write_number_with_format(w.row, 3, heat_rate, &s.number.computed))
             .and_then(|x| x.write_number_with_format(w.row, 4, hours, &s.number.computed))
             .map_err(xlsx_error)?;
         w.row += 1;

@@ -27,22 +27,25 @@
 //! site year once, at the file's values ([`PointModel::new`]); a point
 //! whose only physics change is the candidate's engine description
 //! (component efficiencies, losses, regenerator, pressure ratio, firing
-//! temperature, size) re-solves only the rating point (one design cycle
-//! solve) and scales the base site figures by the rating point's ratios:
+//! temperature, size) calibrates the machine again (one design solve) and
+//! solves it at base load at two ambients only:
 //!
-//! - site output = base site output × rated output / base rated output;
-//! - site heat rate = base site heat rate × rated heat rate / base rated
-//!   heat rate (so the year's energy scales with output and its fuel with
-//!   output × heat rate);
-//! - the rating-point heat rate (what a guarantee defaults to) is the new
-//!   rating solve's own, exact;
-//! - the dispatch blocks keep the base machine's part-load ratios.
+//! - at the base year's energy-weighted mean ambient: the year's energy
+//!   scales with the output ratio there and its fuel with output × heat
+//!   rate ratio (the hours stay; each condition keeps the base machine's
+//!   shape over temperature and load);
+//! - at `economics.capacity_temperature`, when given: the capacity
+//!   credited is that solve's own output (without it, the site output
+//!   scaled by the ratio above);
+//! - the site's base-load output and heat rate (at its annual mean) scale
+//!   with the rating point's ratios; the rating-point heat rate (what a
+//!   guarantee defaults to) is the new calibration's own, exact.
 //!
-//! What it leaves out is how the lapse from rating to site, and the
-//! part-load shape, change with the engine's components: second order for
-//! the small moves of a risk run. Any other physics change (site ambient,
-//! humidity, fuel, rating, control, cooling, gas model, dispatch loads or
-//! the part-load table) is solved in full on either route. The error
+//! What it leaves out is how the shape of the year over temperature and
+//! load changes with the engine's components: second order for the small
+//! moves of a risk run. Any other physics change (site ambient,
+//! humidity, weather, fuel, rating, control, cooling, gas model, dispatch,
+//! vendor curves) is solved in full on either route. The error
 //! against `Route::Exact` is measured in `tests/risk_route.rs` and
 //! recorded in DEVELOPERS.md.
 
@@ -53,10 +56,11 @@ use super::engine::{detail_of, engine_config_of, fuel_of, gas_model_of};
 use super::evaluate::output_reference_from;
 use super::machine::machine_of;
 use super::operation::{year_from, AnnualOperation, Condition};
-use super::site::{fixed_machine_site, rated_site, Basis, SitePerformance};
+use super::site::{fixed_machine_site, rated_site, Basis, SiteModel, SitePerformance};
 use crate::cycle::{self, EngineConfig, GasModel};
 use crate::finance::{compare_summaries, summarize_ledger, LedgerInputs, LedgerSummary};
 use crate::fuel::Fuel;
+use crate::offdesign::Ambient;
 use crate::scenario::{
     AmbientCorrectionSpec, Candidate, ControlSpec, PartLoadPoint, RatingCondition, Scenario,
 };
@@ -168,10 +172,11 @@ impl Route {
     pub fn note(self) -> &'static str {
         match self {
             Route::Scaled => {
-                "Route: a draw that moves a bid's engine (efficiencies, regenerator) re-solves \
-                 its rating point and scales the site output and heat rate, solved once at the \
-                 file's values, by the rating ratios (largest error measured against --exact on \
-                 the two demos: 0.053\u{a0}%, 2\u{a0}000 samples); --exact re-solves every machine in full"
+                "Route: a draw that moves a bid's engine (efficiencies, regenerator) recalibrates \
+                 it and scales its year, solved once at the file's values, by its base-load \
+                 ratios at the year's energy-weighted mean ambient, capacity solved at the \
+                 capacity temperature (largest error measured against --exact on the two demos: \
+                 0.012\u{a0}%, 2\u{a0}000 samples); --exact re-solves every machine in full"
             }
             Route::Exact => {
                 "Route: exact (every draw that moves a bid's engine re-calibrates its machine \
@@ -186,8 +191,13 @@ impl Route {
 #[derive(Debug, Clone)]
 struct BaseSite {
     cached: CachedCycle,
-    rated_output_kw: f64,
-    rated_heat_rate_kj_per_kwh: f64,
+    /// The base machine's rated output, kW, and heat rate, kJ/kWh.
+    rated: (f64, f64),
+    /// The year's energy-weighted mean ambient, where a point's machine is
+    /// solved at base load to scale the base year.
+    representative: Ambient,
+    /// The base machine's (output kW, heat rate kJ/kWh) there, as priced.
+    representative_figures: (f64, f64),
 }
 
 /// The fixed part of a run of points: the base scenario, the keys that
@@ -697,20 +707,47 @@ fn base_site(scenario: &Scenario, candidate: &Candidate, fuel: &Fuel) -> Option<
         return None;
     }
     let hours = scenario.operation.hours_per_year;
-    cached.year = Some((
-        hours,
-        year_from(&super::operation::conditions(scenario), &cached.site.points),
-    ));
+    let conditions = super::operation::conditions(scenario);
+    cached.year = Some((hours, year_from(&conditions, &cached.site.points)));
     let machine = machine_of(candidate, &scenario.site, fuel).ok()?;
     let rating = machine.rating_point();
     let rated_output_kw = rating.flows.map(|f| f.net_output_kw)?;
+    let rated_heat_rate_kj_per_kwh = rating.heat_rate_kj_per_kwh;
     let usable = |v: f64| v.is_finite() && v > 0.0;
-    if !usable(rated_output_kw) || !usable(rating.heat_rate_kj_per_kwh) {
+    if !usable(rated_output_kw) || !usable(rated_heat_rate_kj_per_kwh) {
+        return None;
+    }
+    // The energy-weighted mean ambient of the year (the site's own when the
+    // year makes no energy).
+    let (mut weight, mut t, mut rh) = (0.0, 0.0, 0.0);
+    for (c, p) in conditions.iter().zip(cached.site.points.iter()) {
+        let e = c.load_fraction * p.available_kw * c.hours;
+        weight += e;
+        t += e * c.temperature_k;
+        rh += e * c.relative_humidity;
+    }
+    let site_ambient = super::machine::site_ambient(candidate, &scenario.site);
+    let representative = if weight > 0.0 {
+        Ambient {
+            temperature_k: t / weight,
+            pressure_kpa: site_ambient.pressure_kpa,
+            relative_humidity: super::machine::humidity_for(candidate, rh / weight),
+        }
+    } else {
+        site_ambient
+    };
+    let model = SiteModel::Machine {
+        machine: Box::new(machine),
+        candidate,
+    };
+    let representative_figures = model.base_at(representative).ok()?;
+    if !usable(representative_figures.0) || !usable(representative_figures.1) {
         return None;
     }
     Some(BaseSite {
-        rated_output_kw,
-        rated_heat_rate_kj_per_kwh: rating.heat_rate_kj_per_kwh,
+        rated: (rated_output_kw, rated_heat_rate_kj_per_kwh),
+        representative,
+        representative_figures,
         cached,
     })
 }
@@ -728,20 +765,44 @@ fn scaled_cycle(
     let machine = machine_of(candidate, &scenario.site, fuel)
         .map_err(|e| cycle_error(candidate, e.to_string()))?;
     let rating = machine.rating_point();
+    let rated_heat_rate_kj_per_kwh = rating.heat_rate_kj_per_kwh;
     let rated_output_kw = rating
         .flows
         .map(|f| f.net_output_kw)
         .ok_or_else(|| cycle_error(candidate, "the rating point was not sized".into()))?;
+    let model = SiteModel::Machine {
+        machine: Box::new(machine),
+        candidate,
+    };
+    let (kw, hr) = model
+        .base_at(base.representative)
+        .map_err(|e| cycle_error(candidate, e.to_string()))?;
     let base_site = &base.cached.site;
     let (output_ratio, heat_rate_ratio) = (
-        rated_output_kw / base.rated_output_kw,
-        rating.heat_rate_kj_per_kwh / base.rated_heat_rate_kj_per_kwh,
+        kw / base.representative_figures.0,
+        hr / base.representative_figures.1,
     );
+    // The capacity credited is solved where it is credited.
+    let capacity_output_kw = match scenario.economics.capacity_temperature_k {
+        Some(t) => {
+            model
+                .base_at(Ambient {
+                    temperature_k: t,
+                    ..super::machine::site_ambient(candidate, &scenario.site)
+                })
+                .map_err(|e| cycle_error(candidate, e.to_string()))?
+                .0
+        }
+        None => base_site.capacity_output_kw * output_ratio,
+    };
     let site = SitePerformance {
-        net_output_kw: base_site.net_output_kw * output_ratio,
-        heat_rate_kj_per_kwh: base_site.heat_rate_kj_per_kwh * heat_rate_ratio,
-        rated_heat_rate_kj_per_kwh: rating.heat_rate_kj_per_kwh,
-        capacity_output_kw: base_site.capacity_output_kw * output_ratio,
+        // The site's own figures (at its annual-mean ambient) follow the
+        // rating's ratios; the year follows the representative point's.
+        net_output_kw: base_site.net_output_kw * rated_output_kw / base.rated.0,
+        heat_rate_kj_per_kwh: base_site.heat_rate_kj_per_kwh * rated_heat_rate_kj_per_kwh
+            / base.rated.1,
+        rated_heat_rate_kj_per_kwh,
+        capacity_output_kw,
         // The base's points, shared; the ratios wait in `pending_scale`.
         points: base_site.points.clone(),
         basis: base_site.basis.clone(),

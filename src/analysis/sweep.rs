@@ -53,8 +53,9 @@ pub struct Axis {
     scale: f64,
     /// See `scale`.
     offset: f64,
-    /// The kind of quantity the key holds, when known: from the range's
-    /// unit, else from the unit the scenario file wrote for the key.
+    /// The kind of quantity the key holds: from the range's unit, else from
+    /// the unit the scenario file wrote for the key, else as the key is
+    /// declared (always known once [`plan`] has checked the axis).
     pub kind: Option<Kind>,
 }
 
@@ -278,7 +279,10 @@ pub fn plan(
     for (axis, text) in axes.iter_mut().zip(vary) {
         let in_file =
             unit_in_file(loaded, &axis.key).and_then(|u| units::kind_of(&format!("1 {u}")));
-        axis.kind = in_file;
+        let declared = scenario
+            .numeric_kind(&axis.key)
+            .map_err(|e| Error::Input(format!("--vary {}: {e}", crate::scenario::clip(text))))?;
+        axis.kind = Some(in_file.unwrap_or(declared));
         if let Some(unit) = &axis.unit {
             (axis.scale, axis.offset) = unit_map(text, unit, &scenario.meta.currency)?;
             let written = units::kind_of(&format!("1 {unit}"));

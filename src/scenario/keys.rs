@@ -127,6 +127,12 @@ impl Scenario {
         keys
     }
 
+    /// The unit kind declared for the numeric `key` (the kind of quantity
+    /// its values hold, whose internal unit they are stored in).
+    pub fn numeric_kind(&self, key: &str) -> Result<Kind, KeyError> {
+        kind_of_key(self, key)
+    }
+
     /// The value at `key` in its internal unit. `candidate.<field>` is
     /// accepted when every candidate having the field has the same value.
     pub fn get_numeric(&self, key: &str) -> Result<f64, KeyError> {

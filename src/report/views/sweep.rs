@@ -11,14 +11,17 @@
 //! `lifecycle_cost`, `net_savings`, `break_even_premium` (money in the
 //! scenario currency, rounded to the cent; the last two empty for the
 //! baseline), and `error` (empty, or why the point could not be solved: its
-//! figures are then empty). JSON has the same fields per row (always SI,
+//! figures are then empty). The table states the route points were solved
+//! by (`--exact` or the default scaled route with its measured error) in a
+//! note line under its title; the JSON in `exact` and `route_note`. JSON
+//! has the same fields per row (always SI,
 //! values of the keys under `values` as written, their units under
 //! `units`, `null` when dimensionless), money as decimal strings and empty values as `null`; the table
 //! prints whole currency units.
 
 use super::{csv_line, TextFormat};
-use crate::analysis::point::{Figures, PointError};
-use crate::analysis::sweep::{Axis, SweepBlock, SweepPlan};
+use crate::analysis::point::{Figures, PointError, Route};
+use crate::analysis::sweep::{route_note, Axis, SweepBlock, SweepPlan};
 use crate::report::format::{self, grouped, Quantity as Q};
 use crate::report::model::Units;
 use crate::scenario::{LoadedScenario, PriceBasis};
@@ -35,6 +38,7 @@ pub struct SweepView<'a> {
     plan: &'a SweepPlan,
     units: Units,
     format: TextFormat,
+    route: Route,
     /// Per axis: the unit its values are printed in (`None`:
     /// dimensionless).
     units_of_keys: Vec<Option<String>>,
@@ -201,10 +205,19 @@ impl<'a> SweepView<'a> {
             plan,
             units,
             format,
+            route: Route::default(),
             units_of_keys,
             id_width,
             key_widths,
         }
+    }
+
+    /// The same view stating that points were solved by `route` (the
+    /// default is [`Route::Scaled`]): a note line in the table, `exact` and
+    /// `route_note` in the JSON.
+    pub fn with_route(mut self, route: Route) -> Self {
+        self.route = route;
+        self
     }
 
     fn keys(&self) -> Vec<&str> {
@@ -254,10 +267,12 @@ impl<'a> SweepView<'a> {
                     .map(|(k, u)| ((*k).to_string(), json!(u)))
                     .collect();
                 format!(
-                    "{{\n  \"scenario\": {head},\n  \"keys\": {},\n  \"units\": {},\n  \"points\": {},\n  \"rows\": [",
+                    "{{\n  \"scenario\": {head},\n  \"keys\": {},\n  \"units\": {},\n  \"points\": {},\n  \"exact\": {},\n  \"route_note\": {},\n  \"rows\": [",
                     json!(keys),
                     Value::Object(units),
-                    self.plan.points()
+                    self.plan.points(),
+                    json!(self.route == Route::Exact),
+                    json!(route_note(self.route))
                 )
             }
             TextFormat::Table => {
@@ -268,6 +283,8 @@ impl<'a> SweepView<'a> {
                     self.plan.points(),
                     scenario.meta.currency
                 );
+                out.push_str(route_note(self.route));
+                out.push('\n');
                 if keys.contains(&"fuel.price") {
                     let fuel = &scenario.fuel;
                     let currency = &scenario.meta.currency;

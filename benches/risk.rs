@@ -165,6 +165,31 @@ fn parts(c: &mut Criterion) {
             }
         })
         .collect();
+    // What a point spends building its `f64` ledger inputs through
+    // `Decimal` (the ceiling of building them in `f64` directly).
+    let solved: Vec<_> = scenario
+        .candidates
+        .iter()
+        .map(|k| match solve(scenario, k, &fuel) {
+            Ok(s) => s,
+            Err(e) => panic!("the demo cycles must solve: {e}"),
+        })
+        .collect();
+    c.bench_function("3 ledger inputs through Decimal, to f64", |b| {
+        b.iter(|| {
+            for (k, s) in scenario.candidates.iter().zip(&solved) {
+                let built = brayfin::analysis::acceptance::contract_inputs(
+                    scenario,
+                    k,
+                    &fuel,
+                    s.site.rated_heat_rate_kj_per_kwh,
+                    (black_box(&s.year), s.site.net_output_kw),
+                    &reference,
+                );
+                let _ = black_box(built.map(|(i, _)| i.to_f64()));
+            }
+        })
+    });
     c.bench_function("3 f64 ledgers, 30 years", |b| {
         b.iter(|| {
             for i in &inputs {

@@ -136,5 +136,9 @@ fn report_and_risk_print_the_same_contract_figures() {
         row.starts_with(&format!("premium,guarantee_damages,{mean},")),
         "{row}"
     );
-    assert!(row.ends_with(&format!(",600,5,USD,{shortfall}")), "{row}");
+    // The last column is the route (`scaled` by default).
+    assert!(
+        row.ends_with(&format!(",600,5,USD,{shortfall},scaled")),
+        "{row}"
+    );
 }

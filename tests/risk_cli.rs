@@ -103,12 +103,12 @@ fn csv_is_one_row_per_candidate_and_figure() {
     assert_eq!(
         lines[0],
         "candidate_id,figure,mean,p10,p50,p90,probability_beats_baseline,samples,seed,currency,\
-         probability_shortfall"
+         probability_shortfall,route"
     );
     assert_eq!(lines.len(), 5);
     assert!(lines[1].starts_with("premium,net_savings,"));
     assert!(lines[2].starts_with("premium,break_even_premium,"));
-    assert!(lines[4].ends_with(",,500,1,USD,"));
+    assert!(lines[4].ends_with(",,500,1,USD,,scaled"));
 }
 
 #[test]

@@ -330,7 +330,7 @@ fn a_grid_is_long_format_with_the_first_key_slowest() {
     let lines: Vec<&str> = text.lines().collect();
     assert_eq!(
         lines[0],
-        "point,fuel.price (USD/GJ HHV),candidate[premium].turbine_efficiency (fraction),\
+        "point,fuel.price (USD/GJ HHV),candidate[premium].turbine_efficiency,\
          candidate_id,heat_rate_kj_per_kwh,lifecycle_cost,net_savings,break_even_premium,error"
     );
     // 3 prices × 2 efficiencies, one reported candidate.

@@ -7,6 +7,7 @@ pub mod engine;
 pub mod evaluate;
 pub mod implied;
 pub mod machine;
+pub mod maintenance;
 pub mod model;
 pub mod offdesign_grid;
 pub mod operation;

@@ -27,8 +27,12 @@ pub fn run(args: &CheckArgs) -> Result<()> {
     for bid in &implied {
         extra.extend(crate::analysis::implied::verdict_warning(bid));
     }
+    let maintenance =
+        crate::analysis::maintenance::starts_and_maintenance(&loaded.scenario, &study);
+    let present_value_date = crate::analysis::maintenance::present_value_date(&study);
     let view = CheckView::new(&loaded, extra, units_of(args.units))
         .with_information(information)
-        .with_implied(&implied);
+        .with_implied(&implied)
+        .with_maintenance(&maintenance, present_value_date);
     print(view.table().as_bytes())
 }

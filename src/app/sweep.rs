@@ -21,12 +21,18 @@ pub fn run(args: &SweepArgs) -> Result<()> {
     let plan = plan(&loaded, &args.vary, args.candidate.as_deref())?;
     // The same validation as `check`: the file's own point must solve.
     crate::analysis::compare::run_study(&loaded)?;
+    let route = if args.exact {
+        Route::Exact
+    } else {
+        Route::Scaled
+    };
     let view = SweepView::new(
         &loaded,
         &plan,
         units_of(args.units),
         text_format(args.format),
-    );
+    )
+    .with_route(route);
     let io = |e: std::io::Error| Error::io("writing to standard output", e);
     let stdout = std::io::stdout();
     let mut out = BufWriter::new(stdout.lock());
@@ -37,11 +43,6 @@ pub fn run(args: &SweepArgs) -> Result<()> {
         out.write_all(view.block(block).as_bytes()).map_err(io)?;
         progress.update(block.first_point + block.len(), total);
         Ok(())
-    };
-    let route = if args.exact {
-        Route::Exact
-    } else {
-        Route::Scaled
     };
     let outcome = run_sweep_by(&loaded, &plan, route, &mut write_block);
     progress.finish();

@@ -127,6 +127,12 @@ impl Scenario {
         keys
     }
 
+    /// The unit kind declared for the numeric `key` (the kind of quantity
+    /// its values hold, whose internal unit they are stored in).
+    pub fn numeric_kind(&self, key: &str) -> Result<Kind, KeyError> {
+        kind_of_key(self, key)
+    }
+
     /// The value at `key` in its internal unit. `candidate.<field>` is
     /// accepted when every candidate having the field has the same value.
     pub fn get_numeric(&self, key: &str) -> Result<f64, KeyError> {
@@ -188,9 +194,9 @@ impl Scenario {
                 if olds.is_empty() {
                     return Err(not_applicable(key));
                 }
-                // Every selected candidate gets the same value, so a setter
-                // that refuses it refuses it for the first one, before any
-                // change.
+                // Every selected candidate gets the same value; a setter
+                // may still refuse it for a later one (a fitted bid), and
+                // `finish_set` then restores the earlier ones.
                 let mut outcome = Ok(());
                 for candidate in self.candidates.iter_mut().filter(|c| selected(c)) {
                     outcome = (field.set)(candidate, value_si);
@@ -220,7 +226,10 @@ impl Scenario {
         restore: impl FnOnce(&mut Scenario),
     ) -> Result<(), KeyError> {
         // A setter that refuses a value changes nothing (each checks before
-        // it writes), so only a set that breaks a cross-field rule is undone.
+        // it writes), but a generic `candidate.<field>` key may have set the
+        // candidates before the one that refused (a fitted bid refuses the
+        // keys its fit sets), so a refusal is undone as a set that breaks a
+        // cross-field rule is.
         match outcome {
             Ok(()) => cross_check(self).map_err(|v| {
                 restore(self);
@@ -230,10 +239,13 @@ impl Scenario {
                     valid: v.valid,
                 }
             }),
-            Err(why) => Err(KeyError::NotApplicable {
-                key: key.to_string(),
-                why,
-            }),
+            Err(why) => {
+                restore(self);
+                Err(KeyError::NotApplicable {
+                    key: key.to_string(),
+                    why,
+                })
+            }
         }
     }
 }

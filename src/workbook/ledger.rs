@@ -40,30 +40,33 @@ use rust_xlsxwriter::Workbook;
 
 /// Columns of a ledger sheet (zero-based).
 pub(crate) mod col {
-    pub(crate) const KIND: u16 = 0;
-    pub(crate) const YEAR: u16 = 1;
-    pub(crate) const START: u16 = 2;
-    pub(crate) const END: u16 = 3;
-    pub(crate) const TIME: u16 = 4;
-    pub(crate) const FRACTION: u16 = 5;
-    pub(crate) const CASH_TIME: u16 = 6;
-    pub(crate) const HOURS: u16 = 7;
-    pub(crate) const ENERGY: u16 = 8;
-    pub(crate) const MULTIPLIER: u16 = 9;
-    pub(crate) const OUTPUT_LOSS: u16 = 10;
-    pub(crate) const IN_SERVICE: u16 = 11;
-    pub(crate) const FUEL_GJ: u16 = 12;
-    pub(crate) const OVERHAULS: u16 = 13;
-    pub(crate) const FUEL: u16 = 14;
-    pub(crate) const CAPITAL: u16 = 20;
-    pub(crate) const RESIDUAL: u16 = 21;
-    pub(crate) const TOTAL: u16 = 22;
-    pub(crate) const FACTOR: u16 = 23;
-    pub(crate) const PV: u16 = 24;
-    pub(crate) const SAVING: u16 = 25;
-    pub(crate) const SIMPLE_CROSSING: u16 = 26;
-    pub(crate) const PV_SAVING: u16 = 27;
-    pub(crate) const DISCOUNTED_CROSSING: u16 = 28;
+    /// The row's unique label, as `compare`'s ledger rows have it.
+    pub(crate) const LABEL: u16 = 0;
+    /// The row's kind (`capital`, `operation`, …), which the totals sum by.
+    pub(crate) const KIND: u16 = 1;
+    pub(crate) const YEAR: u16 = 2;
+    pub(crate) const START: u16 = 3;
+    pub(crate) const END: u16 = 4;
+    pub(crate) const TIME: u16 = 5;
+    pub(crate) const FRACTION: u16 = 6;
+    pub(crate) const CASH_TIME: u16 = 7;
+    pub(crate) const HOURS: u16 = 8;
+    pub(crate) const ENERGY: u16 = 9;
+    pub(crate) const MULTIPLIER: u16 = 10;
+    pub(crate) const OUTPUT_LOSS: u16 = 11;
+    pub(crate) const IN_SERVICE: u16 = 12;
+    pub(crate) const FUEL_GJ: u16 = 13;
+    pub(crate) const OVERHAULS: u16 = 14;
+    pub(crate) const FUEL: u16 = 15;
+    pub(crate) const CAPITAL: u16 = 21;
+    pub(crate) const RESIDUAL: u16 = 22;
+    pub(crate) const TOTAL: u16 = 23;
+    pub(crate) const FACTOR: u16 = 24;
+    pub(crate) const PV: u16 = 25;
+    pub(crate) const SAVING: u16 = 26;
+    pub(crate) const SIMPLE_CROSSING: u16 = 27;
+    pub(crate) const PV_SAVING: u16 = 28;
+    pub(crate) const DISCOUNTED_CROSSING: u16 = 29;
 }
 
 /// Rows of the totals block (zero-based), value in column B.
@@ -81,8 +84,9 @@ pub(crate) mod total {
 /// Header row of the ledger table; rows follow it.
 const HEADER_ROW: u32 = 12;
 
-const HEADERS: [&str; 29] = [
+const HEADERS: [&str; 30] = [
     "Row",
+    "Kind",
     "Year",
     "Period start",
     "Period end",
@@ -162,14 +166,14 @@ impl LedgerSheet<'_> {
         // Printed landscape, one page wide.
         sheet.set_landscape().set_print_fit_to_pages(1, 0);
         sheet
-            .set_column_range_width(1, 26, 16.0)
+            .set_column_range_width(1, 29, 16.0)
             .map_err(xlsx_error)?;
         // Column B also holds the totals above the table.
         sheet.set_column_width(1, 20.0).map_err(xlsx_error)?;
         sheet.set_column_width(0, 58.0).map_err(xlsx_error)?;
         sheet.set_row_height(HEADER_ROW, 58).map_err(xlsx_error)?;
         sheet
-            .set_freeze_panes(HEADER_ROW + 1, 2)
+            .set_freeze_panes(HEADER_ROW + 1, 3)
             .map_err(xlsx_error)?;
         let mut cells = Cells { sheet };
         let s = self.styles;
@@ -188,8 +192,13 @@ impl LedgerSheet<'_> {
         let mut periods = calendar.periods();
         let mut share = 0usize;
         let mut last_capital_row = layout.rows.0;
-        for (offset, row) in outcome.ledger.rows.iter().enumerate() {
+        let labels = crate::analysis::model::ledger_row_labels(
+            &outcome.ledger.rows,
+            calendar.commercial_operation,
+        );
+        for ((offset, row), label) in outcome.ledger.rows.iter().enumerate().zip(&labels) {
             let r = layout.rows.0 + offset as u32;
+            cells.text(r, col::LABEL, label, &s.text)?;
             match row.kind {
                 RowKind::Capital => {
                     share += 1;

@@ -208,10 +208,31 @@ pub fn check_ledgers(workbook: &Path, json: &Value, label: &str) {
                 .unwrap_or_else(|| panic!("column {name}"))
         };
         let (total, pv) = (col_of("Total"), col_of("Present value"));
+        let kind = col_of("Kind");
         let rows = c["ledger"].as_array().expect("ledger rows");
         for (i, row) in rows.iter().enumerate() {
             let r = header + 1 + i as u32;
             let what = format!("{label}, `{id}`, ledger row {i} ({})", row["year"]);
+            // The row's unique label, as compare's JSON ledger row has it,
+            // and its kind beside it.
+            assert_eq!(
+                text(&range, r, 0),
+                row["label"].as_str().expect("label"),
+                "{what}, label"
+            );
+            let row_label = row["label"].as_str().unwrap_or_default();
+            let expected_kind = if row_label.ends_with(" construction")
+                || row_label == "capital at commercial operation"
+            {
+                "capital"
+            } else if row_label.ends_with(" operation") {
+                "operation"
+            } else if row_label == "end of life" {
+                "residual"
+            } else {
+                "guarantee settlement"
+            };
+            assert_eq!(text(&range, r, kind), expected_kind, "{what}, kind");
             assert_cent(
                 number(&range, r, total, &what),
                 json_money(&row["total"]),

@@ -4,6 +4,7 @@
 //! t of CO2, per kW-yr of capacity).
 
 use crate::analysis::implied::ImpliedBid;
+use crate::analysis::maintenance::StartsMaintenance;
 use crate::report::format::{self, Quantity as Q};
 use crate::report::model::Units;
 
@@ -19,6 +20,8 @@ pub struct CheckView<'a> {
     extra_warnings: Vec<String>,
     extra_information: Vec<String>,
     implied: &'a [ImpliedBid],
+    maintenance: &'a [StartsMaintenance],
+    present_value_date: Option<chrono::NaiveDate>,
     units: Units,
 }
 
@@ -31,6 +34,8 @@ impl<'a> CheckView<'a> {
             extra_warnings,
             extra_information: Vec::new(),
             implied: &[],
+            maintenance: &[],
+            present_value_date: None,
             units,
         }
     }
@@ -50,32 +55,37 @@ impl<'a> CheckView<'a> {
         self
     }
 
+    /// The same view with each candidate's starts and maintenance as
+    /// priced ([`crate::analysis::maintenance::starts_and_maintenance`]),
+    /// printed after the candidates, and the date its present values are
+    /// stated at ([`crate::analysis::maintenance::present_value_date`]),
+    /// printed with the economics.
+    pub fn with_maintenance(
+        mut self,
+        maintenance: &'a [StartsMaintenance],
+        present_value_date: Option<chrono::NaiveDate>,
+    ) -> Self {
+        self.maintenance = maintenance;
+        self.present_value_date = present_value_date;
+        self
+    }
+
     /// The text `check` prints.
     pub fn table(&self) -> String {
-        report(
-            self.loaded,
-            self.extra_warnings.clone(),
-            &self.extra_information,
-            self.implied,
-            self.units,
-        )
+        let mut warnings = scenario::engineering_warnings(&self.loaded.scenario);
+        warnings.extend(self.extra_warnings.iter().cloned());
+        let mut out = summary(self.loaded, self.units, self);
+        out.push_str(&super::implied::implied_text(self.implied, self.units));
+        out.push_str(&closing(self.loaded, warnings, &self.extra_information));
+        out
     }
 }
 
-/// The text `check` prints: the summary, then the warnings from the
-/// scenario alone followed by `extra_warnings` (e.g. from solving the
-/// cycle), then a one-line verdict.
-fn report(
-    loaded: &LoadedScenario,
-    extra_warnings: Vec<String>,
-    extra_information: &[String],
-    implied: &[ImpliedBid],
-    units: Units,
-) -> String {
-    let mut warnings = scenario::engineering_warnings(&loaded.scenario);
-    warnings.extend(extra_warnings);
-    let mut out = summary(loaded, units);
-    out.push_str(&super::implied::implied_text(implied, units));
+/// What `check` prints after the summary: the information lines, the
+/// `warnings` (from the scenario alone, then e.g. from solving the cycle),
+/// then a one-line verdict.
+fn closing(loaded: &LoadedScenario, warnings: Vec<String>, extra_information: &[String]) -> String {
+    let mut out = String::new();
     let mut notes = scenario::information_notes(&loaded.scenario);
     notes.extend(extra_information.iter().cloned());
     if !notes.is_empty() {
@@ -108,8 +118,9 @@ fn report(
 
 /// The normalised summary: every figure in `units` (K, kPa, m or °F, psia,
 /// ft; kW and h in both) and money in the scenario currency per GJ (SI) or
-/// per MMBtu (US) of fuel, per t, per kW-yr.
-fn summary(loaded: &LoadedScenario, units: Units) -> String {
+/// per MMBtu (US) of fuel, per t, per kW-yr; with the present-value date
+/// and each candidate's starts and maintenance from `view`.
+fn summary(loaded: &LoadedScenario, units: Units, view: &CheckView) -> String {
     let s = &loaded.scenario;
     let cur = &s.meta.currency;
     let mut out = String::new();
@@ -199,6 +210,9 @@ fn summary(loaded: &LoadedScenario, units: Units) -> String {
         percent(e.carbon_escalation),
         e.capacity_value_per_kw_year
     );
+    if let Some(date) = view.present_value_date {
+        out.push_str(&super::check_maintenance::present_value_line(s, date));
+    }
     let op = &s.operation;
     let profile = if op.dispatch.is_empty() {
         "all at full load".to_string()
@@ -211,6 +225,11 @@ fn summary(loaded: &LoadedScenario, units: Units) -> String {
     };
     let _ = writeln!(out, "Operation {} h/yr: {profile}", op.hours_per_year);
     out.push_str(&candidate_table(loaded, units));
+    out.push_str(&super::check_maintenance::section(
+        view.maintenance,
+        cur,
+        units,
+    ));
     out.push_str(&guarantees(loaded, units));
     out.push_str(&correlations(loaded));
     out

@@ -8,6 +8,7 @@
 //! the same way.
 
 pub mod check;
+mod check_maintenance;
 pub mod cycle;
 pub mod implied;
 pub mod offdesign;

@@ -8,8 +8,11 @@
 //!   to the minor unit;
 //! - csv: the summary only, one row per candidate and figure (long format):
 //!   `candidate_id,figure,mean,p10,p50,p90,probability_beats_baseline,
-//!   samples,seed,currency,probability_shortfall`; the histogram is in the
-//!   JSON and the table. A candidate with a guarantee has a third row,
+//!   samples,seed,currency,probability_shortfall,route`; the histogram is
+//!   in the JSON and the table; `route` is `scaled` (the default: a draw
+//!   that moves a bid's engine scales its site figures by its re-solved
+//!   rating point) or `exact` (`--exact`), as the table's note and the
+//!   JSON's `route_note` state. A candidate with a guarantee has a third row,
 //!   `guarantee_damages` (damages received; the mean is the expected
 //!   damages), whose last column is the share of samples short of the
 //!   guarantee beyond the tolerance (empty on every other row).
@@ -66,7 +69,7 @@ impl View for RiskOutput<'_> {
     }
 
     fn csv(&self) -> Result<String> {
-        let bytes = csv(self.loaded, self.view)?;
+        let bytes = csv(self.loaded, self.run, self.view)?;
         String::from_utf8(bytes).map_err(|e| Error::Internal(format!("CSV encoding failed: {e}")))
     }
 }
@@ -96,7 +99,11 @@ fn document(loaded: &LoadedScenario, run: &RiskRun, view: &RiskView) -> serde_js
     })
 }
 
-fn csv(loaded: &LoadedScenario, view: &RiskView) -> Result<Vec<u8>> {
+fn csv(loaded: &LoadedScenario, run: &RiskRun, view: &RiskView) -> Result<Vec<u8>> {
+    let route = match run.route {
+        Route::Scaled => "scaled",
+        Route::Exact => "exact",
+    };
     let fail = |e: csv::Error| Error::Internal(format!("CSV encoding failed: {e}"));
     let mut writer = csv::Writer::from_writer(Vec::new());
     writer
@@ -112,6 +119,7 @@ fn csv(loaded: &LoadedScenario, view: &RiskView) -> Result<Vec<u8>> {
             "seed",
             "currency",
             "probability_shortfall",
+            "route",
         ])
         .map_err(fail)?;
     for c in &view.candidates {
@@ -151,6 +159,7 @@ fn csv(loaded: &LoadedScenario, view: &RiskView) -> Result<Vec<u8>> {
                     view.seed.to_string(),
                     loaded.scenario.meta.currency.clone(),
                     shortfall,
+                    route.to_string(),
                 ])
                 .map_err(fail)?;
         }

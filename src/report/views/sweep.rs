@@ -4,19 +4,24 @@
 //!
 //! Columns: `point`, one column per varied key, named `KEY (UNIT)` with
 //! the unit its values are printed in (the unit the range was written in,
-//! else the key's internal unit), `candidate_id`, the heat rate
+//! else the key's internal unit, with what it is counted per: `USD/start`,
+//! `starts/yr`), or `KEY` alone for a dimensionless key (a fraction or a
+//! ratio) swept in bare numbers, `candidate_id`, the heat rate
 //! (`heat_rate_kj_per_kwh`, or `heat_rate_btu_per_kwh` with US units),
 //! `lifecycle_cost`, `net_savings`, `break_even_premium` (money in the
 //! scenario currency, rounded to the cent; the last two empty for the
 //! baseline), and `error` (empty, or why the point could not be solved: its
-//! figures are then empty). JSON has the same fields per row (always SI,
+//! figures are then empty). The table states the route points were solved
+//! by (`--exact` or the default scaled route with its measured error) in a
+//! note line under its title; the JSON in `exact` and `route_note`. JSON
+//! has the same fields per row (always SI,
 //! values of the keys under `values` as written, their units under
-//! `units`), money as decimal strings and empty values as `null`; the table
+//! `units`, `null` when dimensionless), money as decimal strings and empty values as `null`; the table
 //! prints whole currency units.
 
 use super::{csv_line, TextFormat};
-use crate::analysis::point::{Figures, PointError};
-use crate::analysis::sweep::{Axis, SweepBlock, SweepPlan};
+use crate::analysis::point::{Figures, PointError, Route};
+use crate::analysis::sweep::{route_note, Axis, SweepBlock, SweepPlan};
 use crate::report::format::{self, grouped, Quantity as Q};
 use crate::report::model::Units;
 use crate::scenario::{LoadedScenario, PriceBasis};
@@ -33,53 +38,105 @@ pub struct SweepView<'a> {
     plan: &'a SweepPlan,
     units: Units,
     format: TextFormat,
-    /// Per axis: the unit its values are printed in.
-    units_of_keys: Vec<String>,
+    route: Route,
+    /// Per axis: the unit its values are printed in (`None`:
+    /// dimensionless).
+    units_of_keys: Vec<Option<String>>,
     id_width: usize,
     key_widths: Vec<usize>,
 }
 
-/// The internal unit of a key holding `kind`, as printed.
-fn internal_unit(kind: Option<Kind>, currency: &str) -> String {
-    match kind {
-        None => "internal unit".to_string(),
-        Some(kind) => match kind {
-            Kind::Temperature => "K".into(),
-            Kind::Pressure => "kPa".into(),
-            Kind::Power => "kW".into(),
-            Kind::Fraction => "fraction".into(),
-            Kind::Number => "number".into(),
-            Kind::HeatRate => "kJ/kWh".into(),
-            Kind::SpecificEnergy => "kJ/kg".into(),
-            Kind::Length => "m".into(),
-            Kind::Money => currency.to_string(),
-            Kind::FuelPrice => format!("{currency}/GJ"),
-            Kind::PricePerTonne => format!("{currency}/t"),
-            Kind::PricePerEnergy => format!("{currency}/MWh"),
-            Kind::PricePerCapacity => format!("{currency}/kW-yr"),
-            Kind::Duration => "h".into(),
-            Kind::EmissionFactor => "kg/GJ".into(),
-            Kind::MassFlow => "kg/s".into(),
-            Kind::FuelEnergy => "GJ".into(),
-        },
-    }
+/// The internal unit of `kind`, as printed; `None` for a dimensionless
+/// kind (a fraction of one or a plain number).
+fn internal_unit(kind: Kind, currency: &str) -> Option<String> {
+    let unit = match kind {
+        Kind::Fraction | Kind::Number => return None,
+        Kind::Temperature => "K".into(),
+        Kind::Pressure => "kPa".into(),
+        Kind::Power => "kW".into(),
+        Kind::HeatRate => "kJ/kWh".into(),
+        Kind::SpecificEnergy => "kJ/kg".into(),
+        Kind::Length => "m".into(),
+        Kind::Money => currency.to_string(),
+        Kind::FuelPrice => format!("{currency}/GJ"),
+        Kind::PricePerTonne => format!("{currency}/t"),
+        Kind::PricePerEnergy => format!("{currency}/MWh"),
+        Kind::PricePerCapacity => format!("{currency}/kW-yr"),
+        Kind::Duration => "h".into(),
+        Kind::EmissionFactor => "kg/GJ".into(),
+        Kind::MassFlow => "kg/s".into(),
+        Kind::FuelEnergy => "GJ LHV".into(),
+    };
+    Some(unit)
 }
 
-/// The unit an axis's values are printed in; a fuel price also names its
-/// heating-value basis.
-fn axis_unit(axis: &Axis, loaded: &LoadedScenario) -> String {
+/// What a key's value is counted per, or the unit of a plain-number key
+/// that is not dimensionless, by the key's field (its path after
+/// `candidate.` or `candidate[<id>].`). Keys not listed carry their kind's
+/// unit alone.
+enum KeyUnit {
+    /// The kind's unit (as written or internal) followed by this text.
+    Per(&'static str),
+    /// A plain number counted in this unit.
+    Counted(&'static str),
+}
+
+fn key_unit(field: &str) -> Option<KeyUnit> {
+    use KeyUnit::{Counted, Per};
+    Some(match field {
+        "operation.starts_per_year" => Counted("starts/yr"),
+        "economics.service_life_years" => Counted("years"),
+        "cp_kj_per_kg_k" => Counted("kJ/(kg·K)"),
+        "costs.overhaul_starts" => Counted("starts"),
+        "costs.overhaul_outage_days" => Counted("days"),
+        "operation.hours_per_year" => Per("/yr"),
+        "costs.hours_per_start"
+        | "costs.start_fuel"
+        | "costs.start_cost"
+        | "costs.service_per_start" => Per("/start"),
+        "costs.service_per_fired_hour" => Per("/fired h"),
+        "costs.overhaul_interval" => Per(" (equivalent)"),
+        "guarantee.damages_per_heat_rate_percent" | "guarantee.bonus_per_heat_rate_percent" => {
+            Per(" per % of heat rate")
+        }
+        "guarantee.damages_per_heat_rate_kj_per_kwh" => Per(" per kJ/kWh of heat rate"),
+        "guarantee.damages_per_kw" | "guarantee.bonus_per_kw" => Per("/kW"),
+        _ => return None,
+    })
+}
+
+/// The unit an axis's values are printed in: the unit the range was
+/// written in, else the key's internal unit, with what the value is counted
+/// per; a fuel price also names its heating-value basis. `None` for a
+/// dimensionless key swept in bare numbers.
+fn axis_unit(axis: &Axis, loaded: &LoadedScenario) -> Option<String> {
     let s = &loaded.scenario;
-    let mut unit = axis
-        .unit
-        .clone()
-        .unwrap_or_else(|| internal_unit(axis.kind, &s.meta.currency));
+    let field = axis
+        .key
+        .strip_prefix("candidate.")
+        .or_else(|| {
+            axis.key
+                .strip_prefix("candidate[")
+                .and_then(|rest| rest.split_once("]."))
+                .map(|(_, field)| field)
+        })
+        .unwrap_or(&axis.key);
+    let base = axis.unit.clone().or_else(|| {
+        axis.kind
+            .and_then(|kind| internal_unit(kind, &s.meta.currency))
+    });
+    let mut unit = match (key_unit(field), base) {
+        (Some(KeyUnit::Counted(unit)), None) => unit.to_string(),
+        (Some(KeyUnit::Per(per)), Some(base)) => format!("{base}{per}"),
+        (_, base) => base?,
+    };
     if axis.key == "fuel.price" {
         unit.push_str(match s.fuel.price_basis {
             PriceBasis::Hhv => " HHV",
             PriceBasis::Lhv => " LHV",
         });
     }
-    unit
+    Some(unit)
 }
 
 /// One output row: a point and a reported candidate.
@@ -88,6 +145,24 @@ struct Row<'a> {
     values: &'a [f64],
     candidate_id: &'a str,
     outcome: std::result::Result<&'a Figures, &'a PointError>,
+}
+
+/// A key's column header: `KEY (UNIT)`, or the key alone when it is
+/// dimensionless.
+pub fn header_of(key: &str, unit: Option<&str>) -> String {
+    match unit {
+        Some(unit) => format!("{key} ({unit})"),
+        None => key.to_string(),
+    }
+}
+
+/// The header of each axis of `plan` on `loaded` (as the CSV and the
+/// table print it): `KEY (UNIT)`, or the key alone when dimensionless.
+pub fn axis_headers(loaded: &LoadedScenario, plan: &SweepPlan) -> Vec<String> {
+    plan.axes
+        .iter()
+        .map(|a| header_of(&a.key, axis_unit(a, loaded).as_deref()))
+        .collect()
 }
 
 fn cents(value: f64) -> String {
@@ -106,7 +181,8 @@ impl<'a> SweepView<'a> {
         units: Units,
         format: TextFormat,
     ) -> Self {
-        let units_of_keys: Vec<String> = plan.axes.iter().map(|a| axis_unit(a, loaded)).collect();
+        let units_of_keys: Vec<Option<String>> =
+            plan.axes.iter().map(|a| axis_unit(a, loaded)).collect();
         let id_width = loaded
             .scenario
             .candidates
@@ -119,17 +195,29 @@ impl<'a> SweepView<'a> {
             .axes
             .iter()
             .zip(&units_of_keys)
-            .map(|(a, u)| a.key.chars().count().max(u.chars().count() + 2).max(12))
+            .map(|(a, u)| {
+                let unit = u.as_ref().map_or(0, |u| u.chars().count() + 2);
+                a.key.chars().count().max(unit).max(12)
+            })
             .collect();
         SweepView {
             loaded,
             plan,
             units,
             format,
+            route: Route::default(),
             units_of_keys,
             id_width,
             key_widths,
         }
+    }
+
+    /// The same view stating that points were solved by `route` (the
+    /// default is [`Route::Scaled`]): a note line in the table, `exact` and
+    /// `route_note` in the JSON.
+    pub fn with_route(mut self, route: Route) -> Self {
+        self.route = route;
+        self
     }
 
     fn keys(&self) -> Vec<&str> {
@@ -146,7 +234,7 @@ impl<'a> SweepView<'a> {
                 header.extend(
                     keys.iter()
                         .zip(&self.units_of_keys)
-                        .map(|(k, u)| format!("{k} ({u})")),
+                        .map(|(k, u)| header_of(k, u.as_deref())),
                 );
                 let heat_rate = match self.units {
                     Units::Si => "heat_rate_kj_per_kwh",
@@ -179,10 +267,12 @@ impl<'a> SweepView<'a> {
                     .map(|(k, u)| ((*k).to_string(), json!(u)))
                     .collect();
                 format!(
-                    "{{\n  \"scenario\": {head},\n  \"keys\": {},\n  \"units\": {},\n  \"points\": {},\n  \"rows\": [",
+                    "{{\n  \"scenario\": {head},\n  \"keys\": {},\n  \"units\": {},\n  \"points\": {},\n  \"exact\": {},\n  \"route_note\": {},\n  \"rows\": [",
                     json!(keys),
                     Value::Object(units),
-                    self.plan.points()
+                    self.plan.points(),
+                    json!(self.route == Route::Exact),
+                    json!(route_note(self.route))
                 )
             }
             TextFormat::Table => {
@@ -193,6 +283,8 @@ impl<'a> SweepView<'a> {
                     self.plan.points(),
                     scenario.meta.currency
                 );
+                out.push_str(route_note(self.route));
+                out.push('\n');
                 if keys.contains(&"fuel.price") {
                     let fuel = &scenario.fuel;
                     let currency = &scenario.meta.currency;
@@ -215,7 +307,8 @@ impl<'a> SweepView<'a> {
                 let mut line = format!("{:>7}", "point");
                 for ((k, u), w) in keys.iter().zip(&self.units_of_keys).zip(&self.key_widths) {
                     names.push_str(&format!("  {k:>w$}"));
-                    line.push_str(&format!("  {:>w$}", format!("({u})")));
+                    let unit = u.as_ref().map_or(String::new(), |u| format!("({u})"));
+                    line.push_str(&format!("  {unit:>w$}"));
                 }
                 line.push_str(&format!(
                     "  {:<iw$}  {:>11}  {:>15}  {:>13}  {:>13}",

@@ -62,8 +62,7 @@ pub struct ConditionPerformance {
 
 /// The site's climate as (temperature K, relative humidity, weight in
 /// hours): the weather's records, or the site's ambient alone.
-fn climate(scenario: &Scenario) -> Vec<(f64, f64, f64)> {
-    let site = &scenario.site;
+fn climate(site: &crate::scenario::Site) -> Vec<(f64, f64, f64)> {
     match &site.weather {
         Some(w) if !w.records.is_empty() => w
             .records
@@ -96,8 +95,13 @@ fn spread(out: &mut Vec<Condition>, climate: &[(f64, f64, f64)], load: f64, hour
 /// The scenario's year as operating conditions (see the module notes for
 /// the rules). Conditions with zero hours are left out.
 pub fn conditions(scenario: &Scenario) -> Vec<Condition> {
-    let operation = &scenario.operation;
-    let site = &scenario.site;
+    conditions_of(&scenario.site, &scenario.operation)
+}
+
+/// [`conditions`] of a site and an operation given apart (a sweep or risk
+/// point sums its year at the file's own operation and scales it by the
+/// hours: a year is linear in `hours_per_year`).
+pub fn conditions_of(site: &crate::scenario::Site, operation: &Operation) -> Vec<Condition> {
     let mut out = Vec::new();
     if let Some(profile) = &operation.profile {
         let run = profile
@@ -129,7 +133,7 @@ pub fn conditions(scenario: &Scenario) -> Vec<Condition> {
         }
         return out;
     }
-    let climate = climate(scenario);
+    let climate = climate(site);
     if operation.dispatch.is_empty() {
         spread(&mut out, &climate, 1.0, operation.hours_per_year);
         return out;

@@ -230,9 +230,9 @@ struct CachedCycle {
     part_load: Vec<PartLoadPoint>,
     ambient_correction: Vec<AmbientCorrectionSpec>,
     site: SitePerformance,
-    /// The site's year at the hours per year it was summed for (the
-    /// conditions follow from `year_key` and those hours).
-    year: Option<(f64, AnnualOperation)>,
+    /// The site's year at the file's own hours per year (a point scales
+    /// it by its hours).
+    year: Option<AnnualOperation>,
     /// On the scaled route, the (output, heat-rate) ratios `site.points`
     /// still await (they are the base's, shared): applied to the year in
     /// O(1), and to the points only where hourly prices need them.
@@ -347,9 +347,9 @@ pub struct Workspace {
     cycles: Vec<Option<CachedCycle>>,
     summaries: Vec<Option<LedgerSummary<f64>>>,
     ledgers: Vec<Option<(LedgerInputs<f64>, LedgerSummary<f64>)>>,
-    /// The year's conditions of the last point, with the key and the hours
-    /// per year they were built for.
-    conditions: Option<(YearKey, f64, Vec<super::operation::Condition>)>,
+    /// The year's conditions at the file's own operation, with the key of
+    /// the year they were built for.
+    conditions: Option<(YearKey, Vec<Condition>)>,
 }
 
 impl<'s> PointModel<'s> {
@@ -510,41 +510,40 @@ impl<'s> PointModel<'s> {
                 )?,
             });
         }
-        // The year's conditions (an hourly year has thousands) are built
+        // A year is linear in its hours per year (every profile hour,
+        // dispatch block or spread hour scales alike, and the hours key is
+        // the only one that moves them): each candidate's year is summed
+        // once over the conditions at the file's own operation and scaled
+        // by the point's hours, so a point's year depends on its values
+        // alone. The conditions (an hourly year has thousands) are built
         // only when a year must be summed or hourly prices need them.
-        let hours = scenario.operation.hours_per_year;
+        let scale = scenario.operation.hours_per_year / self.base.operation.hours_per_year;
         let priced = scenario
             .operation
             .profile
             .as_ref()
             .is_some_and(|p| p.has_prices());
-        let needs_conditions = priced
-            || ws
-                .cycles
-                .iter()
-                .flatten()
-                .any(|c| c.year.is_none_or(|(h, _)| h != hours));
-        let current = |c: &(YearKey, f64, Vec<Condition>)| c.0 == year && c.1 == hours;
-        if needs_conditions && !ws.conditions.as_ref().is_some_and(current) {
-            ws.conditions = Some((year.clone(), hours, super::operation::conditions(scenario)));
+        let needs_conditions = priced || ws.cycles.iter().flatten().any(|c| c.year.is_none());
+        if needs_conditions && !ws.conditions.as_ref().is_some_and(|c| c.0 == year) {
+            ws.conditions = Some((
+                year.clone(),
+                super::operation::conditions_of(&scenario.site, &self.base.operation),
+            ));
         }
         let conds: &[Condition] = ws
             .conditions
             .as_ref()
-            .filter(|c| current(c))
-            .map_or(&[], |c| c.2.as_slice());
+            .filter(|c| c.0 == year)
+            .map_or(&[], |c| c.1.as_slice());
         for cached in ws.cycles.iter_mut().flatten() {
-            if cached.year.is_none_or(|(h, _)| h != hours) {
+            if cached.year.is_none() {
                 let (o, r) = cached.pending_scale.unwrap_or((1.0, 1.0));
                 let y = year_from(conds, &cached.site.points);
-                cached.year = Some((
-                    hours,
-                    AnnualOperation {
-                        operating_hours: y.operating_hours,
-                        energy_mwh: y.energy_mwh * o,
-                        fuel_energy_gj_lhv: y.fuel_energy_gj_lhv * o * r,
-                    },
-                ));
+                cached.year = Some(AnnualOperation {
+                    operating_hours: y.operating_hours,
+                    energy_mwh: y.energy_mwh * o,
+                    fuel_energy_gj_lhv: y.fuel_energy_gj_lhv * o * r,
+                });
             }
             if priced {
                 if let Some((o, r)) = cached.pending_scale.take() {
@@ -562,12 +561,19 @@ impl<'s> PointModel<'s> {
                 }
             }
         }
+        let at_hours = |y: AnnualOperation| AnnualOperation {
+            operating_hours: y.operating_hours * scale,
+            energy_mwh: y.energy_mwh * scale,
+            fuel_energy_gj_lhv: y.fuel_energy_gj_lhv * scale,
+        };
+        // Hourly shortfall prices are ratios of energies over the same
+        // conditions: the hours' scale cancels.
         let reference = output_reference_from(
             scenario,
             conds,
             ws.cycles.iter().map(|c| {
                 c.as_ref()
-                    .map(|c| (&c.site, c.year.map_or(0.0, |(_, y)| y.energy_mwh)))
+                    .map(|c| (&c.site, c.year.map_or(0.0, |y| at_hours(y).energy_mwh)))
             }),
         );
         for (i, candidate) in scenario.candidates.iter().enumerate() {
@@ -579,7 +585,7 @@ impl<'s> PointModel<'s> {
             };
             let site = &cached.site;
             let heat_rate = site.heat_rate_kj_per_kwh;
-            let Some((_, year)) = cached.year else {
+            let Some(year) = cached.year.map(at_hours) else {
                 continue;
             };
             let ledger_error = |e: crate::finance::FinanceError| PointError::Ledger {
@@ -706,9 +712,8 @@ fn base_site(scenario: &Scenario, candidate: &Candidate, fuel: &Fuel) -> Option<
     if !matches!(cached.site.basis, Basis::Machine(_)) {
         return None;
     }
-    let hours = scenario.operation.hours_per_year;
     let conditions = super::operation::conditions(scenario);
-    cached.year = Some((hours, year_from(&conditions, &cached.site.points)));
+    cached.year = Some(year_from(&conditions, &cached.site.points));
     let machine = machine_of(candidate, &scenario.site, fuel).ok()?;
     let rating = machine.rating_point();
     let rated_output_kw = rating.flows.map(|f| f.net_output_kw)?;
@@ -770,6 +775,25 @@ fn scaled_cycle(
         .flows
         .map(|f| f.net_output_kw)
         .ok_or_else(|| cycle_error(candidate, "the rating point was not sized".into()))?;
+    let base_site = &base.cached.site;
+    let rating_ratios = (
+        rated_output_kw / base.rated.0,
+        rated_heat_rate_kj_per_kwh / base.rated.1,
+    );
+    // A bid priced by its vendor's ambient correction: its output and heat
+    // rate at any temperature are its rated figures times the vendor's
+    // ratios (times the machine's small pressure and humidity step), so
+    // the rating's ratios carry over with no solve.
+    if !candidate.ambient_correction.is_empty() {
+        let (o, r) = rating_ratios;
+        return Ok(scaled_from(
+            base,
+            config,
+            (rated_heat_rate_kj_per_kwh, rating_ratios),
+            base_site.capacity_output_kw * o,
+            (o, r),
+        ));
+    }
     let model = SiteModel::Machine {
         machine: Box::new(machine),
         candidate,
@@ -777,8 +801,7 @@ fn scaled_cycle(
     let (kw, hr) = model
         .base_at(base.representative)
         .map_err(|e| cycle_error(candidate, e.to_string()))?;
-    let base_site = &base.cached.site;
-    let (output_ratio, heat_rate_ratio) = (
+    let year_ratios = (
         kw / base.representative_figures.0,
         hr / base.representative_figures.1,
     );
@@ -793,14 +816,34 @@ fn scaled_cycle(
                 .map_err(|e| cycle_error(candidate, e.to_string()))?
                 .0
         }
-        None => base_site.capacity_output_kw * output_ratio,
+        None => base_site.capacity_output_kw * year_ratios.0,
     };
+    Ok(scaled_from(
+        base,
+        config,
+        (rated_heat_rate_kj_per_kwh, rating_ratios),
+        capacity_output_kw,
+        year_ratios,
+    ))
+}
+
+/// The base's site and year scaled: the site's base-load figures by the
+/// rating's ratios, the year's energy by `output_ratio` and its fuel by
+/// `output_ratio × heat_rate_ratio` (hours unchanged), with the new rated
+/// heat rate and capacity.
+fn scaled_from(
+    base: &BaseSite,
+    config: EngineConfig,
+    (rated_heat_rate_kj_per_kwh, (rated_output_ratio, rated_heat_rate_ratio)): (f64, (f64, f64)),
+    capacity_output_kw: f64,
+    (output_ratio, heat_rate_ratio): (f64, f64),
+) -> CachedCycle {
+    let base_site = &base.cached.site;
     let site = SitePerformance {
         // The site's own figures (at its annual-mean ambient) follow the
         // rating's ratios; the year follows the representative point's.
-        net_output_kw: base_site.net_output_kw * rated_output_kw / base.rated.0,
-        heat_rate_kj_per_kwh: base_site.heat_rate_kj_per_kwh * rated_heat_rate_kj_per_kwh
-            / base.rated.1,
+        net_output_kw: base_site.net_output_kw * rated_output_ratio,
+        heat_rate_kj_per_kwh: base_site.heat_rate_kj_per_kwh * rated_heat_rate_ratio,
         rated_heat_rate_kj_per_kwh,
         capacity_output_kw,
         // The base's points, shared; the ratios wait in `pending_scale`.
@@ -809,21 +852,16 @@ fn scaled_cycle(
     };
     // energy = Σ l·P·h scales with the output; fuel = Σ l·P·h·HR with
     // output × heat rate; the hours stay.
-    let year = base.cached.year.map(|(hours, y)| {
-        (
-            hours,
-            AnnualOperation {
-                operating_hours: y.operating_hours,
-                energy_mwh: y.energy_mwh * output_ratio,
-                fuel_energy_gj_lhv: y.fuel_energy_gj_lhv * output_ratio * heat_rate_ratio,
-            },
-        )
+    let year = base.cached.year.map(|y| AnnualOperation {
+        operating_hours: y.operating_hours,
+        energy_mwh: y.energy_mwh * output_ratio,
+        fuel_energy_gj_lhv: y.fuel_energy_gj_lhv * output_ratio * heat_rate_ratio,
     });
-    Ok(CachedCycle {
+    CachedCycle {
         config,
         site,
         year,
         pending_scale: Some((output_ratio, heat_rate_ratio)),
         ..base.cached.clone()
-    })
+    }
 }

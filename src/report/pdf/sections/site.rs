@@ -8,6 +8,7 @@
 use super::{pdf_units, Ctx};
 use crate::report::charts::site::{site_chart, SiteCurve};
 use crate::report::format::{self, Quantity};
+use crate::report::model::Units;
 use crate::report::pdf::document::{Composer, Orientation};
 use crate::report::pdf::fonts::Face;
 use crate::report::pdf::table::{draw_table, Column, TableStyle};
@@ -115,13 +116,17 @@ fn hours_by_temperature(ctx: &Ctx, composer: &mut Composer) {
         .collect();
     edges.sort_by(|a, b| a.0.total_cmp(&b.0));
     edges.dedup();
+    // Ambient bins read best in degrees Celsius (they lie on whole
+    // multiples of 5 °C) or Fahrenheit, not kelvin.
+    let (bin_unit, temperature): (&str, fn(f64) -> String) = match units {
+        Units::Si => ("°C", |k| format::number(k - 273.15, 0)),
+        Units::Us => ("°F", |k| format::number(k * 1.8 - 459.67, 1)),
+    };
     let mut columns = vec![Column::left(pdf_units(format!(
-        "{}, {}",
-        l.site_temperature_bin,
-        format::unit(Quantity::Temperature, units)
+        "{}, {bin_unit}",
+        l.site_temperature_bin
     )))];
     columns.extend(candidates.iter().map(|c| Column::right(c.label.clone())));
-    let temperature = |k: f64| format::number(format::in_units(Quantity::Temperature, k, units), 1);
     let rows: Vec<Vec<String>> = edges
         .iter()
         .map(|&(low, high)| {

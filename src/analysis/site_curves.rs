@@ -1,7 +1,8 @@
-//! What the report's "Site performance" section shows: each candidate's
-//! fixed machine ([`super::machine::machine_of`]) at base load over a range
-//! of ambient temperatures and at part load at the site, and its year as
-//! the comparison priced it.
+//! What the report's "Site performance" section shows: each candidate as
+//! priced ([`super::site::SiteModel`]: its fixed machine, with its vendor
+//! curves where it states them) at base load over a range of ambient
+//! temperatures and at part load at the site, and its year as the
+//! comparison priced it.
 //!
 //! Run hours by temperature bin and starts per year come from
 //! [`operating_profile`]: the year's operating conditions (weather and
@@ -10,8 +11,8 @@
 use super::compare::Study;
 use super::machine::{machine_of, site_ambient};
 use super::operation::AnnualOperation;
-use super::site::Basis;
-use crate::offdesign::{Ambient, Load};
+use super::site::{Basis, SiteModel};
+use crate::offdesign::Ambient;
 use crate::report::model::{SiteCandidateView, SitePerformanceView, TemperatureBinView};
 use crate::scenario::{Candidate, Scenario};
 
@@ -101,23 +102,27 @@ pub fn site_performance_view(scenario: &Scenario, study: &Study) -> SitePerforma
         .map(|(candidate, outcome)| {
             let solved = &outcome.solved;
             let fixed = matches!(solved.site.basis, Basis::Machine(_));
-            let machine = if fixed {
-                machine_of(candidate, &scenario.site, &study.fuel).ok()
+            // Each bid as priced: its vendor curves where it states them,
+            // its machine's physics otherwise (`SiteModel`).
+            let model = if fixed {
+                machine_of(candidate, &scenario.site, &study.fuel)
+                    .ok()
+                    .map(|machine| SiteModel::Machine {
+                        machine: Box::new(machine),
+                        candidate,
+                    })
             } else {
                 None
             };
             let site = site_ambient(candidate, &scenario.site);
-            let base: Vec<_> = temperatures_k
+            let base: Vec<Option<(f64, f64)>> = temperatures_k
                 .iter()
                 .map(|&t| {
-                    machine.as_ref().and_then(|m| {
-                        m.solve(
-                            Ambient {
-                                temperature_k: t,
-                                ..site
-                            },
-                            Load::BASE,
-                        )
+                    model.as_ref().and_then(|m| {
+                        m.base_at(Ambient {
+                            temperature_k: t,
+                            ..site
+                        })
                         .ok()
                     })
                 })
@@ -125,8 +130,8 @@ pub fn site_performance_view(scenario: &Scenario, study: &Study) -> SitePerforma
             let part_load = LOADS
                 .iter()
                 .map(|&load| {
-                    machine.as_ref().and_then(|m| {
-                        m.solve(site, Load(load))
+                    model.as_ref().and_then(|m| {
+                        m.performance_at(site, load)
                             .ok()
                             .map(|p| p.heat_rate_kj_per_kwh)
                     })
@@ -143,14 +148,8 @@ pub fn site_performance_view(scenario: &Scenario, study: &Study) -> SitePerforma
                 candidate_id: candidate.id.clone(),
                 label: candidate.label.clone(),
                 fixed_machine: fixed,
-                output_kw: base
-                    .iter()
-                    .map(|p| p.as_ref().map(|p| p.net_output_kw))
-                    .collect(),
-                heat_rate_kj_per_kwh: base
-                    .iter()
-                    .map(|p| p.as_ref().map(|p| p.heat_rate_kj_per_kwh))
-                    .collect(),
+                output_kw: base.iter().map(|p| p.map(|p| p.0)).collect(),
+                heat_rate_kj_per_kwh: base.iter().map(|p| p.map(|p| p.1)).collect(),
                 part_load_heat_rate_kj_per_kwh: part_load,
                 energy_mwh: solved.year.energy_mwh,
                 fuel_gj_lhv: solved.year.fuel_energy_gj_lhv,
@@ -164,7 +163,10 @@ pub fn site_performance_view(scenario: &Scenario, study: &Study) -> SitePerforma
         temperatures_k,
         site_temperature_k: scenario.site.ambient_temperature_k,
         loads: LOADS.to_vec(),
-        part_load_from_table: scenario.candidates.iter().any(|c| !c.part_load.is_empty()),
+        part_load_from_table: scenario
+            .candidates
+            .iter()
+            .any(|c| !c.part_load.is_empty() || !c.ambient_correction.is_empty()),
         candidates,
     }
 }

@@ -776,8 +776,8 @@ pub struct SitePerformanceView {
     /// Loads of the part-load curves, fractions of the site base load,
     /// descending.
     pub loads: Vec<f64>,
-    /// Whether any candidate's part load is priced from its vendor
-    /// `part_load` curve rather than its machine's physics.
+    /// Whether any candidate states vendor curves (`part_load`,
+    /// `ambient_correction`), which price it and are drawn here.
     pub part_load_from_table: bool,
     /// Every candidate, in scenario order.
     pub candidates: Vec<SiteCandidateView>,

@@ -7,8 +7,8 @@ mod workbook_support;
 
 use std::path::Path;
 use workbook_support::{
-    check_ledgers, check_summary, compare_json, nominal_variant, price_path_variant,
-    study_date_variant, write_workbook, DEMOS,
+    check_ledgers, check_summary, compare_json, hourly_priced_variant, nominal_variant,
+    price_path_variant, study_date_variant, write_workbook, DEMOS,
 };
 
 #[test]
@@ -35,6 +35,10 @@ fn cached_values_equal_compare_on_the_variants() {
         (
             study_date_variant(dir.path()),
             "present values at the study date",
+        ),
+        (
+            hourly_priced_variant(dir.path()),
+            "hourly year with priced hours",
         ),
     ] {
         let out = dir.path().join("book.xlsx");

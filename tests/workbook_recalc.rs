@@ -17,8 +17,8 @@ use std::path::{Path, PathBuf};
 use std::process::Command;
 use std::sync::Mutex;
 use workbook_support::{
-    assert_no_error_cells, check_ledgers, check_summary, compare_json, json_money, nominal_variant,
-    price_path_variant, study_date_variant, write_workbook, DEMOS,
+    assert_no_error_cells, check_ledgers, check_summary, compare_json, hourly_priced_variant,
+    json_money, nominal_variant, price_path_variant, study_date_variant, write_workbook, DEMOS,
 };
 
 /// One LibreOffice process at a time.
@@ -114,6 +114,10 @@ fn libreoffice_recalculates_the_variants_to_the_cent() {
         (
             study_date_variant(dir.path()),
             "present values at the study date",
+        ),
+        (
+            hourly_priced_variant(dir.path()),
+            "hourly year with priced hours",
         ),
     ] {
         let book = dir.path().join("book.xlsx");

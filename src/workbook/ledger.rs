@@ -414,12 +414,13 @@ impl LedgerSheet<'_> {
             m,
         )?;
         let bought_in = format!(
-            "={}*{frac}*EnergyValue+{}*{frac}*CapacityValue+({}*{frac}-{})*EnergyValue+{}*(1-{in_service})*{frac}*CapacityValue",
+            "={}*{frac}*{price}+{}*{frac}*CapacityValue+({}*{frac}-{})*{price}+{}*(1-{in_service})*{frac}*CapacityValue",
             n.name("EnergyShortfall"),
             n.name("CapacityShortfall"),
             n.name("AnnualEnergy"),
             at(r, col::ENERGY),
-            n.name("SiteOutputKw"),
+            n.name("CapacityKw"),
+            price = n.name("BoughtInEnergyPrice"),
         );
         cells.formula(r, col::FUEL + 5, &bought_in, f(row.bought_in), m)?;
         cells.number(r, col::CAPITAL, 0.0, m)?;

@@ -336,3 +336,52 @@ pub fn study_date_variant(dir: &Path) -> std::path::PathBuf {
     std::fs::write(&path, text).expect("variant written");
     path
 }
+
+/// The Corvel Bay demo on its hourly year (weather and profile, capacity
+/// credited at 95 degF), written into `dir` with its profile's hours priced
+/// (an invented daily pattern: 30 USD/MWh plus 2 USD/MWh per hour of the
+/// day), energy valued at 60 USD/MWh and ten outage days per overhaul on
+/// Bid A. It exercises the hour-weighted price of energy bought in and the
+/// capacity credited at the capacity temperature in the outage term.
+pub fn hourly_priced_variant(dir: &Path) -> std::path::PathBuf {
+    let data = dir.join("data");
+    std::fs::create_dir_all(&data).expect("data dir");
+    std::fs::copy(
+        "scenarios/data/corvel-bay-weather.csv",
+        data.join("corvel-bay-weather.csv"),
+    )
+    .expect("weather copied");
+    let profile =
+        std::fs::read_to_string("scenarios/data/corvel-bay-dispatch.csv").expect("profile");
+    let mut lines = profile.lines();
+    let header = lines.next().expect("profile header");
+    let mut priced = format!("{header},energy_price_per_MWh\n");
+    for line in lines {
+        let hour: f64 = line
+            .split(',')
+            .next()
+            .and_then(|t| t.get(11..13))
+            .and_then(|h| h.parse().ok())
+            .expect("an hourly timestamp");
+        priced.push_str(&format!("{line},{}\n", 30.0 + 2.0 * hour));
+    }
+    std::fs::write(data.join("corvel-bay-dispatch.csv"), priced).expect("profile written");
+    let text = std::fs::read_to_string("scenarios/corvel-bay-peaker.toml").expect("demo");
+    let from = "capacity_value = \"95 USD/kW-yr\"";
+    assert!(text.contains(from), "the demo has {from}");
+    let text = text.replacen(
+        from,
+        "capacity_value = \"95 USD/kW-yr\"\nenergy_value = \"60 USD/MWh\"",
+        1,
+    );
+    let from = "overhaul_cost = \"3900000 USD\"";
+    assert!(text.contains(from), "the demo has {from}");
+    let text = text.replacen(
+        from,
+        "overhaul_cost = \"3900000 USD\"\noverhaul_outage_days = 10",
+        1,
+    );
+    let path = dir.join("corvel-hourly-priced.toml");
+    std::fs::write(&path, text).expect("variant written");
+    path
+}

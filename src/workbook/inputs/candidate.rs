@@ -329,6 +329,36 @@ pub(super) fn write(
         "kW",
         "levelling: the largest capacity credited, less this candidate's",
     )?;
+    // Energy bought in (shortfall, outages, output degradation) is priced
+    // at economics.energy_value, or, with an hourly profile that prices its
+    // hours, at this candidate's hour-weighted shortfall price (computed).
+    let hourly = scenario
+        .operation
+        .profile
+        .as_ref()
+        .is_some_and(|p| p.has_prices());
+    let price = inputs.bought_in.energy_price.price;
+    if hourly {
+        w.named(
+            "Price of energy bought in (hour-weighted)",
+            &n.name("BoughtInEnergyPrice"),
+            Shown::Money(price),
+            &format!("{currency}/MWh"),
+            &format!(
+                "{COMPUTED_NOTE}; the profile's hourly prices weighted by this candidate's hourly shortfall against the candidate that makes most energy"
+            ),
+            Origin::Computed,
+        )?;
+    } else {
+        w.formula(
+            "Price of energy bought in",
+            &n.name("BoughtInEnergyPrice"),
+            "=EnergyValue",
+            super::writer::money_f64(price),
+            &format!("{currency}/MWh"),
+            "economics.energy_value",
+        )?;
+    }
     Ok(())
 }
 

@@ -624,23 +624,26 @@ pub fn pricing_notes(scenario: &Scenario, sites: &[SitePerformance]) -> Vec<Stri
     notes.extend(vendor::pricing_notes(scenario, &fixed, has_part_load));
     for (candidate, site) in scenario.candidates.iter().zip(sites) {
         let year = super::operation::year_from(&conditions, &site.points);
+        let mean_heat_rate = if year.energy_mwh > 0.0 {
+            year.fuel_energy_gj_lhv * 1000.0 / year.energy_mwh
+        } else {
+            0.0
+        };
         let capacity_at = match scenario.economics.capacity_temperature_k {
-            Some(t) => format!("{t:.2} K"),
+            Some(t) => ambient_text(t),
             None => "the site's ambient".to_string(),
         };
         notes.push(format!(
             "candidate[{}]: its year at the site, new and clean: {:.1} run hours, {:.0} MWh, \
-             {:.0} GJ fuel (LHV), mean heat rate {:.0} kJ/kWh; capacity credited {:.0} kW \
-             (base load at {capacity_at})",
+             {:.0} GJ ({:.0} MMBtu) fuel (LHV), mean heat rate {:.0} kJ/kWh ({:.0} Btu/kWh); \
+             capacity credited {:.0} kW (base load at {capacity_at})",
             candidate.id,
             year.operating_hours,
             year.energy_mwh,
             year.fuel_energy_gj_lhv,
-            if year.energy_mwh > 0.0 {
-                year.fuel_energy_gj_lhv * 1000.0 / year.energy_mwh
-            } else {
-                0.0
-            },
+            year.fuel_energy_gj_lhv * MMBTU_PER_GJ,
+            mean_heat_rate,
+            mean_heat_rate * MMBTU_PER_GJ,
             site.capacity_output_kw,
         ));
         if let Basis::Rated(reason) = &site.basis {
@@ -676,8 +679,8 @@ pub fn year_notes(scenario: &Scenario, conditions: &[Condition]) -> Vec<String> 
             }
         };
         notes.push(format!(
-            "{what}; hour-weighted mean dry bulb {:.1} K",
-            w.mean_temperature_k()
+            "{what}; hour-weighted mean dry bulb {}",
+            ambient_text(w.mean_temperature_k())
         ));
     }
     if let Some(p) = &op.profile {
@@ -721,9 +724,20 @@ pub fn year_notes(scenario: &Scenario, conditions: &[Condition]) -> Vec<String> 
     if let Some(t) = scenario.economics.capacity_temperature_k {
         notes.push(format!(
             "economics.capacity_temperature: capacity credited at each candidate's base-load \
-             output at {t:.2} K ({:.1} degC)",
-            t - 273.15
+             output at {}",
+            ambient_text(t)
         ));
     }
     notes
+}
+
+/// MMBtu in one GJ (1 Btu = 1.055 056 kJ, the International Table Btu;
+/// NIST SP 811, from memory); the same factor takes kJ/kWh to Btu/kWh.
+const MMBTU_PER_GJ: f64 = 1.0 / 1.055_056;
+
+/// An ambient temperature as the trade reads it in either unit system:
+/// `35.0 degC / 95.0 degF`.
+fn ambient_text(kelvin: f64) -> String {
+    let c = kelvin - 273.15;
+    format!("{c:.1} degC / {:.1} degF", c * 1.8 + 32.0)
 }

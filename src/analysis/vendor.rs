@@ -31,8 +31,8 @@
 //! known then), so only other callers meet the continuation in part load.
 
 use super::machine::{rating_of, site_ambient};
-use crate::offdesign::{Ambient, Load, Machine, OffDesignError, OffDesignPoint};
-use crate::scenario::{AmbientCorrectionSpec, Candidate, DispatchBlock, PartLoadPoint, Scenario};
+use crate::offdesign::{Ambient, OffDesignError};
+use crate::scenario::{AmbientCorrectionSpec, Candidate, PartLoadPoint, Scenario};
 
 /// Net output and heat rate of a machine at one ambient and load.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -244,71 +244,6 @@ pub fn part_load_ratio(
         None => Ok(lowest.heat_rate_ratio * machine_ratio(load_fraction)?
             / machine_ratio(lowest.load_fraction)?),
     }
-}
-
-/// What [`site_pricing`] gives for one candidate at the site.
-#[derive(Debug, Clone, PartialEq)]
-pub struct SitePricing {
-    /// Base-load output and heat rate at the site, as priced.
-    pub base: Figures,
-    /// The machine's own base-load point at the site.
-    pub machine_base: OffDesignPoint,
-    /// Each dispatch block's heat-rate ratio, in dispatch order.
-    pub block_ratios: Vec<f64>,
-}
-
-/// `candidate`'s fixed `machine` at the site's `ambient`, priced by the
-/// rule of this module: base load and each dispatch block's ratio.
-///
-/// Errors: the machine's refusal, with the dispatch load it was solving
-/// (`None` for base load or an ambient-correction solve).
-pub fn site_pricing(
-    candidate: &Candidate,
-    machine: &Machine,
-    ambient: Ambient,
-    dispatch: &[DispatchBlock],
-) -> Result<SitePricing, (OffDesignError, Option<f64>)> {
-    let machine_base = machine.solve(ambient, Load::BASE).map_err(|e| (e, None))?;
-    let figures = |p: &OffDesignPoint| Figures {
-        net_output_kw: p.net_output_kw,
-        heat_rate_kj_per_kwh: p.heat_rate_kj_per_kwh,
-    };
-    // The site's base load is solved once above; every other point is
-    // solved when the rule needs it.
-    let physics = |at: Ambient, load: f64| -> Result<Figures, OffDesignError> {
-        if at == ambient && load >= 1.0 {
-            return Ok(figures(&machine_base));
-        }
-        machine.solve(at, Load(load.min(1.0))).map(|p| figures(&p))
-    };
-    let base = base_at(candidate, ambient, &physics).map_err(|e| (e, None))?;
-    let block_ratios = dispatch
-        .iter()
-        .map(|b| {
-            part_load_ratio(candidate, ambient, b.load_fraction, &physics)
-                .map_err(|e| (e, Some(b.load_fraction)))
-        })
-        .collect::<Result<Vec<_>, _>>()?;
-    Ok(SitePricing {
-        base,
-        machine_base,
-        block_ratios,
-    })
-}
-
-/// Each dispatch block's heat-rate ratio from a candidate's part-load
-/// curve alone (1 without one), for a candidate that is not priced as a
-/// fixed machine (intercooled, reheat). The loader refuses dispatch loads
-/// below the curve, so a load it does not cover counts as its lowest point.
-pub fn curve_block_ratios(candidate: &Candidate, dispatch: &[DispatchBlock]) -> Vec<f64> {
-    let lowest = candidate
-        .part_load
-        .first()
-        .map_or(1.0, |p| p.heat_rate_ratio);
-    dispatch
-        .iter()
-        .map(|b| curve_part_load_ratio(&candidate.part_load, b.load_fraction).unwrap_or(lowest))
-        .collect()
 }
 
 /// Information lines for `check` and the report: which source priced each

@@ -40,10 +40,10 @@ fn bench(c: &mut Criterion) {
     let fuel = brayfin::analysis::engine::fuel_of(&scenario.fuel).expect("fuel");
     let candidate = &scenario.candidates[0];
     let conds = conditions(scenario);
-    let model = SiteModel::Machine {
-        machine: Box::new(machine_of(candidate, &scenario.site, &fuel).expect("machine")),
+    let model = SiteModel::machine(
+        machine_of(candidate, &scenario.site, &fuel).expect("machine"),
         candidate,
-    };
+    );
     let p = scenario.site.ambient_pressure_kpa;
     c.bench_function("year/one_candidate_grid", |b| {
         b.iter(|| year_points(&model, candidate, p, black_box(&conds)).expect("grid"))

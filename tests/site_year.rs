@@ -181,10 +181,7 @@ fn the_year_grid_matches_exact_solves() {
     assert!(conds.len() > 1000, "an hourly year: {}", conds.len());
     for candidate in &scenario.candidates {
         let machine = machine_of(candidate, &scenario.site, &fuel).expect("machine");
-        let model = SiteModel::Machine {
-            machine: Box::new(machine),
-            candidate,
-        };
+        let model = SiteModel::machine(machine, candidate);
         let p = scenario.site.ambient_pressure_kpa;
         let grid = year_points(&model, candidate, p, &conds).expect("grid");
         let exact = exact_points(&model, candidate, p, &conds).expect("exact");

@@ -180,7 +180,7 @@ pub fn run_study(loaded: &LoadedScenario) -> crate::Result<Study> {
     let solved_all = (0..scenario.candidates.len())
         .map(|index| solve_at(loaded, index, &fuel))
         .collect::<crate::Result<Vec<_>>>()?;
-    let reference = output_reference_of(scenario, solved_all.iter().map(|s| Some(&s.site)));
+    let reference = output_reference_of(scenario, solved_all.iter().map(Some));
     let mut outcomes = Vec::with_capacity(scenario.candidates.len());
     for (candidate, solved) in scenario.candidates.iter().zip(solved_all) {
         // By the contract: the site year without a guarantee, else the

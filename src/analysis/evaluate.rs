@@ -121,11 +121,10 @@ pub struct OutputReference {
     pub shortfall_prices: Vec<(String, f64)>,
 }
 
-/// The output reference of a scenario's candidates whose site performance
-/// is `sites` (in candidate order; `None` for one not solved, which counts
-/// as delivering nothing). Each candidate's year comes from its own
-/// performance in every condition of the year, so energy differs by
-/// candidate.
+/// The output reference of a scenario's solved candidates (in candidate
+/// order; `None` for one not solved, which counts as delivering nothing).
+/// Each candidate's year comes from its own performance in every condition
+/// of the year, so energy differs by candidate.
 ///
 /// Hourly prices (an `[operation] profile` with `energy_price_per_MWh` in
 /// every run hour): the shortfall of candidate c is priced at the hours'
@@ -135,13 +134,22 @@ pub struct OutputReference {
 /// netted. Without such a shortfall (c is r) `economics.energy_value`.
 pub fn output_reference_of<'a>(
     scenario: &Scenario,
-    sites: impl IntoIterator<Item = Option<&'a SitePerformance>>,
+    solved: impl IntoIterator<Item = Option<&'a Solved>>,
 ) -> OutputReference {
-    let conditions = conditions(scenario);
-    let sites: Vec<_> = sites
+    // The conditions are read only for hourly prices.
+    let priced = scenario
+        .operation
+        .profile
+        .as_ref()
+        .is_some_and(|p| p.has_prices());
+    let conditions = if priced {
+        conditions(scenario)
+    } else {
+        Vec::new()
+    };
+    let sites = solved
         .into_iter()
-        .map(|s| s.map(|s| (s, year_from(&conditions, &s.points).energy_mwh)))
-        .collect();
+        .map(|s| s.map(|s| (&s.site, s.year.energy_mwh)));
     output_reference_from(scenario, &conditions, sites)
 }
 
@@ -201,12 +209,12 @@ pub fn output_reference_from<'a>(
 /// the site: every candidate is solved. The error is the first candidate's
 /// that cannot be.
 pub fn output_reference(scenario: &Scenario, fuel: &Fuel) -> Result<OutputReference, SolveError> {
-    let sites = scenario
+    let solved = scenario
         .candidates
         .iter()
-        .map(|c| solve(scenario, c, fuel).map(|s| s.site))
+        .map(|c| solve(scenario, c, fuel))
         .collect::<Result<Vec<_>, _>>()?;
-    Ok(output_reference_of(scenario, sites.iter().map(Some)))
+    Ok(output_reference_of(scenario, solved.iter().map(Some)))
 }
 
 /// A candidate's shortfall against `reference`: energy priced at its

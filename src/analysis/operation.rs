@@ -36,6 +36,19 @@ pub struct AnnualOperation {
     pub fuel_energy_gj_lhv: f64,
 }
 
+impl AnnualOperation {
+    /// This year with its hours, energy and fuel multiplied by the given
+    /// factors (a year is linear in its hours; a machine's output ratio
+    /// moves its energy, output × heat-rate ratio its fuel).
+    pub fn scaled(self, hours: f64, energy: f64, fuel: f64) -> AnnualOperation {
+        AnnualOperation {
+            operating_hours: self.operating_hours * hours,
+            energy_mwh: self.energy_mwh * energy,
+            fuel_energy_gj_lhv: self.fuel_energy_gj_lhv * fuel,
+        }
+    }
+}
+
 /// One operating condition of the year.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Condition {

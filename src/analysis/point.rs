@@ -538,12 +538,7 @@ impl<'s> PointModel<'s> {
         for cached in ws.cycles.iter_mut().flatten() {
             if cached.year.is_none() {
                 let (o, r) = cached.pending_scale.unwrap_or((1.0, 1.0));
-                let y = year_from(conds, &cached.site.points);
-                cached.year = Some(AnnualOperation {
-                    operating_hours: y.operating_hours,
-                    energy_mwh: y.energy_mwh * o,
-                    fuel_energy_gj_lhv: y.fuel_energy_gj_lhv * o * r,
-                });
+                cached.year = Some(year_from(conds, &cached.site.points).scaled(1.0, o, o * r));
             }
             if priced {
                 if let Some((o, r)) = cached.pending_scale.take() {
@@ -561,11 +556,7 @@ impl<'s> PointModel<'s> {
                 }
             }
         }
-        let at_hours = |y: AnnualOperation| AnnualOperation {
-            operating_hours: y.operating_hours * scale,
-            energy_mwh: y.energy_mwh * scale,
-            fuel_energy_gj_lhv: y.fuel_energy_gj_lhv * scale,
-        };
+        let at_hours = |y: AnnualOperation| y.scaled(scale, scale, scale);
         // Hourly shortfall prices are ratios of energies over the same
         // conditions: the hours' scale cancels.
         let reference = output_reference_from(
@@ -741,10 +732,7 @@ fn base_site(scenario: &Scenario, candidate: &Candidate, fuel: &Fuel) -> Option<
     } else {
         site_ambient
     };
-    let model = SiteModel::Machine {
-        machine: Box::new(machine),
-        candidate,
-    };
+    let model = SiteModel::machine(machine, candidate);
     let representative_figures = model.base_at(representative).ok()?;
     if !usable(representative_figures.0) || !usable(representative_figures.1) {
         return None;
@@ -794,10 +782,7 @@ fn scaled_cycle(
             (o, r),
         ));
     }
-    let model = SiteModel::Machine {
-        machine: Box::new(machine),
-        candidate,
-    };
+    let model = SiteModel::machine(machine, candidate);
     let (kw, hr) = model
         .base_at(base.representative)
         .map_err(|e| cycle_error(candidate, e.to_string()))?;
@@ -852,11 +837,10 @@ fn scaled_from(
     };
     // energy = Σ l·P·h scales with the output; fuel = Σ l·P·h·HR with
     // output × heat rate; the hours stay.
-    let year = base.cached.year.map(|y| AnnualOperation {
-        operating_hours: y.operating_hours,
-        energy_mwh: y.energy_mwh * output_ratio,
-        fuel_energy_gj_lhv: y.fuel_energy_gj_lhv * output_ratio * heat_rate_ratio,
-    });
+    let year = base
+        .cached
+        .year
+        .map(|y| y.scaled(1.0, output_ratio, output_ratio * heat_rate_ratio));
     CachedCycle {
         config,
         site,

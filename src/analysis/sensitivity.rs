@@ -190,7 +190,7 @@ fn net_savings_from(
             _ => solve(scenario, c, &fuel).ok(),
         })
         .collect::<Option<Vec<_>>>()?;
-    let reference = output_reference_of(scenario, solved_all.iter().map(|s| Some(&s.site)));
+    let reference = output_reference_of(scenario, solved_all.iter().map(Some));
     let mut summaries = Vec::with_capacity(scenario.candidates.len());
     for (candidate, solved) in scenario.candidates.iter().zip(&solved_all) {
         let inputs = ledger_inputs(

@@ -136,6 +136,9 @@ pub enum SiteModel<'a> {
         machine: Box<Machine>,
         /// The candidate (its vendor curves).
         candidate: &'a Candidate,
+        /// The machine's base load at the rating, once solved: a vendor's
+        /// ambient correction multiplies it at every ambient.
+        rated: std::cell::OnceCell<Figures>,
     },
     /// Its rated output and design-point heat rate at every ambient, part
     /// load from its vendor's part-load curve (none: base-load heat rate).
@@ -158,13 +161,35 @@ fn physics(machine: &Machine, at: Ambient, load: f64) -> Result<Figures, OffDesi
     })
 }
 
-impl SiteModel<'_> {
+impl<'a> SiteModel<'a> {
+    /// `candidate`'s fixed `machine`, priced with its vendor curves.
+    pub fn machine(machine: Machine, candidate: &'a Candidate) -> SiteModel<'a> {
+        SiteModel::Machine {
+            machine: Box::new(machine),
+            candidate,
+            rated: std::cell::OnceCell::new(),
+        }
+    }
+
     /// Base-load net output (kW) and heat rate (kJ/kWh) at `ambient`.
     pub fn base_at(&self, ambient: Ambient) -> Result<(f64, f64), OffDesignError> {
         match self {
-            SiteModel::Machine { machine, candidate } => {
-                let f =
-                    vendor::base_at(candidate, ambient, &|at, load| physics(machine, at, load))?;
+            SiteModel::Machine {
+                machine,
+                candidate,
+                rated,
+            } => {
+                let rating = super::machine::rating_of(candidate);
+                let f = vendor::base_at(candidate, ambient, &|at, load| {
+                    if at != rating || load < 1.0 {
+                        return physics(machine, at, load);
+                    }
+                    if let Some(f) = rated.get() {
+                        return Ok(*f);
+                    }
+                    let f = physics(machine, at, load)?;
+                    Ok(*rated.get_or_init(|| f))
+                })?;
                 Ok((f.net_output_kw, f.heat_rate_kj_per_kwh))
             }
             SiteModel::Rated {
@@ -188,14 +213,16 @@ impl SiteModel<'_> {
             return Ok(1.0);
         }
         match self {
-            SiteModel::Machine { machine, candidate }
-                if candidate.part_load.is_empty() && candidate.ambient_correction.is_empty() =>
-            {
+            SiteModel::Machine {
+                machine, candidate, ..
+            } if candidate.part_load.is_empty() && candidate.ambient_correction.is_empty() => {
                 machine
                     .solve(ambient, Load(load))
                     .map(|p| p.heat_rate_kj_per_kwh / base_heat_rate)
             }
-            SiteModel::Machine { machine, candidate } => {
+            SiteModel::Machine {
+                machine, candidate, ..
+            } => {
                 vendor::part_load_ratio(candidate, ambient, load, &|at, l| physics(machine, at, l))
             }
             SiteModel::Rated { candidate, .. } => {
@@ -599,10 +626,7 @@ pub fn fixed_machine_site(
     let base = machine
         .solve(site_ambient(candidate, &scenario.site), Load::BASE)
         .map_err(|e| located((e, None)))?;
-    let model = SiteModel::Machine {
-        machine: Box::new(machine),
-        candidate,
-    };
+    let model = SiteModel::machine(machine, candidate);
     perform(scenario, candidate, &model, rated, base)
         .map(Ok)
         .map_err(located)

@@ -107,10 +107,7 @@ pub fn site_performance_view(scenario: &Scenario, study: &Study) -> SitePerforma
             let model = if fixed {
                 machine_of(candidate, &scenario.site, &study.fuel)
                     .ok()
-                    .map(|machine| SiteModel::Machine {
-                        machine: Box::new(machine),
-                        candidate,
-                    })
+                    .map(|machine| SiteModel::machine(machine, candidate))
             } else {
                 None
             };

@@ -7,12 +7,12 @@
 use super::context::Context;
 use super::declare::{keys_in, Key, Presence, SetResult, Shape};
 use super::error::ScenarioError;
-use super::ranges::{Range, AMBIENT_T_K, HOURS_PER_LEAP_YEAR};
+use super::ranges::{Range, HOURS_PER_LEAP_YEAR};
 use super::reader::{type_error, TableReader};
 use super::tree::{Node, NodeValue};
 use super::types::{DispatchBlock, Operation, Scenario};
 use super::values::checked;
-use super::weather::{read_profile, Weather};
+use super::weather::{read_ambient, read_profile, Weather};
 use crate::units::{self, Kind};
 
 type Read<T> = Result<T, ScenarioError>;
@@ -158,30 +158,8 @@ fn read_dispatch(ctx: &mut Context, r: &TableReader) -> Read<Vec<DispatchBlock>>
             .ok_or_else(|| b.missing(ctx, "load", "expected a load fraction such as \"75 %\""))?;
         let hours = checked(ctx, &b, "hours", units::duration_h, Range::NonNegative)?
             .ok_or_else(|| b.missing(ctx, "hours", "expected a value for each block"))?;
-        let ambient_temperature_k = checked(
-            ctx,
-            &b,
-            "ambient_temperature",
-            units::temperature_k,
-            Range::Positive,
-        )?;
-        if let Some(t) = ambient_temperature_k {
-            if !(AMBIENT_T_K.0..=AMBIENT_T_K.1).contains(&t) {
-                return Err(b.error(
-                    ctx,
-                    "ambient_temperature",
-                    format!("{t:.2} K is outside the ambient range"),
-                    format!("expected {} K to {} K", AMBIENT_T_K.0, AMBIENT_T_K.1),
-                ));
-            }
-        }
-        let relative_humidity = checked(
-            ctx,
-            &b,
-            "relative_humidity",
-            units::fraction,
-            Range::Fraction,
-        )?;
+        let (ambient_temperature_k, relative_humidity) =
+            read_ambient(ctx, &b, "ambient_temperature")?;
         blocks.push(DispatchBlock {
             load_fraction,
             hours,

@@ -187,36 +187,15 @@ fn read_bins(
             item,
             &["temperature", "relative_humidity", "hours"],
         )?;
-        let temperature_k = checked(
-            ctx,
-            &b,
-            "temperature",
-            units::temperature_k,
-            Range::Positive,
-        )?
-        .ok_or_else(|| {
+        let (temperature_k, relative_humidity) = read_ambient(ctx, &b, "temperature")?;
+        let temperature_k = temperature_k.ok_or_else(|| {
             b.missing(
                 ctx,
                 "temperature",
                 "expected the bin's dry-bulb temperature, e.g. \"5 degC\"",
             )
         })?;
-        if !(AMBIENT_T_K.0..=AMBIENT_T_K.1).contains(&temperature_k) {
-            return Err(b.error(
-                ctx,
-                "temperature",
-                format!("{temperature_k:.2} K is outside the ambient range"),
-                format!("expected {} K to {} K", AMBIENT_T_K.0, AMBIENT_T_K.1),
-            ));
-        }
-        let relative_humidity = checked(
-            ctx,
-            &b,
-            "relative_humidity",
-            units::fraction,
-            Range::Fraction,
-        )?
-        .unwrap_or(default_rh);
+        let relative_humidity = relative_humidity.unwrap_or(default_rh);
         let hours =
             checked(ctx, &b, "hours", units::duration_h, Range::NonNegative)?.ok_or_else(|| {
                 b.missing(ctx, "hours", "expected the bin's hours per year, e.g. 744")
@@ -241,6 +220,42 @@ fn read_bins(
         source: WeatherSource::Bins,
         records,
     })
+}
+
+/// An inline table's own ambient, both optional: the dry-bulb temperature
+/// at `temperature_key` (K, within the ambient range) and its
+/// `relative_humidity` (fraction). Weather bins and dispatch blocks share
+/// it.
+pub(super) fn read_ambient(
+    ctx: &mut Context,
+    b: &TableReader,
+    temperature_key: &str,
+) -> Read<(Option<f64>, Option<f64>)> {
+    let temperature_k = checked(
+        ctx,
+        b,
+        temperature_key,
+        units::temperature_k,
+        Range::Positive,
+    )?;
+    if let Some(t) = temperature_k {
+        if !(AMBIENT_T_K.0..=AMBIENT_T_K.1).contains(&t) {
+            return Err(b.error(
+                ctx,
+                temperature_key,
+                format!("{t:.2} K is outside the ambient range"),
+                format!("expected {} K to {} K", AMBIENT_T_K.0, AMBIENT_T_K.1),
+            ));
+        }
+    }
+    let relative_humidity = checked(
+        ctx,
+        b,
+        "relative_humidity",
+        units::fraction,
+        Range::Fraction,
+    )?;
+    Ok((temperature_k, relative_humidity))
 }
 
 /// The file named in the scenario, resolved against the scenario's folder.

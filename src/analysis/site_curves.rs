@@ -4,17 +4,16 @@
 //! temperatures and at part load at the site, and its year as the
 //! comparison priced it.
 //!
-//! Run hours by temperature bin and starts per year come from
-//! [`operating_profile`]: the year's operating conditions (weather and
-//! dispatch) and `operation.starts_per_year`.
+//! Run hours by temperature bin come from [`hours_by_temperature`] (the
+//! year's operating conditions: weather and dispatch), starts per year from
+//! `operation.starts_per_year`.
 
 use super::compare::Study;
 use super::machine::{machine_of, site_ambient};
-use super::operation::AnnualOperation;
 use super::site::{Basis, SiteModel};
 use crate::offdesign::Ambient;
 use crate::report::model::{SiteCandidateView, SitePerformanceView, TemperatureBinView};
-use crate::scenario::{Candidate, Scenario};
+use crate::scenario::Scenario;
 
 /// Lowest ambient temperature of the curves, K (−10 °C).
 const LOWEST_K: f64 = 263.15;
@@ -27,60 +26,27 @@ const LOADS: [f64; 7] = [1.0, 0.9, 0.8, 0.7, 0.6, 0.5, 0.4];
 /// Width of a run-hours temperature bin, K.
 const BIN_K: f64 = 5.0;
 
-/// One candidate's year as priced: what [`operating_profile`] reads.
-#[derive(Debug, Clone, Copy)]
-pub struct CandidateYear<'a> {
-    /// The candidate.
-    pub candidate: &'a Candidate,
-    /// Its year of operation as priced (new and clean).
-    pub year: &'a AnnualOperation,
-}
-
-/// Run hours by ambient temperature and starts of one candidate's year.
-#[derive(Debug, Clone, PartialEq, Default)]
-pub struct OperatingProfile {
-    /// Run hours by temperature bin, ascending, summing to the year's run
-    /// hours.
-    pub hours_by_temperature: Vec<TemperatureBinView>,
-    /// Starts per year; `None` while starts are not modelled.
-    pub starts_per_year: Option<f64>,
-}
-
-/// Run hours by ambient temperature bin and starts per year of one
-/// candidate's year: the year's operating conditions
-/// ([`super::operation::conditions`], the weather and dispatch as priced)
-/// in [`BIN_K`]-wide bins of dry-bulb temperature on whole multiples of
-/// 5 °C; with one annual-mean temperature every hour falls in one bin.
-/// Every candidate runs the same hours, so only the starts and hours of
-/// the scenario matter; `year` is the candidate's priced year, whose run
-/// hours the bins sum to.
-pub fn operating_profile(scenario: &Scenario, year: &CandidateYear) -> OperatingProfile {
+/// Run hours of the site's year by ambient temperature: the year's
+/// operating conditions ([`super::operation::conditions`], the weather and
+/// dispatch as priced) in [`BIN_K`]-wide bins of dry-bulb temperature on
+/// whole multiples of 5 °C, ascending; with one annual-mean temperature
+/// every hour falls in one bin. Every candidate runs the same hours.
+pub fn hours_by_temperature(scenario: &Scenario) -> Vec<TemperatureBinView> {
     let mut bins: std::collections::BTreeMap<i64, f64> = std::collections::BTreeMap::new();
     for c in super::operation::conditions(scenario) {
         let index = ((c.temperature_k - 273.15) / BIN_K).floor() as i64;
         *bins.entry(index).or_insert(0.0) += c.hours;
     }
-    let total: f64 = bins.values().sum();
-    // The conditions' hours are the priced year's; guard rounding only.
-    let scale = if total > 0.0 {
-        year.year.operating_hours / total
-    } else {
-        0.0
-    };
-    OperatingProfile {
-        hours_by_temperature: bins
-            .into_iter()
-            .map(|(index, hours)| {
-                let low_k = 273.15 + BIN_K * index as f64;
-                TemperatureBinView {
-                    low_k,
-                    high_k: low_k + BIN_K,
-                    hours: hours * scale,
-                }
-            })
-            .collect(),
-        starts_per_year: Some(scenario.operation.starts_per_year),
-    }
+    bins.into_iter()
+        .map(|(index, hours)| {
+            let low_k = 273.15 + BIN_K * index as f64;
+            TemperatureBinView {
+                low_k,
+                high_k: low_k + BIN_K,
+                hours,
+            }
+        })
+        .collect()
 }
 
 /// The ambient temperatures of the curves, K.
@@ -95,6 +61,7 @@ pub fn curve_temperatures_k() -> Vec<f64> {
 /// fixed-machine model does not cover has no curves.
 pub fn site_performance_view(scenario: &Scenario, study: &Study) -> SitePerformanceView {
     let temperatures_k = curve_temperatures_k();
+    let hours_by_temperature = hours_by_temperature(scenario);
     let candidates = scenario
         .candidates
         .iter()
@@ -134,13 +101,6 @@ pub fn site_performance_view(scenario: &Scenario, study: &Study) -> SitePerforma
                     })
                 })
                 .collect();
-            let profile = operating_profile(
-                scenario,
-                &CandidateYear {
-                    candidate,
-                    year: &solved.year,
-                },
-            );
             SiteCandidateView {
                 candidate_id: candidate.id.clone(),
                 label: candidate.label.clone(),
@@ -151,8 +111,8 @@ pub fn site_performance_view(scenario: &Scenario, study: &Study) -> SitePerforma
                 energy_mwh: solved.year.energy_mwh,
                 fuel_gj_lhv: solved.year.fuel_energy_gj_lhv,
                 run_hours: solved.year.operating_hours,
-                starts_per_year: profile.starts_per_year,
-                hours_by_temperature: profile.hours_by_temperature,
+                starts_per_year: Some(scenario.operation.starts_per_year),
+                hours_by_temperature: hours_by_temperature.clone(),
             }
         })
         .collect();
